@@ -1,9 +1,32 @@
 package dev.splitwright.cli;
 
-/** Placeholder. */
+import java.io.PrintWriter;
+import picocli.CommandLine;
+
+/**
+ * The {@code splitwright} command. Exit codes: 0 success, 1 verification failed, 2 bad input or
+ * options, 3 internal error. No stack trace is printed unless {@code --debug} is given.
+ */
 public final class Main {
   private Main() {}
 
-  /** Entry point. */
-  public static void main(String[] args) {}
+  public static void main(String[] args) {
+    System.exit(run(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true)));
+  }
+
+  /** Runs the command line with the given streams and returns the exit code. */
+  public static int run(String[] args, PrintWriter out, PrintWriter err) {
+    CommandLine cli = new CommandLine(new SplitwrightCommand());
+    cli.setOut(out);
+    cli.setErr(err);
+    cli.setParameterExceptionHandler(new ErrorHandlers.Usage());
+    cli.setExecutionExceptionHandler(new ErrorHandlers.Execution());
+    cli.setExecutionStrategy(new CommandLine.RunLast());
+    try {
+      return cli.execute(args);
+    } finally {
+      out.flush();
+      err.flush();
+    }
+  }
 }

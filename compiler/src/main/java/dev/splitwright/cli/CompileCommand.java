@@ -1,0 +1,268 @@
+package dev.splitwright.cli;
+
+import dev.splitwright.data.LoadOptions;
+import dev.splitwright.emit.EmitOptions;
+import dev.splitwright.emit.InputKind;
+import dev.splitwright.emit.Layout;
+import dev.splitwright.eval.Scores;
+import dev.splitwright.job.CompileJob;
+import dev.splitwright.job.CompileRequest;
+import dev.splitwright.job.CompileResult;
+import dev.splitwright.train.Impurity;
+import dev.splitwright.train.TrainingOptions;
+import dev.splitwright.verify.VerificationResult;
+import dev.splitwright.verify.Verifier;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+
+/** {@code splitwright compile}: CSV in, verified classifier source and report out. */
+@Command(
+    name = "compile",
+    mixinStandardHelpOptions = true,
+    sortOptions = false,
+    description = "Trains a CART tree on the CSV (or reads a saved model), emits it as Java, checks "
+        + "the compiled code against the model on every row and every threshold boundary, and "
+        + "writes <out>/<package path>/<Class>.java and <out>/<Class>.report.json only if the "
+        + "check passed.")
+final class CompileCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Option(names = "--data", required = true, paramLabel = "FILE",
+      description = "Labelled CSV with a header row.")
+  Path data;
+
+  @Option(names = "--target", paramLabel = "NAME",
+      description = "Column holding the class label (default: the last column).")
+  String target;
+
+  @Option(names = "--test-data", paramLabel = "FILE",
+      description = "Separate CSV with the same header to test on, instead of a test fraction.")
+  Path testData;
+
+  @Option(names = "--missing", paramLabel = "TOKENS", split = ",",
+      description = "Cell texts that mean 'missing', besides an empty cell (e.g. NA,?).")
+  List<String> missing = new ArrayList<>();
+
+  @Option(names = "--categorical", paramLabel = "COLUMNS", split = ",",
+      description = "Columns to treat as categories even if they look numeric.")
+  List<String> categorical = new ArrayList<>();
+
+  @Option(names = "--numeric", paramLabel = "COLUMNS", split = ",",
+      description = "Columns that must be numeric; a non-number in them is an error.")
+  List<String> numeric = new ArrayList<>();
+
+  @Option(names = "--split", paramLabel = "TRAIN,VALIDATION,TEST", defaultValue = "0.6,0.2,0.2",
+      description = "Stratified fractions of the rows (default: ${DEFAULT-VALUE}); 1,0,0 trains "
+          + "on every row and reports train scores only.")
+  String split;
+
+  @Option(names = "--seed", defaultValue = "1", paramLabel = "N",
+      description = "Seed of the split and of the random verification inputs "
+          + "(default: ${DEFAULT-VALUE}).")
+  long seed;
+
+  @Option(names = "--max-depth", defaultValue = "8", paramLabel = "N",
+      description = "Most splits on any root-to-leaf path (default: ${DEFAULT-VALUE}).")
+  int maxDepth;
+
+  @Option(names = "--max-leaves", paramLabel = "N",
+      description = "Most leaves; the tree grows best split first (default: no cap).")
+  Integer maxLeaves;
+
+  @Option(names = "--min-leaf", defaultValue = "1", paramLabel = "N",
+      description = "Fewest training rows in a leaf (default: ${DEFAULT-VALUE}).")
+  int minLeaf;
+
+  @Option(names = "--impurity", defaultValue = "gini", paramLabel = "gini|entropy",
+      description = "Split criterion (default: ${DEFAULT-VALUE}).")
+  String impurity;
+
+  @Option(names = "--model", paramLabel = "FILE",
+      description = "Emit this saved model instead of training (the CSV is still scored).")
+  Path model;
+
+  @Option(names = "--save-model", paramLabel = "FILE",
+      description = "Also write the trained model as JSON, for --model later.")
+  Path saveModel;
+
+  @Option(names = "--package", defaultValue = "", paramLabel = "NAME",
+      description = "Java package of the emitted class (default: none).")
+  String packageName;
+
+  @Option(names = "--class", required = true, paramLabel = "NAME",
+      description = "Simple name of the emitted class.")
+  String className;
+
+  @Option(names = "--out", required = true, paramLabel = "DIR",
+      description = "Directory for the source tree and the report.")
+  Path out;
+
+  @Option(names = "--layout", defaultValue = "branches", paramLabel = "branches|table|smallest",
+      description = "Code layout (default: ${DEFAULT-VALUE}).")
+  String layout;
+
+  @Option(names = "--input", defaultValue = "float", paramLabel = "float|double|int",
+      description = "Element type of classify's input (default: ${DEFAULT-VALUE}).")
+  String input;
+
+  @Option(names = "--max-method-bytes", defaultValue = "8000", paramLabel = "N",
+      description = "Largest bytecode of one method; HotSpot does not JIT-compile methods over "
+          + "8000 bytes by default (default: ${DEFAULT-VALUE}).")
+  int maxMethodBytes;
+
+  @Option(names = "--quiet", description = "Print nothing on success.")
+  boolean quiet;
+
+  @Option(names = "--debug", description = "Print stack traces of errors.")
+  boolean debug;
+
+  @Override
+  public Integer call() throws Exception {
+    CompileRequest request = request();
+    CompileResult result = new CompileJob(Verifier.create()).run(request);
+    PrintWriter stdout = spec.commandLine().getOut();
+    PrintWriter stderr = spec.commandLine().getErr();
+    VerificationResult v = result.verification();
+    if (!v.passed()) {
+      stderr.println("verification failed, nothing written: " + v.verdict());
+      return ExitCodes.VERIFICATION_FAILED;
+    }
+    if (!quiet) {
+      Summary.print(stdout, result);
+    }
+    return ExitCodes.OK;
+  }
+
+  private CompileRequest request() {
+    double[] fractions = Fractions.parse(spec.commandLine(), "--split", split);
+    Impurity criterion = switch (impurity.toLowerCase(Locale.ROOT)) {
+      case "gini" -> Impurity.GINI;
+      case "entropy" -> Impurity.ENTROPY;
+      default -> throw bad("--impurity", "must be gini or entropy, but it is '" + impurity + "'");
+    };
+    TrainingOptions training;
+    EmitOptions emit;
+    try {
+      TrainingOptions.Builder t = TrainingOptions.builder()
+          .impurity(criterion)
+          .maxDepth(check("--max-depth", maxDepth, 1))
+          .minLeaf(check("--min-leaf", minLeaf, 1));
+      if (maxLeaves != null) {
+        t.maxLeaves(check("--max-leaves", maxLeaves, 2));
+      }
+      training = t.build();
+      emit = EmitOptions.builder(packageName, className)
+          .layout(Layout.parse(layout).orElseThrow(() -> bad("--layout",
+              "must be branches, table or smallest, but it is '" + layout + "'")))
+          .inputKind(InputKind.parse(input).orElseThrow(() -> bad("--input",
+              "must be float, double or int, but it is '" + input + "'")))
+          .maxMethodBytes(maxMethodBytes)
+          .build();
+    } catch (IllegalArgumentException e) {
+      throw bad(optionFor(e.getMessage()), e.getMessage());
+    }
+    LoadOptions load = LoadOptions.builder()
+        .target(target)
+        .missingTokens(missing)
+        .categoricalColumns(categorical)
+        .numericColumns(numeric)
+        .build();
+    return new CompileRequest(data, Optional.ofNullable(testData), Optional.ofNullable(model),
+        load, fractions, seed, training, emit, out, Optional.ofNullable(saveModel),
+        optionsText());
+  }
+
+  private static String optionFor(String message) {
+    if (message.contains("package")) {
+      return "--package";
+    }
+    if (message.contains("class name")) {
+      return "--class";
+    }
+    return message.contains("maxMethodBytes") ? "--max-method-bytes" : "options";
+  }
+
+  private int check(String option, int value, int least) {
+    if (value < least) {
+      throw bad(option, "must be at least " + least + ", but it is " + value);
+    }
+    return value;
+  }
+
+  private ParameterException bad(String option, String message) {
+    return new ParameterException(spec.commandLine(), "option '" + option + "' " + message);
+  }
+
+  /** The options that reproduce this run, without file paths, in a fixed order. */
+  private String optionsText() {
+    List<String> parts = new ArrayList<>();
+    if (target != null) {
+      parts.add("--target " + target);
+    }
+    if (testData != null) {
+      parts.add("--test-data " + testData.getFileName());
+    }
+    if (!missing.isEmpty()) {
+      parts.add("--missing " + String.join(",", missing));
+    }
+    if (!categorical.isEmpty()) {
+      parts.add("--categorical " + String.join(",", categorical));
+    }
+    if (!numeric.isEmpty()) {
+      parts.add("--numeric " + String.join(",", numeric));
+    }
+    parts.add("--split " + split);
+    parts.add("--seed " + seed);
+    if (model != null) {
+      parts.add("--model " + model.getFileName());
+    } else {
+      parts.add("--max-depth " + maxDepth);
+      if (maxLeaves != null) {
+        parts.add("--max-leaves " + maxLeaves);
+      }
+      parts.add("--min-leaf " + minLeaf);
+      parts.add("--impurity " + impurity.toLowerCase(Locale.ROOT));
+    }
+    parts.add("--layout " + layout.toLowerCase(Locale.ROOT));
+    parts.add("--input " + input.toLowerCase(Locale.ROOT));
+    parts.add("--max-method-bytes " + maxMethodBytes);
+    return String.join(" ", parts);
+  }
+
+  /** Prints the human summary of a successful run. */
+  static final class Summary {
+    private Summary() {}
+
+    static void print(PrintWriter out, CompileResult result) {
+      VerificationResult v = result.verification();
+      out.printf(Locale.ROOT, "tree: depth %d, %d leaves, %d splits%n", result.tree().depth(),
+          result.tree().leafCount(), result.tree().internalNodeCount());
+      for (Map.Entry<String, Scores> e : result.scores().entrySet()) {
+        Scores s = e.getValue();
+        out.printf(Locale.ROOT, "%-10s rows %5d  accuracy %.4f  balanced accuracy %.4f  "
+            + "macro-F1 %.4f%n", e.getKey(), s.rows(), s.accuracy(), s.balancedAccuracy(),
+            s.macroF1());
+      }
+      out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
+          + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
+          v.classFileBytes(), v.classFileBytesWithoutDebug(), v.maxMethodBytes());
+      out.printf(Locale.ROOT, "verified: %d inputs, %d mismatches, branch coverage %.1f%% "
+          + "(%d of %d splits both ways)%n", v.inputsChecked(), v.mismatches(),
+          100 * v.branchCoverage(), v.coveredSplits(), v.splits());
+      for (java.nio.file.Path p : result.written()) {
+        out.println("wrote " + p);
+      }
+    }
+  }
+}

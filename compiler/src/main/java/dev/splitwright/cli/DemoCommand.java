@@ -1,0 +1,41 @@
+package dev.splitwright.cli;
+
+import dev.splitwright.demo.DemoData;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code splitwright demo}: writes a seeded demo data set of our own scenarios. */
+@Command(
+    name = "demo",
+    mixinStandardHelpOptions = true,
+    description = "Writes a seeded, invented demo data set as CSV: 'pump' (field pump vibration "
+        + "monitor) or 'gesture' (wrist-worn gesture band).")
+final class DemoCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Option(names = "--scenario", required = true, paramLabel = "pump|gesture")
+  String scenario;
+
+  @Option(names = "--rows", defaultValue = "3000", paramLabel = "N")
+  int rows;
+
+  @Option(names = "--seed", defaultValue = "7", paramLabel = "N")
+  long seed;
+
+  @Option(names = "--out", required = true, paramLabel = "FILE")
+  Path out;
+
+  @Option(names = "--debug", description = "Print stack traces of errors.")
+  boolean debug;
+
+  @Override
+  public Integer call() throws Exception {
+    DemoData.write(scenario, out, rows, seed);
+    spec.commandLine().getOut().println("wrote " + out);
+    return ExitCodes.OK;
+  }
+}

@@ -1,0 +1,65 @@
+package dev.splitwright.cli;
+
+import dev.splitwright.data.InputException;
+import java.io.PrintWriter;
+import picocli.CommandLine;
+
+/** Turns every failure into one line on stderr and an exit code; traces only with --debug. */
+final class ErrorHandlers {
+  private ErrorHandlers() {}
+
+  static boolean debug(String[] args) {
+    for (String arg : args) {
+      if (arg.equals("--debug")) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /** Bad options: picocli's message, one line, and where to find help. */
+  static final class Usage implements CommandLine.IParameterExceptionHandler {
+    @Override
+    public int handleParseException(CommandLine.ParameterException e, String[] args) {
+      PrintWriter err = e.getCommandLine().getErr();
+      String name = e.getCommandLine().getCommandSpec().qualifiedName();
+      err.println(name + ": " + oneLine(e.getMessage()) + " (see '" + name + " --help')");
+      if (debug(args)) {
+        e.printStackTrace(err);
+      }
+      return ExitCodes.BAD_INPUT;
+    }
+  }
+
+  /** Failures while running: input errors exit 2, anything else is ours and exits 3. */
+  static final class Execution implements CommandLine.IExecutionExceptionHandler {
+    @Override
+    public int handleExecutionException(Exception e, CommandLine cli,
+        CommandLine.ParseResult parseResult) {
+      PrintWriter err = cli.getErr();
+      boolean debug = debug(parseResult.originalArgs().toArray(new String[0]));
+      int code;
+      if (e instanceof InputException) {
+        err.println("error: " + oneLine(e.getMessage()));
+        code = ExitCodes.BAD_INPUT;
+      } else if (e instanceof java.io.IOException) {
+        err.println("error: cannot write output: " + oneLine(String.valueOf(e.getMessage())));
+        code = ExitCodes.BAD_INPUT;
+      } else {
+        err.println("internal error: " + oneLine(String.valueOf(e)) + " (rerun with --debug "
+            + "for details and please report it)");
+        code = ExitCodes.INTERNAL;
+      }
+      if (debug) {
+        e.printStackTrace(err);
+      }
+      return code;
+    }
+  }
+
+  static String oneLine(String message) {
+    String text = message == null ? "" : message.strip();
+    int newline = text.indexOf('\n');
+    return newline < 0 ? text : text.substring(0, newline);
+  }
+}

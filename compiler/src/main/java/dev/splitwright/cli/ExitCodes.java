@@ -1,0 +1,11 @@
+package dev.splitwright.cli;
+
+/** The process exit codes. */
+final class ExitCodes {
+  static final int OK = 0;
+  static final int VERIFICATION_FAILED = 1;
+  static final int BAD_INPUT = 2;
+  static final int INTERNAL = 3;
+
+  private ExitCodes() {}
+}

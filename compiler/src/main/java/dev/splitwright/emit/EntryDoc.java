@@ -1,0 +1,44 @@
+package dev.splitwright.emit;
+
+import com.palantir.javapoet.CodeBlock;
+import com.palantir.javapoet.MethodSpec;
+import dev.splitwright.data.Feature;
+import dev.splitwright.data.Schema;
+
+/** Javadoc and argument checks of the public entry methods, shared by the layouts. */
+final class EntryDoc {
+  private EntryDoc() {}
+
+  static CodeBlock classify(Schema schema, InputAccess input) {
+    CodeBlock.Builder doc = CodeBlock.builder()
+        .add("Returns the class index (0 to $L) for one input; see {@link #label(int)}.\n\n",
+            schema.classCount() - 1);
+    String missing = switch (input.kind()) {
+      case FLOAT, DOUBLE -> "NaN marks a missing value";
+      case INT -> "integer inputs cannot be missing";
+    };
+    if (input.named()) {
+      for (int f = 0; f < schema.featureCount(); f++) {
+        doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
+      }
+    } else {
+      doc.add("@param x the $L feature values in the order of the class comment; $L; "
+          + "categorical features take their code\n", schema.featureCount(), missing);
+    }
+    return doc.add("@return the class index\n").build();
+  }
+
+  private static String paramText(Feature feature) {
+    return JavaText.javadoc(feature.name()) + (feature.isCategorical() ? " (category code)" : "");
+  }
+
+  /** Rejects an input array of the wrong length before any comparison. */
+  static void addLengthCheck(MethodSpec.Builder method, Schema schema) {
+    method.beginControlFlow("if (x.length != $L)", schema.featureCount())
+        // String.concat keeps the class free of invokedynamic string concatenation, whose
+        // bootstrap lives in java.lang.invoke.
+        .addStatement("throw new IllegalArgumentException($S.concat(String.valueOf(x.length)))",
+            "expected " + schema.featureCount() + " features but got ")
+        .endControlFlow();
+  }
+}

@@ -1,0 +1,29 @@
+package dev.splitwright.emit;
+
+import dev.splitwright.model.DecisionTree;
+import java.util.Objects;
+
+/** Emits a trained tree as one dependency-free Java source file. */
+public final class JavaEmitter {
+  private JavaEmitter() {}
+
+  /**
+   * Emits {@code tree} with the given layout and options. {@link Layout#SMALLEST} needs a compiler
+   * to measure, so it is resolved by the caller; here it is rejected.
+   *
+   * @throws IllegalArgumentException if the options do not fit the tree (e.g. named arguments for
+   *     more than 32 features)
+   */
+  public static EmittedSource emit(DecisionTree tree, EmitOptions options, HeaderInfo header) {
+    Objects.requireNonNull(tree, "tree");
+    Objects.requireNonNull(options, "options");
+    Objects.requireNonNull(header, "header");
+    String source = switch (options.layout()) {
+      case BRANCHES -> BranchesWriter.write(tree, options, header);
+      case TABLE -> throw new IllegalArgumentException("layout 'table' is not available yet");
+      case SMALLEST -> throw new IllegalArgumentException(
+          "layout 'smallest' is chosen by measuring both layouts; emit each and compare");
+    };
+    return new EmittedSource(options.qualifiedName(), options.layout(), source);
+  }
+}

@@ -1,0 +1,89 @@
+package dev.splitwright.emit;
+
+import java.util.Locale;
+
+/** Turns user-supplied text and numbers into safe Java source text. */
+final class JavaText {
+  private JavaText() {}
+
+  /**
+   * Makes text safe inside a Java comment: backslashes are doubled so that no {@code \}{@code u}
+   * escape survives (javac decodes unicode escapes before it sees comments, JLS §3.3), {@code *}{@code /}
+   * cannot close the comment, and control characters cannot end a line comment.
+   */
+  static String comment(String text) {
+    StringBuilder out = new StringBuilder(text.length() + 8);
+    for (int i = 0; i < text.length(); i++) {
+      char c = text.charAt(i);
+      if (c == '\\') {
+        out.append("\\\\");
+      } else if (c == '/' && i > 0 && text.charAt(i - 1) == '*') {
+        out.append("\\/");
+      } else if (c < 0x20 || c == 0x7f || c == '\u0085' || c == '\u2028' || c == '\u2029') {
+        out.append(String.format(Locale.ROOT, "[U+%04X]", (int) c));
+      } else {
+        out.append(c);
+      }
+    }
+    return out.toString();
+  }
+
+  /**
+   * Makes text safe inside a javadoc comment: {@link #comment} plus HTML escapes, so names with
+   * {@code <}, {@code &} or {@code @} render as written.
+   */
+  static String javadoc(String text) {
+    return comment(text).replace("&", "&amp;").replace("<", "&lt;").replace(">", "&gt;")
+        .replace("@", "&#64;");
+  }
+
+  /**
+   * Replaces every non-ASCII character with a unicode escape, so the file compiles the same under
+   * any source encoding a user's build may set. Safe because JavaPoet never leaves a lone backslash
+   * in front of a non-ASCII character and {@link #comment} doubles backslashes.
+   */
+  static String asciiOnly(String source) {
+    StringBuilder out = null;
+    for (int i = 0; i < source.length(); i++) {
+      char c = source.charAt(i);
+      if (c > 0x7e) {
+        if (out == null) {
+          out = new StringBuilder(source.length() + 64).append(source, 0, i);
+        }
+        out.append(String.format(Locale.ROOT, "\\u%04x", (int) c));
+      } else if (out != null) {
+        out.append(c);
+      }
+    }
+    return out == null ? source : out.toString();
+  }
+
+  /** Returns a float literal that reads back as exactly {@code value} (IEEE 754 binary32). */
+  static String floatLiteral(float value) {
+    if (Float.isNaN(value)) {
+      throw new IllegalArgumentException("NaN has no comparison literal");
+    }
+    if (value == Float.POSITIVE_INFINITY) {
+      return "Float.POSITIVE_INFINITY";
+    }
+    if (value == Float.NEGATIVE_INFINITY) {
+      return "Float.NEGATIVE_INFINITY";
+    }
+    // Float.toString gives enough digits to identify the float uniquely (its javadoc).
+    return Float.toString(value) + "f";
+  }
+
+  /** Returns a double literal that reads back as exactly {@code value} (IEEE 754 binary64). */
+  static String doubleLiteral(double value) {
+    if (Double.isNaN(value)) {
+      throw new IllegalArgumentException("NaN has no comparison literal");
+    }
+    if (value == Double.POSITIVE_INFINITY) {
+      return "Double.POSITIVE_INFINITY";
+    }
+    if (value == Double.NEGATIVE_INFINITY) {
+      return "Double.NEGATIVE_INFINITY";
+    }
+    return Double.toString(value);
+  }
+}

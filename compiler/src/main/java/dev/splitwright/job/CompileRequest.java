@@ -1,0 +1,54 @@
+package dev.splitwright.job;
+
+import dev.splitwright.data.LoadOptions;
+import dev.splitwright.emit.EmitOptions;
+import dev.splitwright.train.TrainingOptions;
+import java.nio.file.Path;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * Everything one compile run needs. Paths are used to read and write only; what is recorded in the
+ * outputs is {@link #optionsText}, which names no path, so outputs do not depend on where files are.
+ *
+ * @param data the labelled CSV; with {@code model} set, only used to report scores and verify
+ * @param testData a separate test CSV with the same header, replacing the test fraction
+ * @param model a saved model file to emit instead of training
+ * @param fractions train, validation and test fractions, summing to 1
+ * @param saveModel where to write the model file
+ * @param optionsText the options that reproduce the run, without paths, for headers and reports
+ */
+public record CompileRequest(
+    Path data,
+    Optional<Path> testData,
+    Optional<Path> model,
+    LoadOptions load,
+    double[] fractions,
+    long seed,
+    TrainingOptions training,
+    EmitOptions emit,
+    Path outDir,
+    Optional<Path> saveModel,
+    String optionsText) {
+
+  public CompileRequest {
+    Objects.requireNonNull(data, "data");
+    Objects.requireNonNull(testData, "testData");
+    Objects.requireNonNull(model, "model");
+    Objects.requireNonNull(load, "load");
+    fractions = fractions.clone();
+    if (fractions.length != 3) {
+      throw new IllegalArgumentException("fractions must be train, validation, test");
+    }
+    Objects.requireNonNull(training, "training");
+    Objects.requireNonNull(emit, "emit");
+    Objects.requireNonNull(outDir, "outDir");
+    Objects.requireNonNull(saveModel, "saveModel");
+    Objects.requireNonNull(optionsText, "optionsText");
+  }
+
+  @Override
+  public double[] fractions() {
+    return fractions.clone();
+  }
+}

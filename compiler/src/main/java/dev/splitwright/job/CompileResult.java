@@ -1,0 +1,31 @@
+package dev.splitwright.job;
+
+import dev.splitwright.emit.EmittedSource;
+import dev.splitwright.eval.Scores;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.report.CompileReport;
+import dev.splitwright.verify.VerificationResult;
+import java.nio.file.Path;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * The outcome of a compile run. When {@link #verification} did not pass, {@link #written} is empty:
+ * nothing was written.
+ */
+public record CompileResult(
+    DecisionTree tree,
+    EmittedSource source,
+    VerificationResult verification,
+    Map<String, Scores> scores,
+    CompileReport report,
+    List<Path> written) {
+
+  public CompileResult {
+    // Insertion order (train, validation, test) is the order reports and summaries print.
+    scores = Collections.unmodifiableMap(new LinkedHashMap<>(scores));
+    written = List.copyOf(written);
+  }
+}
