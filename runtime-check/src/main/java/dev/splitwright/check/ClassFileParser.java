@@ -197,7 +197,7 @@ final class ClassFileParser {
     }
   }
 
-  /** field_info and method_info have the same layout (§4.5, §4.6). */
+  /** field_info and method_info have the same layout (§4.5, §4.6); fields' sizes are dropped. */
   private MethodSize readMember(String kind, Holder holder, SortedSet<String> referenced) {
     in.u2(kind + " access_flags");
     int at = in.offset();

@@ -5,6 +5,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.SortedMap;
 import java.util.SortedSet;
+import java.util.StringJoiner;
 import java.util.TreeMap;
 import java.util.TreeSet;
 
@@ -71,7 +72,8 @@ public final class CompiledClasses {
   }
 
   /**
-   * Loads {@code name} in a fresh {@link #newLoader()}; two calls give two distinct classes.
+   * Loads {@code name} in a fresh {@link #newLoader()}; two calls give two distinct classes. The
+   * class is initialized on first use, not here.
    *
    * @throws IllegalArgumentException if {@code name} is not one of {@link #names()}
    * @throws LinkageError if the JVM rejects the class file
@@ -96,9 +98,8 @@ public final class CompiledClasses {
 
   @Override
   public String toString() {
-    StringBuilder out = new StringBuilder("CompiledClasses[");
-    classes.forEach((name, bytes) -> out.append(name).append('=').append(bytes.length).append("B "));
-    out.setLength(out.length() - 1);
-    return out.append(']').toString();
+    StringJoiner joined = new StringJoiner(", ", "CompiledClasses[", "]");
+    classes.forEach((name, bytes) -> joined.add(name + "=" + bytes.length + " bytes"));
+    return joined.toString();
   }
 }

@@ -21,9 +21,12 @@ import javax.tools.ToolProvider;
  * Compiles Java sources with the JDK's own javac, entirely in memory: sources are strings and class
  * files end up in a {@link CompiledClasses}; nothing touches the disk.
  *
- * <p>One javac instance and one standard file manager are reused for every call, because opening
- * the JDK's class library is most of the cost of compiling a small class. Compile many classes in
- * one {@link #compile(List)} call when speed matters.
+ * <p>One javac instance and one standard file manager serve every call. Each javac run still has a
+ * fixed cost of a few milliseconds, and {@code --release} adds roughly 20 ms more because javac
+ * opens the description of that release's API anew for every run; so when speed matters, compile
+ * many classes in one {@link #compile(List)} call (50 small classes: about 1-3 ms per class in one
+ * batch against 20-35 ms per class one at a time with {@code --release 17}, measured on a shared
+ * 2-core machine).
  *
  * <p>The class path is empty unless the options set one, so sources see only the JDK and the other
  * sources of the same batch; this matches {@link CompiledClasses#load(String)}, whose loader sees
