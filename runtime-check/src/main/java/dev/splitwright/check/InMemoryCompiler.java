@@ -24,9 +24,9 @@ import javax.tools.ToolProvider;
  * <p>One javac instance and one standard file manager serve every call. Each javac run still has a
  * fixed cost of a few milliseconds, and {@code --release} adds roughly 20 ms more because javac
  * opens the description of that release's API anew for every run; so when speed matters, compile
- * many classes in one {@link #compile(List)} call (50 small classes: about 1-3 ms per class in one
- * batch against 20-35 ms per class one at a time with {@code --release 17}, measured on a shared
- * 2-core machine).
+ * many classes in one {@link #compile(List)} call (50 small classes with {@code --release 17},
+ * measured on a busy shared 2-core machine: 0.5-4 ms per class in one batch, 19-56 ms per class one
+ * at a time).
  *
  * <p>The class path is empty unless the options set one, so sources see only the JDK and the other
  * sources of the same batch; this matches {@link CompiledClasses#load(String)}, whose loader sees
