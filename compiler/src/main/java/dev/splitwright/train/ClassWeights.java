@@ -11,9 +11,9 @@ import java.util.SortedMap;
 import java.util.TreeMap;
 
 /**
- * How much one training row of each class counts in impurity, leaf predictions and pruning costs:
- * all rows alike ({@link #none()}), inversely to class frequency ({@link #balanced()}), or given per
- * class label ({@link #of(Map)}). Immutable.
+ * How much one training row of each class counts in impurity, leaf predictions and pruning
+ * costs: all rows alike ({@link #none()}), inversely to class frequency ({@link #balanced()}), or
+ * given per class label ({@link #of(Map)}). Immutable.
  */
 public final class ClassWeights {
   private enum Kind {
@@ -57,13 +57,16 @@ public final class ClassWeights {
     Objects.requireNonNull(weightByLabel, "weightByLabel");
     TreeMap<String, Double> copy = new TreeMap<>();
     for (Map.Entry<String, Double> e : weightByLabel.entrySet()) {
-      String label = Objects.requireNonNull(e.getKey(), "class label");
+      copy.put(Objects.requireNonNull(e.getKey(), "class label"), e.getValue());
+    }
+    // Checked in label order, so the first bad weight reported does not depend on hash order.
+    for (Map.Entry<String, Double> e : copy.entrySet()) {
+      String label = e.getKey();
       Double w = Objects.requireNonNull(e.getValue(), "weight of class '" + label + "'");
       if (!(w > 0) || w.isInfinite()) {
         throw new IllegalArgumentException(
             "weight of class '" + label + "' must be positive and finite, but it is " + w);
       }
-      copy.put(label, w);
     }
     return new ClassWeights(Kind.EXPLICIT, copy);
   }

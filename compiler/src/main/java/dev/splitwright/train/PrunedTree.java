@@ -11,7 +11,8 @@ public record PrunedTree(double alpha, DecisionTree tree) {
 
   public PrunedTree {
     if (!(alpha >= 0) || Double.isInfinite(alpha)) {
-      throw new IllegalArgumentException("alpha must be finite and non-negative, but it is " + alpha);
+      throw new IllegalArgumentException(
+          "alpha must be finite and non-negative, but it is " + alpha);
     }
     Objects.requireNonNull(tree, "tree");
   }

@@ -40,7 +40,7 @@ public final class PruningPath {
     return of(fullTree, weights.resolve(schema, fullTree.root().counts().toArray()));
   }
 
-  /** Computes the pruning sequence of {@code fullTree}; alphas strictly increase after the first. */
+  /** Computes the pruning sequence of {@code fullTree}, in increasing alpha. */
   public static List<PrunedTree> of(DecisionTree fullTree, double[] classWeights) {
     Objects.requireNonNull(fullTree, "fullTree");
     double[] w = checkWeights(fullTree.schema(), classWeights);

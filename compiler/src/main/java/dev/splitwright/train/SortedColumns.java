@@ -143,7 +143,7 @@ final class SortedColumns {
         float value = v[i];
         int label = y[i];
         int g = goesLeft[row];
-        // Branch-free: write to both sides, advance one. left <= i, so nothing unread is overwritten.
+        // Branch-free: write both sides, advance one. left <= i: nothing unread is overwritten.
         r[left] = row;
         v[left] = value;
         y[left] = label;

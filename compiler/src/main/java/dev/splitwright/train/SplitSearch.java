@@ -22,8 +22,9 @@ final class SplitSearch {
   private final int[] left;
   private final int[] bestLeft;
   private final int[] right;
-  private int[] codeClassCounts = new int[0];
-  private int[] codeRows = new int[0];
+  /** Per category code: rows of each class, and rows, at the node being searched. */
+  private final int[] codeClassCounts;
+  private final int[] codeRows;
 
   SplitSearch(SortedColumns columns, Schema schema, Criterion criterion, int minLeaf) {
     this.columns = columns;
@@ -167,7 +168,8 @@ final class SplitSearch {
           continue;
         }
         double cost = criterion.cost(left) + criterion.costOfDifference(present, left);
-        if (cost < bestCost || (cost == bestCost && Arrays.compare(prefixSet(codes, order, e), bestSet) < 0)) {
+        if (cost < bestCost
+            || (cost == bestCost && Arrays.compare(prefixSet(codes, order, e), bestSet) < 0)) {
           bestCost = cost;
           bestSet = prefixSet(codes, order, e);
           bestNLeft = nLeft;

@@ -45,7 +45,8 @@ class CartTrainerTest {
 
   @Test
   void findsHandWorkedSplitsOfTinyTable() {
-    DecisionTree tree = CartTrainer.train(handTable(), TrainingOptions.builder().maxDepth(2).build());
+    TrainingOptions depthTwo = TrainingOptions.builder().maxDepth(2).build();
+    DecisionTree tree = CartTrainer.train(handTable(), depthTwo);
 
     // No row is missing, so missing values follow the side with more rows (right, both times).
     Node expected =
@@ -118,7 +119,8 @@ class CartTrainerTest {
     // Two A rows left, three B rows right: missing goes right and is predicted B.
     DecisionTree right =
         CartTrainer.train(
-            Dataset.ofRows(schema, new float[][] {{1}, {2}, {7}, {8}, {9}}, new int[] {0, 0, 1, 1, 1}),
+            Dataset.ofRows(
+                schema, new float[][] {{1}, {2}, {7}, {8}, {9}}, new int[] {0, 0, 1, 1, 1}),
             options);
     assertThat(((Split) right.root()).missingLeft()).isFalse();
     assertThat(right.predict(new float[] {NAN})).isEqualTo(1);
@@ -134,7 +136,9 @@ class CartTrainerTest {
   void unseenAndInvalidCategoryCodesCountAsMissing() {
     Schema schema =
         new Schema(
-            List.of(Feature.categorical("colour", List.of("red", "green"))), "y", List.of("A", "B"));
+            List.of(Feature.categorical("colour", List.of("red", "green"))),
+            "y",
+            List.of("A", "B"));
     // red -> A, green -> B; codes 5 and -1 and 0.5 are no category, so missing; they are all B.
     float[][] rows = {{0}, {0}, {0}, {1}, {1}, {1}, {5}, {-1}, {0.5f}, {NAN}};
     int[] labels = {0, 0, 0, 1, 1, 1, 1, 1, 1, 1};

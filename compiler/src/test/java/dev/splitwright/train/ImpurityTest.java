@@ -64,7 +64,8 @@ class ImpurityTest {
         for (int trial = 0; trial < 200; trial++) {
           int[] a = {random.nextInt(50), random.nextInt(50), random.nextInt(50)};
           int[] b = {random.nextInt(a[0] + 1), random.nextInt(a[1] + 1), random.nextInt(a[2] + 1)};
-          assertThat(criterion.cost(a)).isCloseTo(weightTimesImpurity(impurity, w, a), within(1e-9));
+          assertThat(criterion.cost(a))
+              .isCloseTo(weightTimesImpurity(impurity, w, a), within(1e-9));
           int[] diff = {a[0] - b[0], a[1] - b[1], a[2] - b[2]};
           assertThat(criterion.costOfDifference(a, b))
               .isCloseTo(weightTimesImpurity(impurity, w, diff), within(1e-9));

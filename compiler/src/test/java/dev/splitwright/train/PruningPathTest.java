@@ -72,7 +72,8 @@ class PruningPathTest {
   void prunesAllWeakestLinksAtOnce() {
     // Worked by hand: both children of the root cost .1 as leaves and 0 as subtrees, so both have
     // g = .1 and go together; then the root at g = (.5 - .2)/1 = .3.
-    Node full = split(5, split(2, leaf(0, 8, 0), leaf(1, 0, 2)), split(8, leaf(0, 2, 0), leaf(1, 0, 8)));
+    Node full =
+        split(5, split(2, leaf(0, 8, 0), leaf(1, 0, 2)), split(8, leaf(0, 2, 0), leaf(1, 0, 8)));
     List<PrunedTree> path = PruningPath.of(new DecisionTree(SCHEMA, full), EQUAL);
     assertThat(path).hasSize(3);
     assertThat(path.get(1).alpha()).isCloseTo(0.1, within(1e-12));

@@ -17,7 +17,8 @@ final class StratifiedSplit {
   static int[][] of(int[] labels, long seed) {
     Random random = new Random(seed);
     int classes = Arrays.stream(labels).max().orElse(-1) + 1;
-    List<int[]> parts = List.of(new int[labels.length], new int[labels.length], new int[labels.length]);
+    int n = labels.length;
+    List<int[]> parts = List.of(new int[n], new int[n], new int[n]);
     int[] sizes = new int[3];
     for (int c = 0; c < classes; c++) {
       List<Integer> rows = new ArrayList<>();

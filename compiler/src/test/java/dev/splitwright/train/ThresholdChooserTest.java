@@ -5,10 +5,10 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.util.Random;
 import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
-import org.junit.jupiter.api.Test;
 
 /**
  * Edge cases from IEEE 754 binary32: signed zeros compare equal, subnormals, neighbouring floats
@@ -37,7 +37,8 @@ class ThresholdChooserTest {
         Arguments.of(-sub, 0f, -sub),
         Arguments.of(-sub, -0f, -sub),
         Arguments.of(sub, 3 * sub, 2 * sub),
-        Arguments.of(Math.nextDown(Float.MIN_NORMAL), Float.MIN_NORMAL, Math.nextDown(Float.MIN_NORMAL)),
+        Arguments.of(
+            Math.nextDown(Float.MIN_NORMAL), Float.MIN_NORMAL, Math.nextDown(Float.MIN_NORMAL)),
         // Extremes: the midpoint of -MAX and MAX is exactly 0.
         Arguments.of(-Float.MAX_VALUE, Float.MAX_VALUE, 0f),
         // Infinite ends: the midpoint is not finite, so t = nextDown(b).

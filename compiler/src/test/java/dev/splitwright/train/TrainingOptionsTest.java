@@ -82,7 +82,8 @@ class TrainingOptionsTest {
     ClassWeights weights = ClassWeights.of(Map.of("broken", 2.0));
     assertThatThrownBy(() -> weights.resolve(SCHEMA, new int[3]))
         .isInstanceOf(IllegalArgumentException.class)
-        .hasMessage("unknown class label 'broken' in class weights; valid labels: [idle, fault, worn]");
+        .hasMessage(
+            "unknown class label 'broken' in class weights; valid labels: [idle, fault, worn]");
   }
 
   @Test
