@@ -123,7 +123,7 @@ final class CsvRows implements Closeable {
           "the file is empty",
           "start the file with a header row naming the columns");
     }
-    if (line != 1 || (record.size() == 1 && record.get(0).isEmpty())) {
+    if (record.size() == 1 && record.get(0).isEmpty()) {
       throw new InputException(
           SourcePosition.ofLine(fileName, 1),
           "the header row is blank",
@@ -200,16 +200,16 @@ final class CsvRows implements Closeable {
           e);
     }
     if (e instanceof CSVException) {
-      String message = String.valueOf(e.getMessage());
+      String message = String.valueOf(e.getMessage()).toLowerCase(Locale.ROOT);
       SourcePosition where = SourcePosition.ofLine(fileName, recordLine);
-      if (message.contains("EOF reached before encapsulated token finished")) {
+      if (message.contains("eof reached before encapsulated token finished")) {
         return new InputException(
             where,
             "a quoted cell starting in this row is never closed",
             "close the quote; write a quote inside a quoted cell as two quotes (\"\")",
             e);
       }
-      if (message.contains("invalid char between encapsulated token and delimiter")) {
+      if (message.contains("invalid char")) {
         return new InputException(
             where,
             "text follows a closing quote in this row",
