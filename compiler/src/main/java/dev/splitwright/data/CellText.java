@@ -131,7 +131,11 @@ final class CellText {
       case NOT_FINITE -> new InputException(
           where,
           shown + " is not a reading but a logging fault marker",
-          "export missing readings as empty cells, which load as missing values");
+          "export missing readings as empty cells, or declare "
+              + shown
+              + " a missing-value token (--"
+              + LoadOptions.OPTION_MISSING
+              + ")");
       case NOT_PLAIN -> new InputException(
           where,
           shown + " is not a plain decimal number",

@@ -99,7 +99,7 @@ class CsvLoaderErrorTest {
 
     assertLoadFails(
         ":4:1: 'NaN' is not a reading but a logging fault marker (column 'a');"
-            + " export missing readings as empty cells, which load as missing values");
+            + " export missing readings as empty cells, or declare 'NaN' a missing-value token (--missing)");
   }
 
   @Test
@@ -108,7 +108,7 @@ class CsvLoaderErrorTest {
 
     assertLoadFails(
         ":2:2: '-Infinity' is not a reading but a logging fault marker (column 'b');"
-            + " export missing readings as empty cells, which load as missing values");
+            + " export missing readings as empty cells, or declare '-Infinity' a missing-value token (--missing)");
   }
 
   @Test
@@ -144,7 +144,7 @@ class CsvLoaderErrorTest {
 
     assertLoadFails(
         ":3:2: 'NaN' is not a reading but a logging fault marker (column 'b');"
-            + " export missing readings as empty cells, which load as missing values");
+            + " export missing readings as empty cells, or declare 'NaN' a missing-value token (--missing)");
   }
 
   @Test

@@ -183,6 +183,17 @@ class CsvLoaderTest {
   }
 
   @Test
+  void readsNaNTextAsMissingOnlyWhenDeclaredAMissingToken() throws Exception {
+    Path file = write("a,label\n1,x\nNaN,y\n");
+
+    Dataset data =
+        CsvLoader.load(file, LoadOptions.builder().missingTokens(List.of("NaN")).build()).dataset();
+
+    assertThat(data.schema().feature(0).kind()).isEqualTo(FeatureKind.NUMERIC);
+    assertThat(data.column(0)).containsExactly(1f, Float.NaN);
+  }
+
+  @Test
   void trimsCellsAndHeaderNames() throws Exception {
     Path file = write(" a , b ,label\n 1.5 , y ,x \n");
 
@@ -263,5 +274,24 @@ class CsvLoaderTest {
     assertThat(data.column(1)).containsExactly(1f, Float.NaN, Float.NaN);
     assertThat(data.labels()).containsExactly(1, 0, 0);
     assertThat(CsvLoader.load(train).dataset().concat(data).rows()).isEqualTo(5);
+  }
+
+  @Test
+  void decodesMultiByteCharactersAcrossReadBuffers() throws Exception {
+    // 2-, 3- and 4-byte UTF-8 sequences (RFC 3629) at every offset modulo the 64 KiB read buffer.
+    List<String> sites = List.of("café", "Straße", "東京", "🔥pit");
+    StringBuilder text = new StringBuilder("site,reading,label\n");
+    int rows = 30_000;
+    for (int i = 0; i < rows; i++) {
+      text.append(sites.get(i % 4)).append(',').append(i % 7).append(",x").append(i % 3).append('\n');
+    }
+
+    Dataset data = CsvLoader.load(write(text.toString())).dataset();
+
+    assertThat(data.rows()).isEqualTo(rows);
+    assertThat(data.schema().feature(0).categories()).containsExactly("Straße", "café", "東京", "🔥pit");
+    // Row 29999 is site 29999 % 4 = 3, "🔥pit", last in UTF-16 order (high surrogate 0xD83D).
+    assertThat(data.value(rows - 1, 0)).isEqualTo(3f);
+    assertThat(data.value(rows - 2, 0)).isEqualTo(2f);
   }
 }
