@@ -124,28 +124,33 @@ final class CellText {
       Kind kind, SourcePosition where, String trimmed, boolean forced) {
     String shown = InputException.quote(trimmed);
     return switch (kind) {
-      case OVERFLOW -> new InputException(
-          where,
-          shown + " is too large for a 32-bit float (largest " + Float.MAX_VALUE + ")",
-          "rescale the column or fix the cell; values are not clamped");
-      case NOT_FINITE -> new InputException(
-          where,
-          shown + " is not a reading but a logging fault marker",
-          "export missing readings as empty cells, or declare "
-              + shown
-              + " a missing-value token (--"
-              + LoadOptions.OPTION_MISSING
-              + ")");
-      case NOT_PLAIN -> new InputException(
-          where,
-          shown + " is not a plain decimal number",
-          "write numbers as plain decimals such as 12.5 or -3.1e-4");
-      case TEXT -> new InputException(
-          where,
-          shown + " is not a number",
-          forced
-              ? "fix the cell, leave it empty for a missing value, or do not declare the column numeric"
-              : "fix the cell, or leave it empty for a missing value");
+      case OVERFLOW ->
+          new InputException(
+              where,
+              shown + " is too large for a 32-bit float (largest " + Float.MAX_VALUE + ")",
+              "rescale the column or fix the cell; values are not clamped");
+      case NOT_FINITE ->
+          new InputException(
+              where,
+              shown + " is not a reading but a logging fault marker",
+              "export missing readings as empty cells, or declare "
+                  + shown
+                  + " a missing-value token (--"
+                  + LoadOptions.OPTION_MISSING
+                  + ")");
+      case NOT_PLAIN ->
+          new InputException(
+              where,
+              shown + " is not a plain decimal number",
+              "write numbers as plain decimals such as 12.5 or -3.1e-4");
+      case TEXT ->
+          new InputException(
+              where,
+              shown + " is not a number",
+              forced
+                  ? "fix the cell, leave it empty for a missing value, or do not declare the column"
+                        + " numeric"
+                  : "fix the cell, or leave it empty for a missing value");
       case NUMBER -> throw new IllegalArgumentException("a number is not an error");
     };
   }

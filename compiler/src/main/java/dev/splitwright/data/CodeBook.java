@@ -8,8 +8,8 @@ import java.util.Map;
 
 /**
  * Gives distinct strings provisional codes in first-seen order while a file streams past, then
- * renumbers them so that codes follow sorted (natural {@code String}) order: the final codes
- * depend only on the set of values, never on row order or hash order.
+ * renumbers them so that codes follow sorted (natural {@code String}) order: the final codes depend
+ * only on the set of values, never on row order or hash order.
  */
 final class CodeBook {
   private final Map<String, Integer> codes = new HashMap<>();

@@ -61,8 +61,7 @@ final class CsvRows implements Closeable {
     try {
       in = Files.newInputStream(file);
     } catch (NoSuchFileException e) {
-      throw new InputException(
-          SourcePosition.ofFile(name), "no such file", "check the path", e);
+      throw new InputException(SourcePosition.ofFile(name), "no such file", "check the path", e);
     } catch (AccessDeniedException e) {
       throw new InputException(
           SourcePosition.ofFile(name), "permission denied", "make the file readable", e);
@@ -142,7 +141,11 @@ final class CsvRows implements Closeable {
       if (earlier != null) {
         throw new InputException(
             where,
-            "duplicate column name " + InputException.quote(name) + " (also column " + earlier + ")",
+            "duplicate column name "
+                + InputException.quote(name)
+                + " (also column "
+                + earlier
+                + ")",
             "give every column a distinct name");
       }
       names.add(name);
@@ -216,8 +219,7 @@ final class CsvRows implements Closeable {
             "put the whole cell inside the quotes; write a quote inside a quoted cell as \"\"",
             e);
       }
-      return new InputException(
-          where, "malformed CSV row", "check the quoting of this row", e);
+      return new InputException(where, "malformed CSV row", "check the quoting of this row", e);
     }
     return readError(fileName, e);
   }

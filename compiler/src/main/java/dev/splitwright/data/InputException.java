@@ -14,6 +14,7 @@ public final class InputException extends Exception {
 
   /** Non-null exactly when the problem is in a file. */
   private final SourcePosition position;
+
   /** Non-null exactly when the problem is an option value. */
   private final String option;
 

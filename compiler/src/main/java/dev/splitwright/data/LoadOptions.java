@@ -27,10 +27,13 @@ public record LoadOptions(
 
   /** Option name of {@link #target}. */
   public static final String OPTION_TARGET = "target";
+
   /** Option name of {@link #missingTokens}. */
   public static final String OPTION_MISSING = "missing";
+
   /** Option name of {@link #categoricalColumns}. */
   public static final String OPTION_CATEGORICAL = "categorical";
+
   /** Option name of {@link #numericColumns}. */
   public static final String OPTION_NUMERIC = "numeric";
 

@@ -21,7 +21,8 @@ public record LoadedData(Dataset dataset, String sourceName, String sha256, long
     }
     if (dataRows != dataset.rows()) {
       throw new IllegalArgumentException(
-          String.format(Locale.ROOT, "dataRows %d but the data set has %d", dataRows, dataset.rows()));
+          String.format(
+              Locale.ROOT, "dataRows %d but the data set has %d", dataRows, dataset.rows()));
     }
   }
 }

@@ -18,7 +18,8 @@ final class DemoCsv {
       throw new IllegalArgumentException("not finite: " + value);
     }
     BigDecimal rounded = new BigDecimal(value).setScale(decimals, RoundingMode.HALF_EVEN);
-    return rounded.signum() == 0 ? BigDecimal.ZERO.setScale(decimals).toPlainString()
+    return rounded.signum() == 0
+        ? BigDecimal.ZERO.setScale(decimals).toPlainString()
         : rounded.toPlainString();
   }
 

@@ -3,9 +3,9 @@ package dev.splitwright.demo;
 import java.util.SplittableRandom;
 
 /**
- * The random draws the scenarios need, built only on {@link SplittableRandom#nextLong()} and
- * {@link StrictMath}, so that a seed gives the same file on every JDK and platform ({@code Math}
- * may differ in the last bit between platforms; {@code nextGaussian} is not specified exactly).
+ * The random draws the scenarios need, built only on {@link SplittableRandom#nextLong()} and {@link
+ * StrictMath}, so that a seed gives the same file on every JDK and platform ({@code Math} may
+ * differ in the last bit between platforms; {@code nextGaussian} is not specified exactly).
  */
 final class DemoRandom {
   private final SplittableRandom random;

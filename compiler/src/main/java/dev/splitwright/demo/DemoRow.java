@@ -4,8 +4,8 @@ import java.util.List;
 import java.util.Objects;
 
 /**
- * One generated log row: the formatted feature cells (empty for a missing reading), the state
- * that really produced them, and the label the log records, which label noise may have changed.
+ * One generated log row: the formatted feature cells (empty for a missing reading), the state that
+ * really produced them, and the label the log records, which label noise may have changed.
  */
 public record DemoRow(List<String> cells, String trueLabel, String loggedLabel) {
 

@@ -109,12 +109,13 @@ public final class GestureBandScenario {
   }
 
   /**
-   * Simulates one window; returns {@code [axis][sample]} with axes in {@link #AXES} order.
-   * Visible to tests, which check the raw signals against physics.
+   * Simulates one window; returns {@code [axis][sample]} with axes in {@link #AXES} order. Visible
+   * to tests, which check the raw signals against physics.
    */
   static double[][] simulate(int gesture, DemoRandom random) {
     // Resting orientation: band roughly face up on a forearm held level, tilted a little.
-    double[] up = normalize(random.normal(0.1, 0.15), random.normal(-0.2, 0.2), random.normal(0.95, 0.05));
+    double[] up =
+        normalize(random.normal(0.1, 0.15), random.normal(-0.2, 0.2), random.normal(0.95, 0.05));
     double strength = random.logNormal(1.0, 0.2); // wearers differ in vigour
     double[] bias = {random.normal(0, 1), random.normal(0, 1), random.normal(0, 1)};
     Motion motion = motion(gesture, random, strength);
@@ -216,7 +217,9 @@ public final class GestureBandScenario {
       }
 
       private double ring(double dt) {
-        return dt < 0 ? 0 : StrictMath.exp(-dt / 0.02) * StrictMath.cos(2 * StrictMath.PI * ringHz * dt);
+        return dt < 0
+            ? 0
+            : StrictMath.exp(-dt / 0.02) * StrictMath.cos(2 * StrictMath.PI * ringHz * dt);
       }
 
       private double pulse(double dt) {

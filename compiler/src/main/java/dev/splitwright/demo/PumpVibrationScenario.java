@@ -11,14 +11,13 @@ import java.util.Objects;
  * logged order, with the state a technician later assigned.
  *
  * <p>The model behind it, per row: an ambient temperature with a daily cycle, a flow demand
- * ("load"), and a state drawn with unequal frequencies. Each state shifts the readings the way
- * the fault is known to (common practice in vibration analysis): imbalance raises velocity RMS at
- * running speed while the near-sinusoidal signal keeps crest factor and kurtosis low;
- * misalignment raises RMS less and warms the bearing through the coupling; bearing wear gives
- * impulsive signals (high crest factor and kurtosis) and heat; cavitation gives broadband
- * high-frequency acceleration and an unsteady, lower motor current. The distributions overlap, a
- * few labels are wrong, and about 0.4% of temperature readings are missing (thermocouple
- * dropouts).
+ * ("load"), and a state drawn with unequal frequencies. Each state shifts the readings the way the
+ * fault is known to (common practice in vibration analysis): imbalance raises velocity RMS at
+ * running speed while the near-sinusoidal signal keeps crest factor and kurtosis low; misalignment
+ * raises RMS less and warms the bearing through the coupling; bearing wear gives impulsive signals
+ * (high crest factor and kurtosis) and heat; cavitation gives broadband high-frequency acceleration
+ * and an unsteady, lower motor current. The distributions overlap, a few labels are wrong, and
+ * about 0.4% of temperature readings are missing (thermocouple dropouts).
  */
 public final class PumpVibrationScenario {
 

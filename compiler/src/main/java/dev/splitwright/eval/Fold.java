@@ -5,8 +5,8 @@ import java.util.Objects;
 
 /**
  * One fold of k-fold cross-validation: the rows held out for validation and the rows to train on,
- * as ascending indices into {@code source}. The parts are copied out only when asked for, so that
- * k folds of a large data set do not hold k copies at once.
+ * as ascending indices into {@code source}. The parts are copied out only when asked for, so that k
+ * folds of a large data set do not hold k copies at once.
  */
 public record Fold(Dataset source, int index, int[] trainRows, int[] validationRows) {
 

@@ -28,8 +28,8 @@ public final class StratifiedSplit {
    * as many rows as there are parts with a non-zero fraction, each of those parts gets at least one
    * of its rows.
    *
-   * @throws IllegalArgumentException if a fraction is negative or not finite, or they do not sum
-   *     to 1 within {@link #FRACTION_TOLERANCE}
+   * @throws IllegalArgumentException if a fraction is negative or not finite, or they do not sum to
+   *     1 within {@link #FRACTION_TOLERANCE}
    */
   public static SplitParts split(
       Dataset data, double train, double validation, double test, long seed) {
@@ -137,7 +137,8 @@ public final class StratifiedSplit {
     return new IllegalArgumentException(
         String.format(
             Locale.ROOT,
-            "train, validation and test fractions must be >= 0 and sum to 1, but they are %s, %s, %s",
+            "train, validation and test fractions must be >= 0 and sum to 1, but they are %s, %s,"
+                + " %s",
             fractions[0],
             fractions[1],
             fractions[2]));

@@ -34,11 +34,17 @@ class CellTextTest {
     assertThat(CellText.classify(cell)).isEqualTo(Kind.TEXT);
   }
 
-  // Largest float32 is (2 - 2^-23) * 2^127 = 3.40282346638528859811704183484516925440e38; values from
+  // Largest float32 is (2 - 2^-23) * 2^127 = 3.40282346638528859811704183484516925440e38; values
+  // from
   // the midpoint to 2^128, 3.4028235677973366e38, round to infinity (IEEE 754 round to nearest).
   @ParameterizedTest
-  @CsvSource({"3.4028235e38, NUMBER", "3.40282356e38, NUMBER", "3.4028236e38, OVERFLOW",
-      "-1e39, OVERFLOW", "1e-50, NUMBER"})
+  @CsvSource({
+    "3.4028235e38, NUMBER",
+    "3.40282356e38, NUMBER",
+    "3.4028236e38, OVERFLOW",
+    "-1e39, OVERFLOW",
+    "1e-50, NUMBER"
+  })
   void flagsFloat32OverflowAtTheRoundingMidpoint(String cell, Kind expected) {
     assertThat(CellText.classify(cell)).isEqualTo(expected);
   }

@@ -59,10 +59,10 @@ class CsvLoaderErrorTest {
   void rejectsUnknownTargetListingTheColumns() throws Exception {
     write("a,b,label\n1,2,x\n");
 
-    assertThatThrownBy(
-            () -> CsvLoader.load(file, LoadOptions.builder().target("species").build()))
+    assertThatThrownBy(() -> CsvLoader.load(file, LoadOptions.builder().target("species").build()))
         .isInstanceOf(InputException.class)
-        .hasMessage("option --target: " + file + " has no column 'species'; use one of a, b, label");
+        .hasMessage(
+            "option --target: " + file + " has no column 'species'; use one of a, b, label");
   }
 
   @Test
@@ -89,8 +89,8 @@ class CsvLoaderErrorTest {
 
     assertLoadFails(
         LoadOptions.builder().numericColumns(List.of("b")).build(),
-        ":3:2: 'n/a' is not a number (column 'b');"
-            + " fix the cell, leave it empty for a missing value, or do not declare the column numeric");
+        ":3:2: 'n/a' is not a number (column 'b'); fix the cell, leave it empty for a missing"
+            + " value, or do not declare the column numeric");
   }
 
   @Test
@@ -98,8 +98,8 @@ class CsvLoaderErrorTest {
     write("a,b,label\n1,2,x\n3,4,y\nNaN,5,x\n");
 
     assertLoadFails(
-        ":4:1: 'NaN' is not a reading but a logging fault marker (column 'a');"
-            + " export missing readings as empty cells, or declare 'NaN' a missing-value token (--missing)");
+        ":4:1: 'NaN' is not a reading but a logging fault marker (column 'a'); export missing"
+            + " readings as empty cells, or declare 'NaN' a missing-value token (--missing)");
   }
 
   @Test
@@ -107,8 +107,8 @@ class CsvLoaderErrorTest {
     write("a,b,label\n1,-Infinity,x\n");
 
     assertLoadFails(
-        ":2:2: '-Infinity' is not a reading but a logging fault marker (column 'b');"
-            + " export missing readings as empty cells, or declare '-Infinity' a missing-value token (--missing)");
+        ":2:2: '-Infinity' is not a reading but a logging fault marker (column 'b'); export missing"
+            + " readings as empty cells, or declare '-Infinity' a missing-value token (--missing)");
   }
 
   @Test
@@ -143,8 +143,8 @@ class CsvLoaderErrorTest {
     write("a,b,label\n1,2,x\n3,NaN,x\n1e40,4,y\n");
 
     assertLoadFails(
-        ":3:2: 'NaN' is not a reading but a logging fault marker (column 'b');"
-            + " export missing readings as empty cells, or declare 'NaN' a missing-value token (--missing)");
+        ":3:2: 'NaN' is not a reading but a logging fault marker (column 'b'); export missing"
+            + " readings as empty cells, or declare 'NaN' a missing-value token (--missing)");
   }
 
   @Test
@@ -185,7 +185,8 @@ class CsvLoaderErrorTest {
     write(bytes(text.toString(), new byte[] {(byte) 0xC3, (byte) 0x28}, ",x\n"));
 
     assertLoadFails(
-        ":40002: invalid UTF-8 byte 0xC3 at byte offset " + head.length
+        ":40002: invalid UTF-8 byte 0xC3 at byte offset "
+            + head.length
             + "; save the file as UTF-8");
   }
 
@@ -211,7 +212,8 @@ class CsvLoaderErrorTest {
   void rejectsDuplicateColumnName() throws Exception {
     write("a,b,a,label\n1,2,3,x\n");
 
-    assertLoadFails(":1:3: duplicate column name 'a' (also column 1); give every column a distinct name");
+    assertLoadFails(
+        ":1:3: duplicate column name 'a' (also column 1); give every column a distinct name");
   }
 
   @Test
@@ -239,7 +241,8 @@ class CsvLoaderErrorTest {
   void rejectsBlankFirstLine() throws Exception {
     write("\na,label\n1,x\n");
 
-    assertLoadFails(":1: the header row is blank; start the file with a header row naming the columns");
+    assertLoadFails(
+        ":1: the header row is blank; start the file with a header row naming the columns");
   }
 
   @Test
@@ -285,7 +288,8 @@ class CsvLoaderErrorTest {
                         .build()))
         .isInstanceOf(InputException.class)
         .hasMessage(
-            "option --numeric: column 'a' is also declared categorical; declare each column at most once");
+            "option --numeric: column 'a' is also declared categorical; declare each column at most"
+                + " once");
   }
 
   @Test
@@ -309,7 +313,8 @@ class CsvLoaderErrorTest {
 
     assertThatThrownBy(() -> CsvLoader.loadWithSchema(file, schema, LoadOptions.defaults()))
         .isInstanceOf(InputException.class)
-        .hasMessage(file + ":3:2: unknown class label 'z' (column 'label'); the model knows only x, y");
+        .hasMessage(
+            file + ":3:2: unknown class label 'z' (column 'label'); the model knows only x, y");
   }
 
   @Test
@@ -330,7 +335,9 @@ class CsvLoaderErrorTest {
     assertThatThrownBy(() -> CsvLoader.loadWithSchema(file, schema, LoadOptions.defaults()))
         .isInstanceOf(InputException.class)
         .hasMessage(
-            file + ":3:2: 'high' is not a number (column 'a'); fix the cell, or leave it empty for a missing value");
+            file
+                + ":3:2: 'high' is not a number (column 'a'); fix the cell, or leave it empty for a"
+                + " missing value");
   }
 
   private Schema trainingSchema() throws Exception {

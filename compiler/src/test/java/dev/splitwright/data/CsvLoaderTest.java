@@ -75,8 +75,7 @@ class CsvLoaderTest {
   @Test
   void loadsHouseVotesWithTheTargetInTheFirstColumn() throws Exception {
     Path file = dataset("house-votes-84.csv");
-    LoadedData loaded =
-        CsvLoader.load(file, LoadOptions.builder().target("Class").build());
+    LoadedData loaded = CsvLoader.load(file, LoadOptions.builder().target("Class").build());
     Dataset data = loaded.dataset();
 
     assertThat(data.schema().target()).isEqualTo("Class");
@@ -259,7 +258,8 @@ class CsvLoaderTest {
 
   @Test
   void mapsATestFileThroughTheTrainingSchemaByName() throws Exception {
-    Path train = Files.writeString(dir.resolve("train.csv"), "speed,site,label\n1,north,x\n2,south,y\n");
+    Path train =
+        Files.writeString(dir.resolve("train.csv"), "speed,site,label\n1,north,x\n2,south,y\n");
     Path test =
         Files.writeString(dir.resolve("test.csv"), "label,site,speed\ny,south,3\nx,east,4\nx,,5\n");
     Schema schema = CsvLoader.load(train).dataset().schema();
@@ -283,13 +283,19 @@ class CsvLoaderTest {
     StringBuilder text = new StringBuilder("site,reading,label\n");
     int rows = 30_000;
     for (int i = 0; i < rows; i++) {
-      text.append(sites.get(i % 4)).append(',').append(i % 7).append(",x").append(i % 3).append('\n');
+      text.append(sites.get(i % 4))
+          .append(',')
+          .append(i % 7)
+          .append(",x")
+          .append(i % 3)
+          .append('\n');
     }
 
     Dataset data = CsvLoader.load(write(text.toString())).dataset();
 
     assertThat(data.rows()).isEqualTo(rows);
-    assertThat(data.schema().feature(0).categories()).containsExactly("Straße", "café", "東京", "🔥pit");
+    assertThat(data.schema().feature(0).categories())
+        .containsExactly("Straße", "café", "東京", "🔥pit");
     // Row 29999 is site 29999 % 4 = 3, "🔥pit", last in UTF-16 order (high surrogate 0xD83D).
     assertThat(data.value(rows - 1, 0)).isEqualTo(3f);
     assertThat(data.value(rows - 2, 0)).isEqualTo(2f);

@@ -15,7 +15,8 @@ class InputExceptionTest {
             "'x' is not a number",
             "fix the cell");
 
-    assertThat(e).hasMessage("pump.csv:12345:3: 'x' is not a number (column 'peak_accel_g'); fix the cell");
+    assertThat(e)
+        .hasMessage("pump.csv:12345:3: 'x' is not a number (column 'peak_accel_g'); fix the cell");
     assertThat(e.position()).contains(SourcePosition.ofCell("pump.csv", 12345, 3, "peak_accel_g"));
     assertThat(e.option()).isEmpty();
   }

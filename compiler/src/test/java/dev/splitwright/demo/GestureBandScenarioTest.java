@@ -90,7 +90,8 @@ class GestureBandScenarioTest {
 
     // Shaking at 4-7 Hz for one second crosses the mean 2 * f = 8-14 times (worked by hand).
     assertThat(rows.stream().filter(r -> r.trueLabel().equals("shake")))
-        .allSatisfy(r -> assertThat(Integer.parseInt(r.cells().get(accYCrossings))).isBetween(6, 16));
+        .allSatisfy(
+            r -> assertThat(Integer.parseInt(r.cells().get(accYCrossings))).isBetween(6, 16));
   }
 
   @Test

@@ -36,7 +36,8 @@ class PumpVibrationScenarioTest {
     Dataset data = CsvLoader.load(file).dataset();
 
     assertThat(data.rows()).isEqualTo(3_000);
-    assertThat(data.schema().featureNames()).containsExactlyElementsOf(PumpVibrationScenario.FEATURES);
+    assertThat(data.schema().featureNames())
+        .containsExactlyElementsOf(PumpVibrationScenario.FEATURES);
     assertThat(data.schema().features()).allMatch(f -> f.kind() == FeatureKind.NUMERIC);
     assertThat(data.schema().classes())
         .containsExactlyInAnyOrderElementsOf(PumpVibrationScenario.STATES);
@@ -61,7 +62,8 @@ class PumpVibrationScenarioTest {
             "vibration_rms_mm_s,peak_accel_g,crest_factor,kurtosis,bearing_temp_c,motor_current_a,state");
     for (String line : List.of(lines).subList(1, lines.length)) {
       assertThat(line)
-          .matches("\\d+\\.\\d{2},\\d+\\.\\d{3},\\d+\\.\\d{2},\\d+\\.\\d{2},(\\d+\\.\\d)?,\\d+\\.\\d{2},[a-z_]+");
+          .matches(
+              "\\d+\\.\\d{2},\\d+\\.\\d{3},\\d+\\.\\d{2},\\d+\\.\\d{2},(\\d+\\.\\d)?,\\d+\\.\\d{2},[a-z_]+");
     }
   }
 
@@ -91,7 +93,8 @@ class PumpVibrationScenarioTest {
     assertThat(median(rows, "cavitation", 1)).isGreaterThan(4 * median(rows, "normal", 1));
     assertThat(median(rows, "misalignment", 4)).isGreaterThan(median(rows, "normal", 4) + 5);
     // Peak over RMS can never fall below a pure sine's sqrt(2).
-    assertThat(rows).allSatisfy(r -> assertThat(Double.parseDouble(r.cells().get(2))).isGreaterThan(1.41));
+    assertThat(rows)
+        .allSatisfy(r -> assertThat(Double.parseDouble(r.cells().get(2))).isGreaterThan(1.41));
   }
 
   @Test

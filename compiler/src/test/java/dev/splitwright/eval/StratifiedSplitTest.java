@@ -138,7 +138,11 @@ class StratifiedSplitTest {
         .isInstanceOf(IllegalArgumentException.class)
         .hasMessage(
             "train, validation and test fractions must be >= 0 and sum to 1, but they are "
-                + a + ", " + b + ", " + c);
+                + a
+                + ", "
+                + b
+                + ", "
+                + c);
   }
 
   @Test
