@@ -12,6 +12,7 @@ import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.eval.Evaluator;
 import dev.splitwright.eval.Scores;
+import dev.splitwright.eval.SplitParts;
 import dev.splitwright.eval.StratifiedSplit;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
@@ -103,11 +104,11 @@ public final class CompileJob {
       Path testFile = request.testData().get();
       Dataset test = CsvLoader.loadWithSchema(testFile, data.schema(), request.load()).dataset();
       double trainShare = f[0] / (f[0] + f[1]);
-      StratifiedSplit.SplitParts p =
+      SplitParts p =
           StratifiedSplit.split(data, trainShare, 1 - trainShare, 0, request.seed());
       return new Parts(p.train(), p.validation(), test);
     }
-    StratifiedSplit.SplitParts p = StratifiedSplit.split(data, f[0], f[1], f[2], request.seed());
+    SplitParts p = StratifiedSplit.split(data, f[0], f[1], f[2], request.seed());
     return new Parts(p.train(), p.validation(), p.test());
   }
 
