@@ -20,7 +20,7 @@ class ThresholdsTest {
     for (int i = 0; i < 300; i++) {
       values.add(Float.intBitsToFloat(random.nextInt()));
     }
-    values.removeIf(Float::isNaN);
+    values.removeIf(v -> v.isNaN());
     return values;
   }
 
