@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
@@ -34,6 +35,14 @@ final class DemoCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    if (!DemoData.scenarios().contains(scenario)) {
+      throw new ParameterException(spec.commandLine(), "option '--scenario' must be one of "
+          + String.join(", ", DemoData.scenarios()) + ", but it is '" + scenario + "'");
+    }
+    if (rows < 1) {
+      throw new ParameterException(spec.commandLine(),
+          "option '--rows' must be at least 1, but it is " + rows);
+    }
     DemoData.write(scenario, out, rows, seed);
     spec.commandLine().getOut().println("wrote " + out);
     return ExitCodes.OK;
