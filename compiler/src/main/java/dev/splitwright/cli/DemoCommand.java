@@ -13,12 +13,12 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(
     name = "demo",
     mixinStandardHelpOptions = true,
-    description = "Writes a seeded, invented demo data set as CSV: 'pump' (field pump vibration "
-        + "monitor) or 'gesture' (wrist-worn gesture band).")
+    description = "Writes a seeded, invented demo data set as CSV: 'pump-vibration' (field pump vibration "
+        + "monitor) or 'gesture-band' (wrist-worn gesture band).")
 final class DemoCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
-  @Option(names = "--scenario", required = true, paramLabel = "pump|gesture")
+  @Option(names = "--scenario", required = true, paramLabel = "pump-vibration|gesture-band")
   String scenario;
 
   @Option(names = "--rows", defaultValue = "3000", paramLabel = "N")
