@@ -28,6 +28,23 @@ final class EntryDoc {
     return doc.add("@return the class index\n").build();
   }
 
+  static CodeBlock probabilities(Schema schema, InputAccess input) {
+    CodeBlock.Builder doc = CodeBlock.builder()
+        .add("Fills {@code out} with the class frequencies of the training rows at the leaf\n"
+            + "this input reaches: {@code out[c]} is the share of class {@code c}, as float.\n"
+            + "The class {@link #classify} returns is not always the most frequent one when\n"
+            + "class weights were used in training.\n\n");
+    if (input.named()) {
+      for (int f = 0; f < schema.featureCount(); f++) {
+        doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
+      }
+    } else {
+      doc.add("@param x the $L feature values, as for {@link #classify}\n", schema.featureCount());
+    }
+    return doc.add("@param out receives $L frequencies, one per class index\n", schema.classCount())
+        .build();
+  }
+
   private static String paramText(Feature feature) {
     return JavaText.javadoc(feature.name()) + (feature.isCategorical() ? " (category code)" : "");
   }

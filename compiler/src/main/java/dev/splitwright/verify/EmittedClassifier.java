@@ -13,17 +13,22 @@ import java.util.Arrays;
  */
 final class EmittedClassifier {
   private final Method classify;
+  private final Method probabilities;
   private final InputKind kind;
   private final boolean named;
+  private final int classCount;
 
-  private EmittedClassifier(Method classify, InputKind kind, boolean named) {
+  private EmittedClassifier(Method classify, Method probabilities, InputKind kind, boolean named,
+      int classCount) {
     this.classify = classify;
+    this.probabilities = probabilities;
     this.kind = kind;
     this.named = named;
+    this.classCount = classCount;
   }
 
-  static EmittedClassifier of(Class<?> type, EmitOptions options, int featureCount)
-      throws NoSuchMethodException {
+  static EmittedClassifier of(Class<?> type, EmitOptions options, int featureCount,
+      int classCount) throws NoSuchMethodException {
     Class<?> element = switch (options.inputKind()) {
       case FLOAT -> float.class;
       case DOUBLE -> double.class;
@@ -36,8 +41,14 @@ final class EmittedClassifier {
     } else {
       parameters = new Class<?>[] {element.arrayType()};
     }
-    return new EmittedClassifier(type.getMethod("classify", parameters), options.inputKind(),
-        options.namedArgs());
+    Method probabilities = null;
+    if (options.probabilities()) {
+      Class<?>[] withOut = Arrays.copyOf(parameters, parameters.length + 1);
+      withOut[parameters.length] = float[].class;
+      probabilities = type.getMethod("classProbabilities", withOut);
+    }
+    return new EmittedClassifier(type.getMethod("classify", parameters), probabilities,
+        options.inputKind(), options.namedArgs(), classCount);
   }
 
   /** The input the float model must see for {@code probe}: the probe after conversion. */
@@ -53,9 +64,41 @@ final class EmittedClassifier {
   }
 
   int classify(float[] probe) {
-    Object[] args = named ? spread(probe) : new Object[] {array(probe)};
+    return (Integer) call(classify, named ? spread(probe) : new Object[] {array(probe)});
+  }
+
+  /** Classifies a double input; only for a classifier that takes doubles. */
+  int classifyDouble(double[] x) {
+    if (kind != InputKind.DOUBLE) {
+      throw new IllegalStateException("the classifier takes " + kind.optionName() + " input");
+    }
+    Object[] args;
+    if (named) {
+      args = new Object[x.length];
+      for (int f = 0; f < x.length; f++) {
+        args[f] = x[f];
+      }
+    } else {
+      args = new Object[] {x.clone()};
+    }
+    return (Integer) call(classify, args);
+  }
+
+  /** The class frequencies {@code classProbabilities} writes for {@code probe}. */
+  float[] probabilities(float[] probe) {
+    Object[] inputs = named ? spread(probe) : new Object[] {array(probe)};
+    Object[] args = Arrays.copyOf(inputs, inputs.length + 1);
+    float[] out = new float[classCount];
+    // A value the method must overwrite, so "left untouched" is caught.
+    Arrays.fill(out, Float.NaN);
+    args[inputs.length] = out;
+    call(probabilities, args);
+    return out;
+  }
+
+  private static Object call(Method method, Object[] args) {
     try {
-      return (Integer) classify.invoke(null, args);
+      return method.invoke(null, args);
     } catch (InvocationTargetException e) {
       Throwable cause = e.getCause();
       throw cause instanceof RuntimeException r ? r : new IllegalStateException(cause);

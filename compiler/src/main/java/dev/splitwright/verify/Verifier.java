@@ -10,6 +10,7 @@ import dev.splitwright.check.OracleComparison;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
+import dev.splitwright.emit.InputKind;
 import dev.splitwright.model.DecisionTree;
 import java.util.ArrayList;
 import java.util.List;
@@ -29,9 +30,23 @@ public final class Verifier {
   private static final int REPORTED_MISMATCHES = 5;
 
   private final InMemoryCompiler compiler;
+  private final int randomProbes;
 
   public Verifier(InMemoryCompiler compiler) {
+    this(compiler, RANDOM_PROBES);
+  }
+
+  private Verifier(InMemoryCompiler compiler, int randomProbes) {
     this.compiler = Objects.requireNonNull(compiler, "compiler");
+    this.randomProbes = randomProbes;
+  }
+
+  /** This verifier with {@code count} seeded random inputs per check instead of 2,000. */
+  public Verifier withRandomProbes(int count) {
+    if (count < 0) {
+      throw new IllegalArgumentException("count must be >= 0, but it is " + count);
+    }
+    return new Verifier(compiler, count);
   }
 
   /** A verifier with its own compiler using {@link #JAVAC_OPTIONS}. */
@@ -55,7 +70,14 @@ public final class Verifier {
     return check(tree, classes, source, options, data, seed);
   }
 
-  /** Verifies an already compiled class; lets callers compile many candidates in one batch. */
+  /**
+   * Verifies an already compiled class; lets callers compile many candidates in one batch.
+   *
+   * <p>Compares {@code classify} with the model on every input; for {@code double} input also on
+   * {@link DoubleProbes}, where rounding to float decides; with {@code --probabilities} also
+   * {@code classProbabilities} with {@link DecisionTree#probabilities} narrowed to float, bit for
+   * bit. Mismatches of all comparisons are counted together.
+   */
   public VerificationResult check(DecisionTree tree, CompiledClasses classes, EmittedSource source,
       EmitOptions options, List<Dataset> data, long seed) {
     byte[] bytes = classes.bytes(source.qualifiedName());
@@ -63,30 +85,63 @@ public final class Verifier {
     EmittedClassifier candidate;
     try {
       candidate = EmittedClassifier.of(classes.load(source.qualifiedName()), options,
-          tree.schema().featureCount());
+          tree.schema().featureCount(), tree.schema().classCount());
     } catch (ReflectiveOperationException e) {
       throw new IllegalStateException("emitted class has no usable classify method", e);
     }
-    List<float[]> inputs = inputs(tree, data, seed);
+    List<float[]> inputs = inputs(tree, data, seed, randomProbes);
     Coverage coverage = new Coverage(tree);
     for (float[] x : inputs) {
       coverage.record(candidate.modelInput(x));
     }
-    ComparisonResult<float[], Integer> result = OracleComparison.compare(
-        inputs, candidate::classify, x -> tree.predict(candidate.modelInput(x)),
-        REPORTED_MISMATCHES);
-    List<String> mismatches = new ArrayList<>();
-    for (Mismatch<float[], Integer> m : result.firstMismatches()) {
-      mismatches.add(m.describe());
+    Tally tally = new Tally();
+    tally.add("", OracleComparison.compare(inputs, candidate::classify,
+        x -> tree.predict(candidate.modelInput(x)), REPORTED_MISMATCHES));
+    long inputsChecked = inputs.size();
+    if (options.inputKind() == InputKind.DOUBLE) {
+      List<double[]> doubles = DoubleProbes.of(tree);
+      for (double[] x : doubles) {
+        coverage.record(DoubleProbes.narrow(x));
+      }
+      tally.add("double input ", OracleComparison.compare(doubles, candidate::classifyDouble,
+          x -> tree.predict(DoubleProbes.narrow(x)), REPORTED_MISMATCHES));
+      inputsChecked += doubles.size();
+    }
+    if (options.probabilities()) {
+      tally.add("classProbabilities ", OracleComparison.compare(inputs, candidate::probabilities,
+          x -> narrow(tree.probabilities(candidate.modelInput(x))), REPORTED_MISMATCHES));
     }
     String self = source.qualifiedName().replace('.', '/');
     List<String> foreign = info.referencedClasses().stream()
         .filter(name -> !name.equals(self) && !isJavaLang(name))
         .toList();
-    return new VerificationResult(result.checked(), result.mismatchCount(), mismatches,
+    return new VerificationResult(inputsChecked, tally.mismatches, tally.first,
         coverage.splits(), coverage.covered(), bytes.length, info.debugAttributeBytes(),
         info.maxCodeLength(), options.maxMethodBytes(), info.methods(), info.constantPoolCount(),
         foreign);
+  }
+
+  private static float[] narrow(double[] p) {
+    float[] out = new float[p.length];
+    for (int c = 0; c < out.length; c++) {
+      out[c] = (float) p[c];
+    }
+    return out;
+  }
+
+  /** Mismatches of several comparisons, the first few described. */
+  private static final class Tally {
+    long mismatches;
+    final List<String> first = new ArrayList<>();
+
+    <I, R> void add(String what, ComparisonResult<I, R> result) {
+      mismatches += result.mismatchCount();
+      for (Mismatch<I, R> m : result.firstMismatches()) {
+        if (first.size() < REPORTED_MISMATCHES) {
+          first.add(what + m.describe());
+        }
+      }
+    }
   }
 
   private static boolean isJavaLang(String internalName) {
@@ -94,7 +149,7 @@ public final class Verifier {
   }
 
   /** Every data row, then the boundary probes, then the random probes. */
-  static List<float[]> inputs(DecisionTree tree, List<Dataset> data, long seed) {
+  static List<float[]> inputs(DecisionTree tree, List<Dataset> data, long seed, int randomProbes) {
     List<float[]> inputs = new ArrayList<>();
     Dataset reference = null;
     for (Dataset part : data) {
@@ -106,7 +161,7 @@ public final class Verifier {
       }
     }
     inputs.addAll(BoundaryProbes.of(tree));
-    inputs.addAll(RandomProbes.of(tree, reference, RANDOM_PROBES, seed));
+    inputs.addAll(RandomProbes.of(tree, reference, randomProbes, seed));
     return inputs;
   }
 }
