@@ -58,6 +58,35 @@ final class JavaText {
     return out == null ? source : out.toString();
   }
 
+  /**
+   * Returns a string literal of {@code text} in printable ASCII. Everything else becomes an escape:
+   * JavaPoet's {@code $S} would pass U+2028 and U+2029 through, and its writer then breaks the line
+   * there (it splits on every Unicode line break), cutting the literal in two. Quote and backslash
+   * get their own escapes, never unicode ones: javac decodes {@code \u0022} before it reads the
+   * literal (JLS §3.3), and so {@code \u000a} or {@code \u000d} would end the line (JLS §3.4).
+   */
+  static String stringLiteral(String text) {
+    StringBuilder out = new StringBuilder(text.length() + 2).append('"');
+    for (int i = 0; i < text.length(); i++) {
+      char c = text.charAt(i);
+      switch (c) {
+        case '"' -> out.append("\\\"");
+        case '\\' -> out.append("\\\\");
+        case '\n' -> out.append("\\n");
+        case '\r' -> out.append("\\r");
+        case '\t' -> out.append("\\t");
+        default -> {
+          if (c >= 0x20 && c < 0x7f) {
+            out.append(c);
+          } else {
+            out.append(String.format(Locale.ROOT, "\\u%04x", (int) c));
+          }
+        }
+      }
+    }
+    return out.append('"').toString();
+  }
+
   /** Returns a float literal that reads back as exactly {@code value} (IEEE 754 binary32). */
   static String floatLiteral(float value) {
     if (Float.isNaN(value)) {

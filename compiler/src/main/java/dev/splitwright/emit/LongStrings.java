@@ -80,12 +80,12 @@ final class LongStrings {
   /** One constant written as literals of {@link #LINE_CHARS} joined by {@code +}. */
   private static CodeBlock lines(String constant) {
     if (constant.length() <= LINE_CHARS) {
-      return CodeBlock.of("$S", constant);
+      return CodeBlock.of("$L", JavaText.stringLiteral(constant));
     }
     CodeBlock.Builder out = CodeBlock.builder();
     for (int i = 0; i < constant.length(); i += LINE_CHARS) {
       String piece = constant.substring(i, Math.min(constant.length(), i + LINE_CHARS));
-      out.add(i == 0 ? "$S" : "\n+ $S", piece);
+      out.add(i == 0 ? "$L" : "\n+ $L", JavaText.stringLiteral(piece));
     }
     return out.build();
   }

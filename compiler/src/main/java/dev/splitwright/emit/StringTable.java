@@ -35,7 +35,7 @@ final class StringTable {
     if (!packed(values)) {
       CodeBlock.Builder init = CodeBlock.builder().add("{");
       for (int i = 0; i < values.size(); i++) {
-        init.add(i == 0 ? "$S" : ",$W$S", values.get(i));
+        init.add(i == 0 ? "$L" : ",$W$L", JavaText.stringLiteral(values.get(i)));
       }
       return field.initializer(init.add("}").build()).build();
     }
