@@ -25,7 +25,6 @@ final class BranchesWriter {
   private final TypeSpec.Builder type;
   private final SupportMethods support;
   private final LeafTable leaves;
-  private final ConstantCount constants = new ConstantCount();
   /** Code sets of more than 64 categories, by content, with their offset in {@code SETS}. */
   private final Map<String, Integer> wideSets = new LinkedHashMap<>();
   private final PackedInts setData = new PackedInts();
@@ -46,8 +45,8 @@ final class BranchesWriter {
     SupportMethods support = new SupportMethods(input.kind());
     TypeSpec.Builder type = ClassScaffold.start(tree, options, header, support);
     BranchesWriter writer = new BranchesWriter(tree, options, input, type, support);
-    writer.addMethods();
     writer.checkConstantPool();
+    writer.addMethods();
     support.addTo(type);
     return ClassScaffold.finish(type.build(), options, header);
   }
@@ -72,7 +71,6 @@ final class BranchesWriter {
           .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
           .returns(TypeName.INT);
       input.addParameters(root);
-      constants.addOther(3);
     }
     type.addMethod(root.addCode(body(tree.root())).build());
     for (Node node : plan.methodRoots()) {
@@ -81,7 +79,6 @@ final class BranchesWriter {
           .returns(TypeName.INT);
       input.addParameters(helper);
       type.addMethod(helper.addCode(body(node)).build());
-      constants.addOther(3);
     }
     if (!wideSets.isEmpty()) {
       type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
@@ -110,7 +107,6 @@ final class BranchesWriter {
     }
     if (node instanceof Leaf leaf) {
       int payload = leaves.payload(leaf);
-      constants.addInt(payload);
       code.addStatement("return $L", payload);
       return;
     }
@@ -133,14 +129,12 @@ final class BranchesWriter {
     CategoricalSplit categorical = (CategoricalSplit) split;
     int k = tree.schema().feature(split.feature()).categories().size();
     int[] codes = categorical.leftCodes().toArray();
-    constants.addInt(k);
     if (k <= Long.SIZE) {
       support.need(SupportMethods.Kind.IN_SET_NARROW);
       long mask = 0;
       for (int code : codes) {
         mask |= 1L << code;
       }
-      constants.addLong(mask);
       return String.format(Locale.ROOT, "inSet(%s, %d, 0x%xL, %b)", value, k, mask,
           split.missingLeft());
     }
@@ -152,7 +146,6 @@ final class BranchesWriter {
       CategoryHelper.pack(setData, k, codes);
       wideSets.put(key, at);
     }
-    constants.addInt(at);
     return String.format(Locale.ROOT, "inSet(%s, %d, %b)", value, at, split.missingLeft());
   }
 
@@ -160,22 +153,17 @@ final class BranchesWriter {
     float t = split.threshold();
     return switch (input.kind()) {
       // NaN fails every comparison, so "<=" sends it right and "!(>)" sends it left.
-      case FLOAT -> {
-        constants.addFloat(t);
-        yield split.missingLeft()
-            ? "!(" + value + " > " + JavaText.floatLiteral(t) + ")"
-            : value + " <= " + JavaText.floatLiteral(t);
-      }
+      case FLOAT -> split.missingLeft()
+          ? "!(" + value + " > " + JavaText.floatLiteral(t) + ")"
+          : value + " <= " + JavaText.floatLiteral(t);
       case DOUBLE -> {
         double d = Thresholds.forDouble(t);
-        constants.addDouble(d);
         yield split.missingLeft()
             ? "!(" + value + " > " + JavaText.doubleLiteral(d) + ")"
             : value + " <= " + JavaText.doubleLiteral(d);
       }
       case INT -> {
         long n = Thresholds.forInt(t);
-        constants.addInt(n == Long.MIN_VALUE ? Integer.MIN_VALUE : n);
         yield n == Long.MIN_VALUE ? value + " < " + Integer.MIN_VALUE : value + " <= " + n;
       }
     };
@@ -183,19 +171,18 @@ final class BranchesWriter {
 
   /** Refuses a tree whose constants cannot fit one class file; the table layout always fits. */
   private void checkConstantPool() {
-    countTables();
-    if (!constants.fits()) {
+    long bound = constantBound();
+    if (bound > ConstantCount.LIMIT) {
       throw new EmitLimitException("layout", String.format(Locale.ROOT,
           "the branches layout of this tree needs up to %d class-file constants, over the "
-              + "limit of %d (JVM Specification 4.1)", constants.bound(), ConstantCount.LIMIT),
+              + "limit of %d (JVM Specification 4.1)", bound, ConstantCount.LIMIT),
           "use --layout table, whose constants do not grow with the tree");
     }
   }
 
-  private void countTables() {
-    int classes = tree.schema().classCount();
-    // Per class a constant's name and value; per label and feature at most a string and its text.
-    constants.addOther(2L * classes + 2L * (classes + tree.schema().featureCount()));
+  private long constantBound() {
+    int methods = plan.methodRoots().size() + (leaves.probabilities() ? 1 : 0);
+    return ConstantCount.forBranches(tree, input.kind(), methods, leaves.probabilities());
   }
 
   /** The bound {@link #write} checks, for tests to hold against real class files. */
@@ -203,9 +190,6 @@ final class BranchesWriter {
     InputAccess input = InputAccess.of(tree.schema(), options);
     SupportMethods support = new SupportMethods(input.kind());
     TypeSpec.Builder type = ClassScaffold.start(tree, options, HeaderInfo.none(), support);
-    BranchesWriter writer = new BranchesWriter(tree, options, input, type, support);
-    writer.addMethods();
-    writer.countTables();
-    return writer.constants.bound();
+    return new BranchesWriter(tree, options, input, type, support).constantBound();
   }
 }

@@ -1,5 +1,9 @@
 package dev.splitwright.emit;
 
+import dev.splitwright.model.CategoricalSplit;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.NumericSplit;
+import dev.splitwright.model.Split;
 import java.util.HashSet;
 import java.util.Set;
 
@@ -24,6 +28,47 @@ final class ConstantCount {
   private final Set<Integer> ints = new HashSet<>();
   private final Set<Long> longs = new HashSet<>();
   private long other = FIXED;
+
+  /**
+   * The bound for the {@code branches} layout of {@code tree}, worked out before any code is
+   * written: per split its threshold or code-set constants, per helper method its name and
+   * reference, per class its constant, and per label and feature a string.
+   */
+  static long forBranches(DecisionTree tree, InputKind input, int helperMethods,
+      boolean probabilities) {
+    ConstantCount count = new ConstantCount();
+    for (Split split : tree.splitsPreOrder()) {
+      if (split instanceof NumericSplit numeric) {
+        float t = numeric.threshold();
+        switch (input) {
+          case FLOAT -> count.addFloat(t);
+          case DOUBLE -> count.addDouble(Thresholds.forDouble(t));
+          case INT -> count.addInt(Math.max(Integer.MIN_VALUE, Thresholds.forInt(t)));
+        }
+        continue;
+      }
+      CategoricalSplit categorical = (CategoricalSplit) split;
+      int k = tree.schema().feature(split.feature()).categories().size();
+      count.addInt(k);
+      if (k <= Long.SIZE) {
+        long mask = 0;
+        for (int code : categorical.leftCodes().toArray()) {
+          mask |= 1L << code;
+        }
+        count.addLong(mask);
+      } else {
+        // The set's offset in SETS, if past sipush.
+        count.addOther(1);
+      }
+    }
+    int classes = tree.schema().classCount();
+    // Leaves return a class, or with probabilities a leaf number below the leaf count.
+    count.addOther(Math.max(0, (probabilities ? tree.leafCount() : classes) - Short.MAX_VALUE));
+    count.addOther(3L * helperMethods);
+    // Per class a constant's name and value; per label and feature at most a string and its text.
+    count.addOther(2L * classes + 2L * (classes + tree.schema().featureCount()));
+    return count.bound();
+  }
 
   /** A float operand; fconst_0, fconst_1 and fconst_2 need no entry (JVMS §6.5 fconst). */
   void addFloat(float value) {

@@ -22,8 +22,8 @@ final class EntryDoc {
         doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
       }
     } else {
-      doc.add("@param x the $L feature values in the order of the class comment; $L; "
-          + "categorical features take their code\n", schema.featureCount(), missing);
+      doc.add("@param x the $L feature values in the order of the class comment; $L;\n"
+          + "    categorical features take their code\n", schema.featureCount(), missing);
     }
     return doc.add("@return the class index\n").build();
   }
@@ -54,7 +54,7 @@ final class EntryDoc {
     method.beginControlFlow("if (x.length != $L)", schema.featureCount())
         // String.concat keeps the class free of invokedynamic string concatenation, whose
         // bootstrap lives in java.lang.invoke.
-        .addStatement("throw new IllegalArgumentException($S.concat(String.valueOf(x.length)))",
+        .addStatement("throw new IllegalArgumentException($W$S.concat(String.valueOf(x.length)))",
             "expected " + schema.featureCount() + " features but got ")
         .endControlFlow();
   }

@@ -139,7 +139,7 @@ final class LeafTable {
       EntryDoc.addLengthCheck(m, schema);
     }
     m.beginControlFlow("if (out.length != $L)", schema.classCount())
-        .addStatement("throw new IllegalArgumentException($S.concat(String.valueOf(out.length)))",
+        .addStatement("throw new IllegalArgumentException($W$S.concat(String.valueOf(out.length)))",
             "expected room for " + schema.classCount() + " classes but got ")
         .endControlFlow();
     return m.addStatement("int leaf = $L", leafCall)

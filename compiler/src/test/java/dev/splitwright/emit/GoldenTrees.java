@@ -20,16 +20,15 @@ final class GoldenTrees {
 
   /**
    * {@code rms velocity <= 2.5} (missing goes right), then on the left {@code mode in {auto,
-   * service}} (missing goes left), on the right {@code rms velocity <= 7.25} (missing goes left).
+   * service}} (missing goes left), on the right {@code rms velocity <= 7.25} (missing goes left);
+   * the leaves say normal, worn, normal, worn.
    */
   static DecisionTree pump() {
-    Leaf normalPure = new Leaf(0, ClassCounts.of(6, 0));
-    Leaf mixed = new Leaf(0, ClassCounts.of(3, 1));
-    Leaf wornMost = new Leaf(1, ClassCounts.of(1, 3));
-    Leaf wornPure = new Leaf(1, ClassCounts.of(0, 5));
     CategoricalSplit mode = new CategoricalSplit(1, CategoricalSplit.CodeSet.of(0, 2), true,
-        normalPure, mixed, ClassCounts.of(9, 1));
-    NumericSplit high = new NumericSplit(0, 7.25f, true, wornMost, wornPure, ClassCounts.of(1, 8));
+        new Leaf(0, ClassCounts.of(6, 0)), new Leaf(1, ClassCounts.of(1, 3)),
+        ClassCounts.of(7, 3));
+    NumericSplit high = new NumericSplit(0, 7.25f, true, new Leaf(0, ClassCounts.of(3, 1)),
+        new Leaf(1, ClassCounts.of(0, 5)), ClassCounts.of(3, 6));
     return new DecisionTree(SCHEMA,
         new NumericSplit(0, 2.5f, false, mode, high, ClassCounts.of(10, 9)));
   }
