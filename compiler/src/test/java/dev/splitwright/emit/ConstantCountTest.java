@@ -7,13 +7,7 @@ import dev.splitwright.check.ClassFileInfo;
 import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.check.InMemoryCompiler;
 import dev.splitwright.check.SourceFile;
-import dev.splitwright.data.Feature;
-import dev.splitwright.data.Schema;
-import dev.splitwright.model.ClassCounts;
 import dev.splitwright.model.DecisionTree;
-import dev.splitwright.model.Leaf;
-import dev.splitwright.model.Node;
-import dev.splitwright.model.NumericSplit;
 import dev.splitwright.verify.Verifier;
 import java.util.ArrayList;
 import java.util.List;
@@ -62,7 +56,7 @@ class ConstantCountTest {
   void branchesRefusesMoreDistinctThresholdsThanAClassFileHoldsAndTableTakesThem()
       throws Exception {
     // 65,535 splits, each with a threshold of its own: one float constant each.
-    DecisionTree tree = distinctThresholds(16);
+    DecisionTree tree = RandomTrees.distinctThresholds(16);
     assertThat(tree.internalNodeCount()).isEqualTo(65_535);
 
     EmitOptions branches = EmitOptions.builder("pool", "Wide").build();
@@ -78,21 +72,5 @@ class ConstantCountTest {
     CompiledClasses compiled = JAVAC.compileOne(source.qualifiedName(), source.source());
     ClassFileInfo info = ClassFileInfo.parse(compiled.bytes(source.qualifiedName()));
     assertThat(info.constantPoolCount()).isLessThan(200);
-  }
-
-  /** A full tree of {@code depth} on one feature with thresholds 0.5, 1.5, 2.5 ... in order. */
-  static DecisionTree distinctThresholds(int depth) {
-    Schema schema = new Schema(List.of(Feature.numeric("x")), "y", List.of("a", "b"));
-    return new DecisionTree(schema, node(depth, new int[1]));
-  }
-
-  private static Node node(int depth, int[] next) {
-    ClassCounts counts = ClassCounts.of(1, 1);
-    if (depth == 0) {
-      return new Leaf(next[0] % 2, counts);
-    }
-    Node left = node(depth - 1, next);
-    float threshold = next[0]++ + 0.5f;
-    return new NumericSplit(0, threshold, false, left, node(depth - 1, next), counts);
   }
 }

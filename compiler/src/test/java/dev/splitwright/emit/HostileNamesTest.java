@@ -44,8 +44,19 @@ import org.junit.jupiter.params.provider.MethodSource;
 class HostileNamesTest {
   private static final Verifier VERIFIER = Verifier.create().withRandomProbes(200);
 
+  /**
+   * After the escape of a lone high surrogate javac 17 miscounts the next backslashes, so a
+   * doubled backslash here would not stop the escape that ends a line comment (measured; this
+   * file writes that backslash as the octal escape 134 for the same reason).
+   */
+  private static final String LINE_ENDER = "lone \ud83d\134u000a int injected = 1; //";
+  /** The same with an escaped star that would close a block comment. */
+  private static final String COMMENT_CLOSER = "lone \udbff\134u002a/ int injected; /\\u002a";
+
   /** Each name is used as a feature name, a class label and a category. */
   static final List<String> NAMES = List.of(
+      LINE_ENDER,
+      COMMENT_CLOSER,
       "say \"hi\"",
       "C:\\temp\\new",
       "back\\ü slash before non-ASCII",
@@ -118,8 +129,9 @@ class HostileNamesTest {
         .inputKind(input).namedArgs(named).probabilities(probabilities).build();
     EmitOptions twinOptions = EmitOptions.builder("benign", "Names").layout(layout)
         .inputKind(input).namedArgs(named).probabilities(probabilities).build();
-    HeaderInfo header = new HeaderInfo(NAMES.get(2) + NAMES.get(3) + ".csv", NAMES.get(7),
-        "--target " + NAMES.get(4) + NAMES.get(8), List.of(NAMES.get(9), NAMES.get(5)));
+    // The header's text lands in line comments ("// Options: ...") and the class javadoc.
+    HeaderInfo header = new HeaderInfo(LINE_ENDER + COMMENT_CLOSER + ".csv", NAMES.get(7),
+        "--target " + LINE_ENDER + NAMES.get(8), List.of(COMMENT_CLOSER, NAMES.get(5)));
     EmittedSource source = JavaEmitter.emit(hostile, options, header);
     EmittedSource twin = JavaEmitter.emit(benign, twinOptions, HeaderInfo.none());
 

@@ -161,6 +161,25 @@ public final class RandomTrees {
     return pool;
   }
 
+  /**
+   * A full tree of {@code depth} on one feature with thresholds 0.5, 1.5, 2.5 ... in order, so
+   * every split has a threshold (and a class-file constant) of its own.
+   */
+  public static DecisionTree distinctThresholds(int depth) {
+    Schema schema = new Schema(List.of(Feature.numeric("x")), "y", List.of("a", "b"));
+    return new DecisionTree(schema, distinct(depth, new int[1]));
+  }
+
+  private static Node distinct(int depth, int[] next) {
+    ClassCounts counts = ClassCounts.of(1, 1);
+    if (depth == 0) {
+      return new Leaf(next[0] % 2, counts);
+    }
+    Node left = distinct(depth - 1, next);
+    float threshold = next[0]++ + 0.5f;
+    return new NumericSplit(0, threshold, false, left, distinct(depth - 1, next), counts);
+  }
+
   /** Values where comparisons in float, double and int conversions are easy to get wrong. */
   private static final float[] SPECIALS = {
     0.0f, -0.0f, Float.MIN_VALUE, -Float.MIN_VALUE, Float.MIN_NORMAL,
