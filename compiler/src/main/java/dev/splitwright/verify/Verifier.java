@@ -4,8 +4,9 @@ import dev.splitwright.check.ClassFileInfo;
 import dev.splitwright.check.CompilationException;
 import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.check.ComparisonResult;
-import dev.splitwright.check.Mismatch;
 import dev.splitwright.check.InMemoryCompiler;
+import dev.splitwright.check.MethodSize;
+import dev.splitwright.check.Mismatch;
 import dev.splitwright.check.OracleComparison;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.emit.EmitOptions;
@@ -117,8 +118,22 @@ public final class Verifier {
         .toList();
     return new VerificationResult(inputsChecked, tally.mismatches, tally.first,
         coverage.splits(), coverage.covered(), bytes.length, info.debugAttributeBytes(),
-        info.maxCodeLength(), options.maxMethodBytes(), info.methods(), info.constantPoolCount(),
-        foreign);
+        largestPerCallMethod(info), options.maxMethodBytes(), info.methods(),
+        info.constantPoolCount(), foreign);
+  }
+
+  /**
+   * The largest code of any method but the static initializer. The cap is there so HotSpot
+   * compiles what runs per call; {@code <clinit>} runs once, when the class is initialised, and
+   * its size does not grow with the tree (the tree is data there), so only the JVM's own limit of
+   * 65,535 bytes (JVMS §4.7.3) applies to it, which javac enforces.
+   */
+  static int largestPerCallMethod(ClassFileInfo info) {
+    return info.methods().stream()
+        .filter(m -> !m.name().equals("<clinit>"))
+        .mapToInt(MethodSize::codeLength)
+        .max()
+        .orElse(0);
   }
 
   private static float[] narrow(double[] p) {

@@ -93,8 +93,12 @@ class HotSpotJitTest {
     EmitOptions hugeOptions = EmitOptions.builder("jit", "Huge")
         .maxMethodBytes(EmitOptions.JVM_MAX_METHOD_BYTES).build();
     EmittedSource hugeSource = JavaEmitter.emit(shallow, hugeOptions, HeaderInfo.none());
+    EmitOptions tableOptions =
+        EmitOptions.builder("jit", "DeepTable").layout(Layout.TABLE).build();
+    EmittedSource tableSource = JavaEmitter.emit(deep, tableOptions, HeaderInfo.none());
     CompiledClasses classes = JAVAC.compile(List.of(
         new SourceFile(deepSource.qualifiedName(), deepSource.source()),
+        new SourceFile(tableSource.qualifiedName(), tableSource.source()),
         new SourceFile(hugeSource.qualifiedName(), hugeSource.source()),
         new SourceFile("jit.Driver", driver())));
 
@@ -108,8 +112,15 @@ class HotSpotJitTest {
         .filter(n -> n.equals("classify") || n.matches("node\\d+")).toList();
     assertThat(treeMethods).hasSizeGreaterThan(10);
     assertThat(codeLength(classes, "jit.Huge", "classify")).isGreaterThan(8000);
-    System.out.printf(Locale.ROOT, "depth-14 branches: %d bytes, %d methods, largest %d bytes%n",
-        verified.classFileBytes(), methods.size(), verified.maxMethodBytes());
+    VerificationResult table = Verifier.create().withRandomProbes(500)
+        .check(deep, classes, tableSource, tableOptions, List.of(), 14);
+    assertThat(table.passed()).as(table.verdict()).isTrue();
+    assertThat(table.classFileBytes()).isLessThan(verified.classFileBytes());
+    System.out.printf(Locale.ROOT, "depth-14 tree: branches %d bytes (%d without debug), %d "
+        + "methods, largest %d bytes; table %d bytes (%d without debug), largest %d bytes%n",
+        verified.classFileBytes(), verified.classFileBytesWithoutDebug(), methods.size(),
+        verified.maxMethodBytes(), table.classFileBytes(), table.classFileBytesWithoutDebug(),
+        table.maxMethodBytes());
 
     TreeSet<String> compiled = compiledMethods(write(classes), "jit.Driver", List.of());
     for (String name : treeMethods) {
