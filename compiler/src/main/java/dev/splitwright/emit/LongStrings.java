@@ -58,8 +58,8 @@ final class LongStrings {
   }
 
   /**
-   * Bytes one char takes in a class file's modified UTF-8 (JVMS §4.4.7): NUL and U+0080-U+07FF two,
-   * U+0800 and up three (each half of a surrogate pair on its own).
+   * Bytes one char takes in a class file's modified UTF-8 (JVMS §4.4.7): NUL and U+0080-U+07FF
+   * two, U+0800 and up three (each half of a surrogate pair on its own).
    */
   static int modifiedUtf8Bytes(char c) {
     if (c != 0 && c < 0x80) {

@@ -142,9 +142,9 @@ final class TableWriter {
 
   private CodeBlock decoder(PackedInts data) {
     CodeBlock.Builder code = CodeBlock.builder()
-        .add("// Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or set\n")
-        .add("// offset) << 3 | 4 if categorical | 2 if missing goes left, then a numeric split's\n")
-        .add("// threshold, then the size of the left subtree.\n")
+        .add("// Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or\n")
+        .add("// set offset) << 3 | 4 if categorical | 2 if missing goes left, then a numeric\n")
+        .add("// split's threshold, then the size of the left subtree.\n")
         .addStatement("int[] tree = $L", StringTable.unpack(data))
         .addStatement("int at = 0")
         .beginControlFlow("for (int i = 0; i < $L; i++)", nodes.size())

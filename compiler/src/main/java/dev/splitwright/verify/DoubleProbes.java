@@ -17,7 +17,7 @@ import java.util.List;
  * the float neighbours alone, independently of the emitter.
  */
 final class DoubleProbes {
-  /** Halfway between {@code Float.MAX_VALUE} and 2^128: the doubles from here on round to infinity. */
+  /** Halfway between {@code Float.MAX_VALUE} and 2^128: from here on doubles round to infinity. */
   private static final double OVERFLOW = 0x1.ffffffp127;
 
   private static final double[] SPECIALS = {

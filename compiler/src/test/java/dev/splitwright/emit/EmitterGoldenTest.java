@@ -233,9 +233,9 @@ class EmitterGoldenTest {
             private static final int[] SETS = unpack("$&(", 3);
 
             static {
-                // Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or set
-                // offset) << 3 | 4 if categorical | 2 if missing goes left, then a numeric split's
-                // threshold, then the size of the left subtree.
+                // Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or
+                // set offset) << 3 | 4 if categorical | 2 if missing goes left, then a numeric
+                // split's threshold, then the size of the left subtree.
                 int[] tree = unpack("#ugXav(&)$$&%zXQjy($$&", 12);
                 int at = 0;
                 for (int i = 0; i < 7; i++) {
