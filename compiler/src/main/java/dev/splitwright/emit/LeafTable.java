@@ -78,7 +78,9 @@ final class LeafTable {
       return CodeBlock.of("");
     }
     support.need(SupportMethods.Kind.UNPACK);
+    support.need(SupportMethods.Kind.WORDS);
     PackedInts data = new PackedInts();
+    PackedWords shares = new PackedWords();
     int entries = 0;
     for (Leaf leaf : distinct) {
       data.add(leaf.prediction());
@@ -90,7 +92,8 @@ final class LeafTable {
       data.add(nonZero);
       for (int c = 0; c < p.length; c++) {
         if (p[c] != 0f) {
-          data.add(c).addFloat(p[c]);
+          data.add(c);
+          shares.addFloat(p[c]);
           entries++;
         }
       }
@@ -103,8 +106,10 @@ final class LeafTable {
         Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
         .initializer("new float[$L]", entries).build());
     return CodeBlock.builder()
-        .add("// Per distinct leaf: class, count of non-zero frequencies, (class, float bits).\n")
+        .add("// Per distinct leaf: its class, how many classes have a non-zero frequency,\n")
+        .add("// and those classes; the frequencies follow as IEEE 754 bits, in the same order.\n")
         .addStatement("int[] leaves = $L", StringTable.unpack(data))
+        .addStatement("int[] shares = $L", StringTable.words(shares))
         .addStatement("int next = 0")
         .addStatement("int j = 0")
         .beginControlFlow("for (int leaf = 0; leaf < $L; leaf++)", n)
@@ -112,7 +117,7 @@ final class LeafTable {
         .addStatement("PROBABILITY_START[leaf] = j")
         .beginControlFlow("for (int m = leaves[next++]; m > 0; m--, j++)")
         .addStatement("PROBABILITY_CLASS[j] = leaves[next++]")
-        .addStatement("PROBABILITY[j] = Float.intBitsToFloat(leaves[next++])")
+        .addStatement("PROBABILITY[j] = Float.intBitsToFloat(shares[j])")
         .endControlFlow()
         .endControlFlow()
         .addStatement("PROBABILITY_START[$L] = j", n)

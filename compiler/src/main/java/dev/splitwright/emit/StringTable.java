@@ -56,6 +56,11 @@ final class StringTable {
         numbers.count());
   }
 
+  /** {@code words("...", n)} for packed words. */
+  static CodeBlock words(PackedWords words) {
+    return CodeBlock.of("words($L, $L)", LongStrings.expression(words.text()), words.count());
+  }
+
   /** The decoder: {@code private static String[] strings(String text, int[] lengths)}. */
   static MethodSpec stringsMethod() {
     return MethodSpec.methodBuilder("strings")

@@ -15,7 +15,9 @@ final class SupportMethods {
     /** {@code strings(text, lengths)}. */
     STRINGS,
     /** {@code unpack(data, count)}. */
-    UNPACK
+    UNPACK,
+    /** {@code words(data, count)}. */
+    WORDS
   }
 
   private final InputKind input;
@@ -39,6 +41,7 @@ final class SupportMethods {
         case IN_SET_WIDE -> CategoryHelper.wide(input);
         case STRINGS -> StringTable.stringsMethod();
         case UNPACK -> PackedInts.unpackMethod();
+        case WORDS -> PackedWords.wordsMethod();
       });
     }
   }

@@ -35,7 +35,8 @@ final class TableWriter {
   private final SupportMethods support;
   private final LeafTable leaves;
   private final List<Node> nodes = new ArrayList<>();
-  private final List<Integer> leftSizes = new ArrayList<>();
+  /** The most splits on one root-to-leaf path as listed: the decoder's stack size. */
+  private int maxOpenSplits;
   private final Map<String, Integer> sets = new LinkedHashMap<>();
   private final PackedInts setData = new PackedInts();
 
@@ -53,29 +54,27 @@ final class TableWriter {
     SupportMethods support = new SupportMethods(input.kind());
     TypeSpec.Builder type = ClassScaffold.start(tree, options, header, support);
     TableWriter writer = new TableWriter(tree, options, input, type, support);
-    writer.collect(tree.root());
+    writer.collect(tree.root(), 0);
     writer.addTables();
     writer.addMethods();
     support.addTo(type);
     return ClassScaffold.finish(type.build(), options, header);
   }
 
-  /** Lists the nodes in pre-order; returns the size of the subtree as listed. */
-  private int collect(Node node) {
+  /** Lists the nodes in pre-order. */
+  private void collect(Node node, int depth) {
     if (node instanceof NumericSplit numeric && input.kind() == InputKind.INT
         && Thresholds.forInt(numeric.threshold()) == Long.MIN_VALUE) {
       // Below every int: each int input goes right, so the left side is left out.
-      return collect(numeric.right());
+      collect(numeric.right(), depth);
+      return;
     }
-    int at = nodes.size();
     nodes.add(node);
-    leftSizes.add(0);
-    if (!(node instanceof Split split)) {
-      return 1;
+    if (node instanceof Split split) {
+      maxOpenSplits = Math.max(maxOpenSplits, depth + 1);
+      collect(split.left(), depth + 1);
+      collect(split.right(), depth + 1);
     }
-    int left = collect(split.left());
-    leftSizes.set(at, left);
-    return 1 + left + collect(split.right());
   }
 
   private boolean hasCategorical() {
@@ -84,6 +83,7 @@ final class TableWriter {
 
   private void addTables() {
     PackedInts data = new PackedInts();
+    PackedWords thresholds = new PackedWords();
     for (int i = 0; i < nodes.size(); i++) {
       Node node = nodes.get(i);
       if (node instanceof Leaf leaf) {
@@ -96,14 +96,13 @@ final class TableWriter {
         data.add((split.feature() << 3) | missing);
         float t = numeric.threshold();
         switch (input.kind()) {
-          case FLOAT -> data.addFloat(t);
-          case DOUBLE -> data.addDouble(Thresholds.forDouble(t));
+          case FLOAT -> thresholds.addFloat(t);
+          case DOUBLE -> thresholds.addDouble(Thresholds.forDouble(t));
           case INT -> data.addSigned((int) Thresholds.forInt(t));
         }
       } else {
         data.add((setOffset((CategoricalSplit) split) << 3) | 4 | missing);
       }
-      data.add(leftSizes.get(i));
     }
     int n = nodes.size();
     type.addField(array("NODE", TypeName.INT, n,
@@ -121,8 +120,11 @@ final class TableWriter {
           .build());
     }
     support.need(SupportMethods.Kind.UNPACK);
+    if (thresholds.count() > 0) {
+      support.need(SupportMethods.Kind.WORDS);
+    }
     CodeBlock leafInit = leaves.addFields(type, support);
-    type.addStaticBlock(CodeBlock.builder().add(decoder(data)).add(leafInit).build());
+    type.addStaticBlock(CodeBlock.builder().add(decoder(data, thresholds)).add(leafInit).build());
   }
 
   private int setOffset(CategoricalSplit split) {
@@ -140,14 +142,31 @@ final class TableWriter {
     return at;
   }
 
-  private CodeBlock decoder(PackedInts data) {
+  /**
+   * Decodes the nodes. Pre-order with leaves marked fixes the shape, so no child index is stored:
+   * a split's left child is the next node, and the node after a leaf is the right child of the
+   * latest split whose right child is still open.
+   */
+  private CodeBlock decoder(PackedInts data, PackedWords thresholds) {
     CodeBlock.Builder code = CodeBlock.builder()
         .add("// Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or\n")
-        .add("// set offset) << 3 | 4 if categorical | 2 if missing goes left, then a numeric\n")
-        .add("// split's threshold, then the size of the left subtree.\n")
-        .addStatement("int[] tree = $L", StringTable.unpack(data))
+        .add("// set offset) << 3 | 4 if categorical | 2 if missing goes left$L.\n",
+            input.kind() == InputKind.INT ? ", then its threshold if numeric" : "")
+        .add("// After a leaf comes the right child of the latest split still open.\n")
+        .addStatement("int[] tree = $L", StringTable.unpack(data));
+    if (thresholds.count() > 0) {
+      code.add("// Thresholds of the numeric splits in order, as IEEE 754 bits.\n")
+          .addStatement("int[] bits = $L", StringTable.words(thresholds))
+          .addStatement("int word = 0");
+    }
+    code
+        .addStatement("int[] open = new int[$L]", Math.max(1, maxOpenSplits))
+        .addStatement("int top = 0")
         .addStatement("int at = 0")
         .beginControlFlow("for (int i = 0; i < $L; i++)", nodes.size())
+        .beginControlFlow("if (i > 0 && NODE[i - 1] < 0)")
+        .addStatement("RIGHT[open[--top]] = i")
+        .endControlFlow()
         .addStatement("int head = tree[at++]")
         .beginControlFlow("if ((head & 1) != 0)")
         .addStatement("NODE[i] = ~(head >>> 1)")
@@ -158,9 +177,9 @@ final class TableWriter {
       code.beginControlFlow("if ((head & 4) == 0)");
     }
     switch (input.kind()) {
-      case FLOAT -> code.addStatement("THRESHOLD[i] = Float.intBitsToFloat(tree[at++])");
-      case DOUBLE -> code.addStatement("long high = tree[at++]")
-          .addStatement("THRESHOLD[i] = Double.longBitsToDouble(high << 32 | (tree[at++] & "
+      case FLOAT -> code.addStatement("THRESHOLD[i] = Float.intBitsToFloat(bits[word++])");
+      case DOUBLE -> code.addStatement("long high = bits[word++]")
+          .addStatement("THRESHOLD[i] = Double.longBitsToDouble(high << 32 | (bits[word++] & "
               + "0xffffffffL))");
       case INT -> code.addStatement("int zigzag = tree[at++]")
           .addStatement("THRESHOLD[i] = (zigzag >>> 1) ^ -(zigzag & 1)");
@@ -168,7 +187,7 @@ final class TableWriter {
     if (categorical) {
       code.endControlFlow();
     }
-    return code.addStatement("RIGHT[i] = i + 1 + tree[at++]")
+    return code.addStatement("open[top++] = i")
         .endControlFlow()
         .endControlFlow()
         .build();

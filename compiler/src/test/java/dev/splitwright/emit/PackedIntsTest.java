@@ -3,6 +3,7 @@ package dev.splitwright.emit;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import com.palantir.javapoet.JavaFile;
+import com.palantir.javapoet.MethodSpec;
 import com.palantir.javapoet.TypeSpec;
 import dev.splitwright.check.InMemoryCompiler;
 import dev.splitwright.verify.Verifier;
@@ -65,16 +66,38 @@ class PackedIntsTest {
     assertThat(Double.longBitsToDouble(bits)).isEqualTo(-0.1);
   }
 
-  /** Compiles the emitted {@code unpack} into a class and runs it on the packed text. */
+  @Test
+  void wordsTakeFiveSymbolsAndTheEmittedDecoderReadsThemBack() throws Exception {
+    // 90^5 = 5,904,900,000 > 2^32 (worked by hand), so five symbols hold any word.
+    PackedWords words = new PackedWords();
+    List<Integer> values = new ArrayList<>(List.of(0, 1, 89, 90, -1, Integer.MIN_VALUE,
+        Integer.MAX_VALUE, Float.floatToRawIntBits(Float.MIN_VALUE)));
+    SplittableRandom random = new SplittableRandom(9);
+    for (int i = 0; i < 5000; i++) {
+      values.add(random.nextInt());
+    }
+    values.forEach(words::add);
+    assertThat(words.text()).hasSize(5 * values.size());
+
+    int[] decoded = decode(PackedWords.wordsMethod(), words.text(), words.count());
+
+    assertThat(decoded).containsExactly(values.stream().mapToInt(Integer::intValue).toArray());
+  }
+
   private static int[] decode(PackedInts packed) throws Exception {
-    TypeSpec type = TypeSpec.classBuilder("Unpack").addModifiers(Modifier.PUBLIC)
-        .addMethod(PackedInts.unpackMethod())
+    return decode(PackedInts.unpackMethod(), packed.text(), packed.count());
+  }
+
+  /** Compiles an emitted decoder into a class and runs it on the packed text. */
+  private static int[] decode(MethodSpec decoder, String text, int count) throws Exception {
+    TypeSpec type = TypeSpec.classBuilder("Decode").addModifiers(Modifier.PUBLIC)
+        .addMethod(decoder)
         .build();
     String source = JavaFile.builder("packed", type).build().toString();
     InMemoryCompiler javac = InMemoryCompiler.create(Verifier.JAVAC_OPTIONS);
-    Method method = javac.compileOne("packed.Unpack", source).load("packed.Unpack")
-        .getDeclaredMethod("unpack", String.class, int.class);
+    Method method = javac.compileOne("packed.Decode", source).load("packed.Decode")
+        .getDeclaredMethod(decoder.name(), String.class, int.class);
     method.setAccessible(true);
-    return (int[]) method.invoke(null, packed.text(), packed.count());
+    return (int[]) method.invoke(null, text, count);
   }
 }
