@@ -78,10 +78,18 @@ final class LeafTable {
       return CodeBlock.of("");
     }
     support.need(SupportMethods.Kind.UNPACK);
-    support.need(SupportMethods.Kind.WORDS);
     PackedInts data = new PackedInts();
     PackedWords shares = new PackedWords();
     int entries = 0;
+    for (Leaf leaf : distinct) {
+      for (float v : frequencies(leaf.counts())) {
+        entries += v != 0f ? 1 : 0;
+      }
+    }
+    boolean words = entries >= PackedWords.WORTHWHILE;
+    if (words) {
+      support.need(SupportMethods.Kind.WORDS);
+    }
     for (Leaf leaf : distinct) {
       data.add(leaf.prediction());
       float[] p = frequencies(leaf.counts());
@@ -93,8 +101,11 @@ final class LeafTable {
       for (int c = 0; c < p.length; c++) {
         if (p[c] != 0f) {
           data.add(c);
-          shares.addFloat(p[c]);
-          entries++;
+          if (words) {
+            shares.addFloat(p[c]);
+          } else {
+            data.addFloat(p[c]);
+          }
         }
       }
     }
@@ -107,9 +118,12 @@ final class LeafTable {
         .initializer("new float[$L]", entries).build());
     return CodeBlock.builder()
         .add("// Per distinct leaf: its class, how many classes have a non-zero frequency,\n")
-        .add("// and those classes; the frequencies follow as IEEE 754 bits, in the same order.\n")
+        .add(words ? "// and those classes; their frequencies follow as IEEE 754 bits in order.\n"
+            : "// and for each such class its index and frequency as IEEE 754 bits.\n")
         .addStatement("int[] leaves = $L", StringTable.unpack(data))
-        .addStatement("int[] shares = $L", StringTable.words(shares))
+        .add(words ? CodeBlock.builder()
+            .addStatement("int[] shares = $L", StringTable.words(shares)).build()
+            : CodeBlock.of(""))
         .addStatement("int next = 0")
         .addStatement("int j = 0")
         .beginControlFlow("for (int leaf = 0; leaf < $L; leaf++)", n)
@@ -117,7 +131,8 @@ final class LeafTable {
         .addStatement("PROBABILITY_START[leaf] = j")
         .beginControlFlow("for (int m = leaves[next++]; m > 0; m--, j++)")
         .addStatement("PROBABILITY_CLASS[j] = leaves[next++]")
-        .addStatement("PROBABILITY[j] = Float.intBitsToFloat(shares[j])")
+        .addStatement("PROBABILITY[j] = Float.intBitsToFloat($L)",
+            words ? "shares[j]" : "leaves[next++]")
         .endControlFlow()
         .endControlFlow()
         .addStatement("PROBABILITY_START[$L] = j", n)

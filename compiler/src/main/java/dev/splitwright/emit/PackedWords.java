@@ -13,6 +13,12 @@ import javax.lang.model.element.Modifier;
 final class PackedWords {
   static final int BASE = 2 * PackedInts.BASE;
   static final int SYMBOLS = 5;
+  /**
+   * Fewest words for which a separate word stream pays: its decoder costs about 300 class-file
+   * bytes (code, line numbers, stack map, constants; measured on the demo model) and each word
+   * saves one byte against {@link PackedInts}.
+   */
+  static final int WORTHWHILE = 300;
 
   private final StringBuilder text = new StringBuilder();
   private int count;

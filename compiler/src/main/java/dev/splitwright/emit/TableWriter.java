@@ -84,6 +84,9 @@ final class TableWriter {
   private void addTables() {
     PackedInts data = new PackedInts();
     PackedWords thresholds = new PackedWords();
+    long wordCount = nodes.stream().filter(n -> n instanceof NumericSplit).count()
+        * (input.kind() == InputKind.DOUBLE ? 2 : 1);
+    boolean words = input.kind() != InputKind.INT && wordCount >= PackedWords.WORTHWHILE;
     for (int i = 0; i < nodes.size(); i++) {
       Node node = nodes.get(i);
       if (node instanceof Leaf leaf) {
@@ -96,8 +99,20 @@ final class TableWriter {
         data.add((split.feature() << 3) | missing);
         float t = numeric.threshold();
         switch (input.kind()) {
-          case FLOAT -> thresholds.addFloat(t);
-          case DOUBLE -> thresholds.addDouble(Thresholds.forDouble(t));
+          case FLOAT -> {
+            if (words) {
+              thresholds.addFloat(t);
+            } else {
+              data.addFloat(t);
+            }
+          }
+          case DOUBLE -> {
+            if (words) {
+              thresholds.addDouble(Thresholds.forDouble(t));
+            } else {
+              data.addDouble(Thresholds.forDouble(t));
+            }
+          }
           case INT -> data.addSigned((int) Thresholds.forInt(t));
         }
       } else {
@@ -150,8 +165,10 @@ final class TableWriter {
   private CodeBlock decoder(PackedInts data, PackedWords thresholds) {
     CodeBlock.Builder code = CodeBlock.builder()
         .add("// Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or\n")
-        .add("// set offset) << 3 | 4 if categorical | 2 if missing goes left$L.\n",
-            input.kind() == InputKind.INT ? ", then its threshold if numeric" : "")
+        .add(thresholds.count() > 0
+            ? "// set offset) << 3 | 4 if categorical | 2 if missing goes left.\n"
+            : "// set offset) << 3 | 4 if categorical | 2 if missing goes left, then its\n"
+                + "// threshold if numeric.\n")
         .add("// After a leaf comes the right child of the latest split still open.\n")
         .addStatement("int[] tree = $L", StringTable.unpack(data));
     if (thresholds.count() > 0) {
@@ -176,11 +193,12 @@ final class TableWriter {
     if (categorical) {
       code.beginControlFlow("if ((head & 4) == 0)");
     }
+    String next = thresholds.count() > 0 ? "bits[word++]" : "tree[at++]";
     switch (input.kind()) {
-      case FLOAT -> code.addStatement("THRESHOLD[i] = Float.intBitsToFloat(bits[word++])");
-      case DOUBLE -> code.addStatement("long high = bits[word++]")
-          .addStatement("THRESHOLD[i] = Double.longBitsToDouble(high << 32 | (bits[word++] & "
-              + "0xffffffffL))");
+      case FLOAT -> code.addStatement("THRESHOLD[i] = Float.intBitsToFloat($L)", next);
+      case DOUBLE -> code.addStatement("long high = $L", next)
+          .addStatement("THRESHOLD[i] = Double.longBitsToDouble(high << 32 | ($L & 0xffffffffL))",
+              next);
       case INT -> code.addStatement("int zigzag = tree[at++]")
           .addStatement("THRESHOLD[i] = (zigzag >>> 1) ^ -(zigzag & 1)");
     }

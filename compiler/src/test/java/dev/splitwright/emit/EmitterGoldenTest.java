@@ -37,14 +37,13 @@ class EmitterGoldenTest {
 
   @Test
   void packedTablesDecodeByHandToTheTree() {
-    // Worked by hand from the symbols in PackedInts ('#' = 0 ... '[' = 56, ']' = 57 ... '}' = 89).
-    // Heads in pre-order: '#' 0 = root on feature 0, numeric, missing right; ')' 6 = categorical
-    // set at offset 0, missing left; '$' 1 and '&' 3 = leaves of class 0 and 1; '%' 2 = numeric
-    // on feature 0, missing left; then the leaves 0 and 1 again.
-    assertThat(TABLE).contains("unpack(\"#)$&%$&\", 7)");
-    // The first word, base 90: 36 + 56*90 + 69*90^2 + 35*90^3 + 16*90^4 = 1075838976 =
-    // 0x40200000, the IEEE 754 binary32 bits of 2.5f.
-    assertThat(TABLE).contains("words(\"G[iF3");
+    // Worked by hand from the symbols in PackedInts ('#' = 0 ... '[' = 56, ']' = 57 ... '}' = 89,
+    // a digit of 45 or more continues the number). In pre-order: '#' 0 = root on feature 0,
+    // numeric, missing right, then its threshold "ugXav(" = 36 + 22*45 + 8*45^2 + 16*45^3 +
+    // 37*45^4 + 5*45^5 = 1075838976 = 0x40200000, the IEEE 754 binary32 bits of 2.5f; ')' 6 =
+    // categorical, set at offset 0, missing left; '$' 1 and '&' 3 = leaves of class 0 and 1;
+    // '%' 2 = numeric on feature 0, missing left, 7.25f; the leaves 0 and 1 again.
+    assertThat(TABLE).contains("unpack(\"#ugXav()$&%zXQjy($&\", 9)");
     assertThat(Float.floatToIntBits(2.5f)).isEqualTo(1075838976);
     // The set: feature 1, k = 3 categories, bit word 0b101 = {auto, service}.
     assertThat(TABLE).contains("unpack(\"$&(\", 3)");
@@ -239,12 +238,10 @@ class EmitterGoldenTest {
 
             static {
                 // Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or
-                // set offset) << 3 | 4 if categorical | 2 if missing goes left.
+                // set offset) << 3 | 4 if categorical | 2 if missing goes left, then its
+                // threshold if numeric.
                 // After a leaf comes the right child of the latest split still open.
-                int[] tree = unpack("#)$&%$&", 7);
-                // Thresholds of the numeric splits in order, as IEEE 754 bits.
-                int[] bits = words("G[iF3zkgX3", 2);
-                int word = 0;
+                int[] tree = unpack("#ugXav()$&%zXQjy($&", 9);
                 int[] open = new int[2];
                 int top = 0;
                 int at = 0;
@@ -258,7 +255,7 @@ class EmitterGoldenTest {
                     } else {
                         NODE[i] = head >>> 1;
                         if ((head & 4) == 0) {
-                            THRESHOLD[i] = Float.intBitsToFloat(bits[word++]);
+                            THRESHOLD[i] = Float.intBitsToFloat(tree[at++]);
                         }
                         open[top++] = i;
                     }
@@ -346,23 +343,6 @@ class EmitterGoldenTest {
                         scale *= 45;
                         digit = data.charAt(at++) - 35;
                     }
-                }
-                return out;
-            }
-
-            /**
-             * Decodes {@code count} 32-bit words of 5 base-90 digits each, least significant first.
-             */
-            private static int[] words(String data, int count) {
-                int[] out = new int[count];
-                int at = 0;
-                for (int i = 0; i < count; i++) {
-                    int value = 0;
-                    for (int k = 0, scale = 1; k < 5; k++, scale *= 90) {
-                        int digit = data.charAt(at++) - 35;
-                        value += (digit > 57 ? digit - 1 : digit) * scale;
-                    }
-                    out[i] = value;
                 }
                 return out;
             }

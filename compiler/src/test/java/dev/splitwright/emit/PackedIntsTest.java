@@ -78,6 +78,8 @@ class PackedIntsTest {
     }
     values.forEach(words::add);
     assertThat(words.text()).hasSize(5 * values.size());
+    // Worked by hand: 1075838976 (2.5f) = 36 + 56*90 + 69*90^2 + 35*90^3 + 16*90^4.
+    assertThat(new PackedWords().addFloat(2.5f).text()).isEqualTo("G[iF3");
 
     int[] decoded = decode(PackedWords.wordsMethod(), words.text(), words.count());
 
