@@ -49,6 +49,7 @@ public final class CompileJob {
    */
   public CompileResult run(CompileRequest request) throws InputException, IOException {
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
+    DataChecks.trainingData(request, loaded);
     Parts parts = split(loaded.dataset(), request);
     DecisionTree tree = request.model().isPresent()
         ? ModelFile.read(request.model().get())
@@ -102,7 +103,9 @@ public final class CompileJob {
     double[] f = request.fractions();
     if (request.testData().isPresent()) {
       Path testFile = request.testData().get();
-      Dataset test = CsvLoader.loadWithSchema(testFile, data.schema(), request.load()).dataset();
+      LoadedData testLoaded = CsvLoader.loadWithSchema(testFile, data.schema(), request.load());
+      DataChecks.evaluationData(request, testFile, testLoaded);
+      Dataset test = testLoaded.dataset();
       double trainShare = f[0] / (f[0] + f[1]);
       SplitParts p =
           StratifiedSplit.split(data, trainShare, 1 - trainShare, 0, request.seed());

@@ -10,6 +10,7 @@ import dev.splitwright.check.OracleComparison;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
+import dev.splitwright.emit.InputKind;
 import dev.splitwright.model.DecisionTree;
 import java.util.ArrayList;
 import java.util.List;
@@ -18,7 +19,10 @@ import java.util.Objects;
 /**
  * Proves an emitted classifier returns what the model returns: compiles the source in memory,
  * loads it in a fresh class loader and compares {@code classify} with {@link DecisionTree#predict}
- * on every data row, on boundary probes for every split and on seeded random inputs.
+ * on every data row, on boundary probes for every split and on seeded random inputs. A classifier
+ * taking {@code int} inputs is also checked on int boundary probes ({@link IntProbes}): each
+ * threshold's integer neighbours and the int extremes, with the model asked about their float
+ * conversions.
  */
 public final class Verifier {
   /** The javac options a user's build would use; the class file measured is the one they get. */
@@ -63,7 +67,7 @@ public final class Verifier {
     EmittedClassifier candidate;
     try {
       candidate = EmittedClassifier.of(classes.load(source.qualifiedName()), options,
-          tree.schema().featureCount());
+          tree.schema());
     } catch (ReflectiveOperationException e) {
       throw new IllegalStateException("emitted class has no usable classify method", e);
     }
@@ -79,11 +83,29 @@ public final class Verifier {
     for (Mismatch<float[], Integer> m : result.firstMismatches()) {
       mismatches.add(m.describe());
     }
+    long checked = result.checked();
+    long mismatchCount = result.mismatchCount();
+    if (options.inputKind() == InputKind.INT) {
+      List<int[]> ints = IntProbes.of(tree);
+      for (int[] x : ints) {
+        coverage.record(EmittedClassifier.modelInput(x));
+      }
+      ComparisonResult<int[], Integer> intResult = OracleComparison.compare(ints,
+          candidate::classifyInts, x -> tree.predict(EmittedClassifier.modelInput(x)),
+          REPORTED_MISMATCHES);
+      for (Mismatch<int[], Integer> m : intResult.firstMismatches()) {
+        if (mismatches.size() < REPORTED_MISMATCHES) {
+          mismatches.add("int probe " + m.describe());
+        }
+      }
+      checked += intResult.checked();
+      mismatchCount += intResult.mismatchCount();
+    }
     String self = source.qualifiedName().replace('.', '/');
     List<String> foreign = info.referencedClasses().stream()
         .filter(name -> !name.equals(self) && !isJavaLang(name))
         .toList();
-    return new VerificationResult(result.checked(), result.mismatchCount(), mismatches,
+    return new VerificationResult(checked, mismatchCount, mismatches,
         coverage.splits(), coverage.covered(), bytes.length, info.debugAttributeBytes(),
         info.maxCodeLength(), options.maxMethodBytes(), info.methods(), info.constantPoolCount(),
         foreign);
