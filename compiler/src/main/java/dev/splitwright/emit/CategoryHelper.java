@@ -20,7 +20,7 @@ final class CategoryHelper {
     MethodSpec.Builder m = start(kind).addParameter(TypeName.LONG, "mask")
         .addParameter(TypeName.BOOLEAN, "missingLeft");
     return m.beginControlFlow("if ($L)", validCode(kind))
-        .addStatement("return ((mask >>> (int) v) & 1L) != 0L")
+        .addStatement("return ((mask >>> $L) & 1L) != 0L", code(kind))
         .endControlFlow()
         .addStatement("return missingLeft")
         .build();
@@ -31,7 +31,7 @@ final class CategoryHelper {
     MethodSpec.Builder m = start(kind).addParameter(ArrayTypeName.of(TypeName.LONG), "masks")
         .addParameter(TypeName.BOOLEAN, "missingLeft");
     return m.beginControlFlow("if ($L)", validCode(kind))
-        .addStatement("int code = (int) v")
+        .addStatement("int code = $L", code(kind))
         .addStatement("return ((masks[code >>> 6] >>> (code & 63)) & 1L) != 0L")
         .endControlFlow()
         .addStatement("return missingLeft")
@@ -49,6 +49,11 @@ final class CategoryHelper {
         .returns(TypeName.BOOLEAN)
         .addParameter(valueType, "v")
         .addParameter(TypeName.INT, "k");
+  }
+
+  /** The code as an int; a cast of an int would be a javac -Xlint "redundant cast" warning. */
+  private static String code(InputKind kind) {
+    return kind == InputKind.INT ? "v" : "(int) v";
   }
 
   private static String validCode(InputKind kind) {
