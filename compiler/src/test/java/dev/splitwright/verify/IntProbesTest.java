@@ -17,6 +17,7 @@ import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -138,7 +139,7 @@ class IntProbesTest {
   void verifiesIntClassifierWithMoreThanSixtyFourCategories() throws Exception {
     List<String> codes = new ArrayList<>();
     for (int i = 0; i < 70; i++) {
-      codes.add(String.format(java.util.Locale.ROOT, "c%02d", i));
+      codes.add(String.format(Locale.ROOT, "c%02d", i));
     }
     Schema schema = new Schema(List.of(Feature.categorical("site", codes)), "state",
         List.of("ok", "fault"));
