@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
@@ -12,12 +13,12 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(
     name = "demo",
     mixinStandardHelpOptions = true,
-    description = "Writes a seeded, invented demo data set as CSV: 'pump' (field pump vibration "
-        + "monitor) or 'gesture' (wrist-worn gesture band).")
+    description = "Writes a seeded, invented demo data set as CSV: 'pump-vibration' (field pump vibration "
+        + "monitor) or 'gesture-band' (wrist-worn gesture band).")
 final class DemoCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
-  @Option(names = "--scenario", required = true, paramLabel = "pump|gesture")
+  @Option(names = "--scenario", required = true, paramLabel = "pump-vibration|gesture-band")
   String scenario;
 
   @Option(names = "--rows", defaultValue = "3000", paramLabel = "N")
@@ -34,6 +35,14 @@ final class DemoCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    if (!DemoData.scenarios().contains(scenario)) {
+      throw new ParameterException(spec.commandLine(), "option '--scenario' must be one of "
+          + String.join(", ", DemoData.scenarios()) + ", but it is '" + scenario + "'");
+    }
+    if (rows < 1) {
+      throw new ParameterException(spec.commandLine(),
+          "option '--rows' must be at least 1, but it is " + rows);
+    }
     DemoData.write(scenario, out, rows, seed);
     spec.commandLine().getOut().println("wrote " + out);
     return ExitCodes.OK;

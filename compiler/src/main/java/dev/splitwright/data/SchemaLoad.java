@@ -79,6 +79,7 @@ final class SchemaLoad {
       float[][] values = new float[columns.length][];
       for (int f = 0; f < columns.length; f++) {
         values[f] = columns[f].toArray();
+        columns[f] = null; // frees the growth slack before the next column is copied
       }
       return new LoadedData(
           Dataset.wrap(schema, values, labels.toArray()),

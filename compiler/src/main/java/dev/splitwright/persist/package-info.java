@@ -1,0 +1,4 @@
+/**
+ * Splitwright's JSON model file: write a trained tree, read it back to re-emit without retraining.
+ */
+package dev.splitwright.persist;

@@ -1,0 +1,4 @@
+/**
+ * The report written beside each classifier: its JSON form and rendering.
+ */
+package dev.splitwright.report;

@@ -1,0 +1,85 @@
+package dev.splitwright.samples;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.fail;
+
+import dev.splitwright.cli.Main;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
+
+/**
+ * Regenerates each committed sample from its CSV with its recorded command line and compares the
+ * source, report and frontier SVG byte for byte. Refresh after an intended change with {@value
+ * #REFRESH} and review the diff before committing; CI never refreshes.
+ */
+class SampleGoldenTest {
+  static final String REFRESH = "mvn -B -pl generated-samples -am test -Dtest=SampleGoldenTest "
+      + "-Dsurefire.failIfNoSpecifiedTests=false -Dgolden.update=true";
+
+  private static final boolean UPDATE = Boolean.getBoolean("golden.update");
+
+  @TempDir Path temp;
+
+  @ParameterizedTest
+  @ValueSource(strings = {"pump-monitor", "gesture-band"})
+  void regeneratedSampleMatchesTheCommittedFiles(String sample) throws IOException {
+    List<String> args = new ArrayList<>(recordedArgs(sample));
+    args.add("--out");
+    args.add(temp.toString());
+    StringWriter out = new StringWriter();
+    StringWriter err = new StringWriter();
+    int code = Main.run(args.toArray(new String[0]), new PrintWriter(out), new PrintWriter(err));
+    assertThat(code).as("splitwright %s failed: %s", String.join(" ", args), err).isZero();
+
+    List<Path> produced = files(temp);
+    assertThat(produced).as("files written for %s", sample).hasSize(3);
+    StringBuilder diffs = new StringBuilder();
+    for (Path rel : produced) {
+      Path committed = committedPlace(rel);
+      String actual = Files.readString(temp.resolve(rel), StandardCharsets.UTF_8);
+      if (UPDATE) {
+        Files.createDirectories(committed.getParent());
+        Files.writeString(committed, actual, StandardCharsets.UTF_8);
+        continue;
+      }
+      String expected = Files.exists(committed)
+          ? Files.readString(committed, StandardCharsets.UTF_8) : "";
+      if (!expected.equals(actual)) {
+        diffs.append(UnifiedDiff.of(committed.toString(), expected, "regenerated " + rel, actual));
+      }
+    }
+    if (diffs.length() > 0) {
+      fail("sample '%s' no longer matches its committed files:%n%s%nIf the change is intended, "
+          + "refresh the goldens with:%n  %s%nand review the diff.", sample, diffs, REFRESH);
+    }
+  }
+
+  /** The sample's command line: one argument a line, '#' comments; paths are module-relative. */
+  private static List<String> recordedArgs(String sample) throws IOException {
+    return Files.readAllLines(Path.of("commands", sample + ".args"), StandardCharsets.UTF_8)
+        .stream().map(String::strip).filter(l -> !l.isEmpty() && !l.startsWith("#")).toList();
+  }
+
+  /** Sources live in the module's source tree; reports and pictures in {@code reports/}. */
+  private static Path committedPlace(Path relative) {
+    return relative.toString().endsWith(".java")
+        ? Path.of("src/main/java").resolve(relative)
+        : Path.of("reports").resolve(relative.getFileName());
+  }
+
+  private static List<Path> files(Path root) throws IOException {
+    try (Stream<Path> walk = Files.walk(root)) {
+      return walk.filter(Files::isRegularFile).map(root::relativize).sorted().toList();
+    }
+  }
+}
