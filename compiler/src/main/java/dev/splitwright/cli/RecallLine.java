@@ -26,8 +26,11 @@ final class RecallLine {
     if (last == null) {
       return Optional.empty();
     }
-    List<String> classes = result.tree().schema().classes();
-    Scores scores = last.getValue();
+    return Optional.of(format(last.getKey(), result.tree().schema().classes(), last.getValue()));
+  }
+
+  /** The line for one part's scores. */
+  static String format(String part, List<String> classes, Scores scores) {
     // A class with no rows in the part has no recall; it sorts last and prints as "n/a".
     double[] recall = new double[classes.size()];
     for (int c = 0; c < recall.length; c++) {
@@ -52,7 +55,7 @@ final class RecallLine {
       parts.add(classes.get(c) + " "
           + (Double.isNaN(recall[c]) ? "n/a" : String.format(Locale.ROOT, "%.3f", recall[c])));
     }
-    return Optional.of(String.format(Locale.ROOT, "%-10s recall per class: %s%s", last.getKey(),
-        String.join(", ", parts), more));
+    return String.format(Locale.ROOT, "%-10s recall per class: %s%s", part,
+        String.join(", ", parts), more);
   }
 }
