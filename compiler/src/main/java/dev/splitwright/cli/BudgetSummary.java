@@ -2,6 +2,7 @@ package dev.splitwright.cli;
 
 import dev.splitwright.select.SearchStats;
 import dev.splitwright.select.SelectionReport;
+import dev.splitwright.select.Setting;
 import java.io.PrintWriter;
 import java.util.Locale;
 
@@ -11,10 +12,16 @@ final class BudgetSummary {
 
   static void print(PrintWriter out, SelectionReport selection, SearchStats stats) {
     SelectionReport.Chosen c = selection.chosen();
-    out.printf(Locale.ROOT, "budget: %d bytes (%s); chosen max-depth %d, min-leaf %d, alpha %.6g "
-        + "(depth %d, %d leaves): %d bytes, validation %s %.4f%n", selection.budget(),
-        selection.budgetUnit(), c.maxDepth(), c.minLeaf(), c.alpha(), c.depth(), c.leaves(),
-        c.size(), selection.metric(), c.validationScore());
+    out.printf(Locale.ROOT, "budget: %d bytes (%s); chosen max-depth %d, min-leaf %d, alpha %s "
+        + "(depth %d, %d leaves): %d bytes, %s %s %.4f%n", selection.budget(),
+        selection.budgetUnit(), c.maxDepth(), c.minLeaf(), Setting.formatAlpha(c.alpha()),
+        c.depth(), c.leaves(), c.size(), selection.scoredOn(), selection.metric(),
+        c.validationScore());
+    if (selection.budgetUnit().equals("class")) {
+      out.printf(Locale.ROOT, "budget: the class file weighs %d bytes with javac -g:none and %d "
+          + "with -g (a default Maven build)%n", c.classFileBytesNoDebug(),
+          c.classFileBytesFullDebug());
+    }
     for (String fallback : selection.fallbacks()) {
       out.println("budget: " + fallback);
     }

@@ -56,12 +56,15 @@ public final class FrontierSvg {
 
   private FrontierSvg(Chart chart) {
     this.chart = chart;
+    // The size axis spans the frontier and the budget, not zero: the detail is in between.
+    int smallest = Math.min(chart.budget(), chart.frontier().get(0).size());
     int largest = Math.max(chart.budget(), chart.frontier().get(chart.frontier().size() - 1).size());
-    this.x = Scale.of(0, largest * 1.05, LEFT, WIDTH - RIGHT);
+    double margin = (largest - smallest) * 0.05 + 1;
+    this.x = Scale.of(Math.max(0, smallest - margin), largest + margin, LEFT, WIDTH - RIGHT);
     double low = chart.chosen().score();
     double high = low;
     for (Dot d : chart.candidates()) {
-      if (d.size() <= x.max) {
+      if (x.contains(d.size())) {
         low = Math.min(low, d.score());
         high = Math.max(high, d.score());
       }
@@ -139,7 +142,7 @@ public final class FrontierSvg {
   private void candidates() {
     line("  <g fill=\"#9a9a9a\" fill-opacity=\"0.6\">");
     for (Dot d : chart.candidates()) {
-      if (d.size() <= x.max) {
+      if (x.contains(d.size())) {
         line("    <circle cx=\"%s\" cy=\"%s\" r=\"2.2\"/>", num(x.map(d.size())),
             num(y.map(d.score())));
       }
@@ -170,7 +173,7 @@ public final class FrontierSvg {
     String bx = num(x.map(chart.budget()));
     line("  <line x1=\"%s\" y1=\"%d\" x2=\"%s\" y2=\"%d\" stroke=\"#c62828\" stroke-width=\"1.5\""
         + " stroke-dasharray=\"6 4\"/>", bx, TOP, bx, HEIGHT - BOTTOM);
-    line("  <text x=\"%s\" y=\"%d\" fill=\"#c62828\" text-anchor=\"end\">budget %d</text>",
+    line("  <text x=\"%s\" y=\"%d\" fill=\"#c62828\" text-anchor=\"end\">budget %d B</text>",
         num(x.map(chart.budget()) - 4), TOP + 12, chart.budget());
   }
 
@@ -180,26 +183,32 @@ public final class FrontierSvg {
     double cy = y.map(c.score());
     line("  <circle cx=\"%s\" cy=\"%s\" r=\"7\" fill=\"none\" stroke=\"#2e7d32\""
         + " stroke-width=\"2.2\"/>", num(cx), num(cy));
+    // Below the point, where the rising frontier is not; a white halo keeps it readable.
     boolean leftOfCentre = cx < (LEFT + WIDTH - RIGHT) / 2.0;
-    line("  <text x=\"%s\" y=\"%s\" fill=\"#2e7d32\" text-anchor=\"%s\">chosen: %d, %s</text>",
-        num(cx + (leftOfCentre ? 10 : -10)), num(cy + 18), leftOfCentre ? "start" : "end",
+    line("  <text x=\"%s\" y=\"%s\" fill=\"#2e7d32\" text-anchor=\"%s\" stroke=\"#ffffff\""
+        + " stroke-width=\"4\" paint-order=\"stroke\">chosen: %d B, %s</text>",
+        num(cx + (leftOfCentre ? 6 : -6)), num(cy + 24), leftOfCentre ? "start" : "end",
         c.size(), String.format(Locale.ROOT, "%.4f", c.score()));
   }
 
   private void legend() {
-    int lx = WIDTH - RIGHT - 190;
-    int ly = HEIGHT - BOTTOM - 62;
+    int lx = WIDTH - RIGHT - 170;
+    int ly = HEIGHT - BOTTOM - 82;
     line("  <g font-size=\"11\">");
-    line("    <rect x=\"%d\" y=\"%d\" width=\"182\" height=\"56\" fill=\"#ffffff\""
-        + " fill-opacity=\"0.85\" stroke=\"#cccccc\"/>", lx - 6, ly - 4);
-    line("    <circle cx=\"%d\" cy=\"%d\" r=\"2.2\" fill=\"#9a9a9a\"/>", lx + 6, ly + 8);
-    line("    <text x=\"%d\" y=\"%d\">candidate</text>", lx + 18, ly + 12);
-    line("    <line x1=\"%d\" y1=\"%d\" x2=\"%d\" y2=\"%d\" stroke=\"#1f5fbf\" stroke-width=\"1.8\"/>",
-        lx, ly + 24, lx + 12, ly + 24);
-    line("    <text x=\"%d\" y=\"%d\">Pareto frontier</text>", lx + 18, ly + 28);
-    line("    <line x1=\"%d\" y1=\"%d\" x2=\"%d\" y2=\"%d\" stroke=\"#c62828\""
-        + " stroke-dasharray=\"6 4\"/>", lx, ly + 40, lx + 12, ly + 40);
-    line("    <text x=\"%d\" y=\"%d\">budget; ring: chosen</text>", lx + 18, ly + 44);
+    line("    <rect x=\"%d\" y=\"%d\" width=\"162\" height=\"74\" fill=\"#ffffff\""
+        + " stroke=\"#cccccc\"/>", lx - 8, ly - 6);
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"2.5\" fill=\"#9a9a9a\"/>", lx + 6, ly + 6);
+    line("    <text x=\"%d\" y=\"%d\">candidate</text>", lx + 20, ly + 10);
+    line("    <path d=\"M%d %d H%d\" stroke=\"#1f5fbf\" stroke-width=\"1.8\"/>", lx, ly + 22,
+        lx + 12);
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"3.5\" fill=\"#1f5fbf\"/>", lx + 6, ly + 22);
+    line("    <text x=\"%d\" y=\"%d\">Pareto frontier</text>", lx + 20, ly + 26);
+    line("    <path d=\"M%d %d H%d\" stroke=\"#c62828\" stroke-width=\"1.5\""
+        + " stroke-dasharray=\"4 3\"/>", lx, ly + 38, lx + 12);
+    line("    <text x=\"%d\" y=\"%d\">budget</text>", lx + 20, ly + 42);
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"6\" fill=\"none\" stroke=\"#2e7d32\""
+        + " stroke-width=\"2\"/>", lx + 6, ly + 55);
+    line("    <text x=\"%d\" y=\"%d\">chosen</text>", lx + 20, ly + 59);
     line("  </g>");
   }
 
@@ -259,6 +268,10 @@ public final class FrontierSvg {
       double min = Math.floor(lo / step + 1e-9) * step;
       double max = Math.ceil(hi / step - 1e-9) * step;
       return new Scale(min, max, from, to, step);
+    }
+
+    boolean contains(double v) {
+      return v >= min && v <= max;
     }
 
     double map(double v) {

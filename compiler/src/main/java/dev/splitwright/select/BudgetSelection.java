@@ -130,7 +130,7 @@ public final class BudgetSelection {
       fallbacks.add(String.format(Locale.ROOT, "candidate ranked %d (max-depth %d, min-leaf %d, "
           + "alpha %s) weighs %d bytes as emitted%s, over the budget; took the next", rank + 1,
           candidate.setting().maxDepth(), candidate.setting().minLeaf(),
-          alpha(candidate.setting().alpha()), size,
+          Setting.formatAlpha(candidate.setting().alpha()), size,
           refit ? " after refitting on train+validation" : ""));
     }
     progress.finished(new SearchStats(search.settingsTried(), search.candidates().size(),
@@ -235,10 +235,11 @@ public final class BudgetSelection {
   private SelectionReport report(Search search, Candidate chosen, DecisionTree tree,
       Emitted emitted, List<String> fallbacks) {
     Sizes s = emitted.sizes();
+    int[] debug = DebugVariants.measure(emitted.source());
     SelectionReport.Chosen picked = new SelectionReport.Chosen(chosen.setting().maxDepth(),
         chosen.setting().minLeaf(), chosen.setting().alpha(), tree.depth(), tree.leafCount(),
         chosen.score(), s.in(settings.unit()), emitted.source().layout().optionName(),
-        s.classFileBytes(), s.classFileBytesWithoutDebug(), s.bytecodeBytes(), s.sourceBytes());
+        s.classFileBytes(), debug[0], debug[1], s.bytecodeBytes(), s.sourceBytes());
     List<SelectionReport.Point> frontier = new ArrayList<>();
     for (Candidate c : search.frontier()) {
       frontier.add(new SelectionReport.Point(c.size(settings.unit()), c.score(),
@@ -275,9 +276,5 @@ public final class BudgetSelection {
     return new FrontierSvg.Chart(data.name() + ": " + scored + " vs " + settings.unit()
         .description(), xLabel, scored, settings.budget(), all, frontier,
         new FrontierSvg.Dot(chosenSize, chosen.score()));
-  }
-
-  static String alpha(double alpha) {
-    return String.format(Locale.ROOT, "%.6g", alpha);
   }
 }

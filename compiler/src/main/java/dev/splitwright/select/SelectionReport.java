@@ -54,14 +54,17 @@ public record SelectionReport(
    * score and the measured sizes of the file written.
    *
    * @param size the emitted classifier's size in the budget's unit
-   * @param classFileBytesWithoutDebug what a {@code -g:none} build would weigh
+   * @param classFileBytes javac's default debug information: source file and line numbers
+   * @param classFileBytesNoDebug compiled with {@code -g:none}
+   * @param classFileBytesFullDebug compiled with {@code -g}, as a default Maven build does
    */
   @JsonPropertyOrder({"maxDepth", "minLeaf", "alpha", "depth", "leaves", "validationScore",
-      "size", "layout", "classFileBytes", "classFileBytesWithoutDebug", "bytecodeBytes",
-      "sourceBytes"})
+      "size", "layout", "classFileBytes", "classFileBytesNoDebug", "classFileBytesFullDebug",
+      "bytecodeBytes", "sourceBytes"})
   public record Chosen(int maxDepth, int minLeaf, double alpha, int depth, int leaves,
       double validationScore, int size, String layout, int classFileBytes,
-      int classFileBytesWithoutDebug, int bytecodeBytes, int sourceBytes) {}
+      int classFileBytesNoDebug, int classFileBytesFullDebug, int bytecodeBytes,
+      int sourceBytes) {}
 
   /** One frontier candidate: its measured size, score, tree shape and settings. */
   @JsonPropertyOrder({"size", "validationScore", "depth", "leaves", "maxDepth", "minLeaf",

@@ -1,5 +1,7 @@
 package dev.splitwright.select;
 
+import java.util.Locale;
+
 /**
  * Training settings that reproduce one candidate: grow with {@code maxDepth} and {@code minLeaf},
  * then prune by cost complexity. The candidate is the pruning-path subtree for every alpha in
@@ -16,6 +18,11 @@ public record Setting(int maxDepth, int minLeaf, double alpha, double nextAlpha)
       throw new IllegalArgumentException(
           "need 0 <= alpha <= nextAlpha: " + alpha + ", " + nextAlpha);
     }
+  }
+
+  /** Formats an alpha for messages: {@code 0}, or four significant digits. */
+  public static String formatAlpha(double alpha) {
+    return alpha == 0 ? "0" : String.format(Locale.ROOT, "%.4g", alpha);
   }
 
   /**
