@@ -2,6 +2,8 @@ package dev.splitwright.select;
 
 import dev.splitwright.check.SourceFile;
 import dev.splitwright.emit.EmittedSource;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 
 /**
  * Renames emitted sources so that many candidates of one class can be compiled in one javac run.
@@ -17,6 +19,8 @@ final class Aliases {
   private static final String DIGITS =
       "0123456789ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz";
   private static final String LETTERS = "ABCDEFGHIJKLMNOPQRSTUVWXYZ";
+  private static final Pattern PACKAGE = Pattern.compile("(?m)^package\\s+[^;]+;");
+  private static final Pattern CLASS = Pattern.compile("(?m)^(?:public\\s+)?(?:final\\s+)?class\\s+([^\\s{]+)");
 
   private final String packageName;
   private final String className;
@@ -41,17 +45,21 @@ final class Aliases {
   SourceFile alias(EmittedSource source, int i) {
     String name = name(i);
     String text = source.source();
+    // Names are matched as spelled in the source, which may use Unicode escapes.
     if (!packageName.isEmpty()) {
-      String declaration = "package " + packageName + ";";
-      int at = text.indexOf(declaration);
-      if (at < 0) {
+      Matcher declaration = PACKAGE.matcher(text);
+      if (!declaration.find()) {
         throw new IllegalStateException("no package declaration in the emitted source");
       }
-      String renamed = text.substring(0, at) + "package " + name + ";"
-          + text.substring(at + declaration.length());
+      String renamed = text.substring(0, declaration.start()) + "package " + name + ";"
+          + text.substring(declaration.end());
       return new SourceFile(name + "." + className, renamed);
     }
-    return new SourceFile(name, replaceWord(text, className, name));
+    Matcher declaration = CLASS.matcher(text);
+    if (!declaration.find()) {
+      throw new IllegalStateException("no class declaration in the emitted source");
+    }
+    return new SourceFile(name, replaceWord(text, declaration.group(1), name));
   }
 
   private String renamed() {
@@ -85,18 +93,22 @@ final class Aliases {
     return new String(out);
   }
 
-  /** Replaces whole-identifier occurrences of {@code word}. */
+  /** Replaces whole-identifier occurrences of {@code word} (a backslash counts as inside). */
   private static String replaceWord(String text, String word, String replacement) {
     StringBuilder out = new StringBuilder(text.length());
     int from = 0;
     int at;
     while ((at = text.indexOf(word, from)) >= 0) {
       int end = at + word.length();
-      boolean whole = (at == 0 || !Character.isJavaIdentifierPart(text.charAt(at - 1)))
-          && (end == text.length() || !Character.isJavaIdentifierPart(text.charAt(end)));
+      boolean whole = (at == 0 || !identifierPart(text.charAt(at - 1)))
+          && (end == text.length() || !identifierPart(text.charAt(end)));
       out.append(text, from, at).append(whole ? replacement : word);
       from = end;
     }
     return out.append(text, from, text.length()).toString();
+  }
+
+  private static boolean identifierPart(char c) {
+    return c == '\\' || Character.isJavaIdentifierPart(c);
   }
 }
