@@ -20,7 +20,8 @@ final class BudgetOptions {
       description = "Emit the best validated tree whose size fits SIZE bytes: 1500, 2.5KB (1000 "
           + "bytes each), 4KiB (1024 bytes each), 1MiB; units B, KB, KiB, MB, MiB in any case. "
           + "Searches depths 1..--max-depth, leaf sizes from --min-leaf among 1,2,5,10,20 and "
-          + "every cost-complexity pruning of each, measuring each candidate compiled.")
+          + "every cost-complexity pruning of each, measuring each candidate compiled; also "
+          + "writes <out>/<Class>.frontier.svg.")
   String budget;
 
   @Option(names = "--budget-unit", defaultValue = "class", paramLabel = "class|bytecode|source",

@@ -58,7 +58,8 @@ public final class FrontierSvg {
     this.chart = chart;
     // The size axis spans the frontier and the budget, not zero: the detail is in between.
     int smallest = Math.min(chart.budget(), chart.frontier().get(0).size());
-    int largest = Math.max(chart.budget(), chart.frontier().get(chart.frontier().size() - 1).size());
+    int largest =
+        Math.max(chart.budget(), chart.frontier().get(chart.frontier().size() - 1).size());
     double margin = (largest - smallest) * 0.05 + 1;
     this.x = Scale.of(Math.max(0, smallest - margin), largest + margin, LEFT, WIDTH - RIGHT);
     double low = chart.chosen().score();
@@ -83,8 +84,9 @@ public final class FrontierSvg {
 
   private String draw() {
     line("<?xml version=\"1.0\" encoding=\"UTF-8\"?>");
-    line("<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%d\" height=\"%d\" viewBox=\"0 0 %d %d\""
-        + " font-family=\"sans-serif\" font-size=\"12\">", WIDTH, HEIGHT, WIDTH, HEIGHT);
+    line("<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%d\" height=\"%d\""
+        + " viewBox=\"0 0 %d %d\" font-family=\"sans-serif\" font-size=\"12\">", WIDTH, HEIGHT,
+        WIDTH, HEIGHT);
     line("  <title>%s</title>", escape(chart.title()));
     line("  <rect width=\"%d\" height=\"%d\" fill=\"#ffffff\"/>", WIDTH, HEIGHT);
     line("  <text x=\"%d\" y=\"24\" font-size=\"15\" font-weight=\"bold\">%s</text>", LEFT,

@@ -20,7 +20,8 @@ final class Aliases {
       "0123456789ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz";
   private static final String LETTERS = "ABCDEFGHIJKLMNOPQRSTUVWXYZ";
   private static final Pattern PACKAGE = Pattern.compile("(?m)^package\\s+[^;]+;");
-  private static final Pattern CLASS = Pattern.compile("(?m)^(?:public\\s+)?(?:final\\s+)?class\\s+([^\\s{]+)");
+  private static final Pattern CLASS =
+      Pattern.compile("(?m)^(?:public\\s+)?(?:final\\s+)?class\\s+([^\\s{]+)");
 
   private final String packageName;
   private final String className;

@@ -45,7 +45,7 @@ public final class BudgetSelection {
   private final SearchProgress progress;
   private final CandidateEmitter emitter;
 
-  /** Searches with {@code settings}, emitting with {@code emit} and checking with {@code verifier}. */
+  /** Searches with {@code settings}, emits with {@code emit}, checks with {@code verifier}. */
   public BudgetSelection(SearchSettings settings, EmitOptions emit, Verifier verifier,
       SearchProgress progress) {
     this.settings = Objects.requireNonNull(settings, "settings");

@@ -154,8 +154,8 @@ class BudgetCommandTest {
       args.addAll(List.of(option));
       Run run = run(args.toArray(new String[0]));
       assertThat(run.exit()).isEqualTo(2);
-      assertThat(run.err().strip()).isEqualTo("splitwright compile: option '" + option[0] + "' only applies "
-          + "together with --budget (see 'splitwright compile --help')");
+      assertThat(run.err().strip()).isEqualTo("splitwright compile: option '" + option[0]
+          + "' only applies together with --budget (see 'splitwright compile --help')");
     }
   }
 
