@@ -13,10 +13,10 @@ final class BudgetSummary {
   static void print(PrintWriter out, SelectionReport selection, SearchStats stats) {
     SelectionReport.Chosen c = selection.chosen();
     out.printf(Locale.ROOT, "budget: %d bytes (%s); chosen max-depth %d, min-leaf %d, alpha %s "
-        + "(depth %d, %d leaves): %d bytes, %s %s %.4f%n", selection.budget(),
+        + "(depth %d, %d leaves): %d bytes, %s %.4f (%s)%n", selection.budget(),
         selection.budgetUnit(), c.maxDepth(), c.minLeaf(), Setting.formatAlpha(c.alpha()),
-        c.depth(), c.leaves(), c.size(), selection.scoredOn(), selection.metric(),
-        c.validationScore());
+        c.depth(), c.leaves(), c.size(), selection.metric(), c.validationScore(),
+        selection.scoredOn());
     if (selection.budgetUnit().equals("class")) {
       out.printf(Locale.ROOT, "budget: the class file weighs %d bytes with javac -g:none and %d "
           + "with -g (a default Maven build)%n", c.classFileBytesNoDebug(),

@@ -16,7 +16,7 @@ public final class FrontierSvg {
   private static final int HEIGHT = 460;
   private static final int LEFT = 78;
   private static final int RIGHT = 24;
-  private static final int TOP = 56;
+  private static final int TOP = 60;
   private static final int BOTTOM = 64;
 
   private final Chart chart;
@@ -30,7 +30,8 @@ public final class FrontierSvg {
   /**
    * What to draw.
    *
-   * @param title the heading, e.g. the data set and metric
+   * @param title the heading, e.g. the data set's name
+   * @param subtitle the line under it, e.g. what is plotted against what
    * @param xLabel the size axis label with its unit, e.g. {@code class file size (bytes)}
    * @param yLabel the score axis label
    * @param budget the budget in the same bytes as the sizes
@@ -38,11 +39,12 @@ public final class FrontierSvg {
    * @param frontier the Pareto-optimal candidates, by size ascending
    * @param chosen the candidate emitted
    */
-  public record Chart(String title, String xLabel, String yLabel, int budget, List<Dot> candidates,
-      List<Dot> frontier, Dot chosen) {
+  public record Chart(String title, String subtitle, String xLabel, String yLabel, int budget,
+      List<Dot> candidates, List<Dot> frontier, Dot chosen) {
 
     public Chart {
       Objects.requireNonNull(title, "title");
+      Objects.requireNonNull(subtitle, "subtitle");
       Objects.requireNonNull(xLabel, "xLabel");
       Objects.requireNonNull(yLabel, "yLabel");
       candidates = List.copyOf(candidates);
@@ -87,10 +89,12 @@ public final class FrontierSvg {
     line("<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%d\" height=\"%d\""
         + " viewBox=\"0 0 %d %d\" font-family=\"sans-serif\" font-size=\"12\">", WIDTH, HEIGHT,
         WIDTH, HEIGHT);
-    line("  <title>%s</title>", escape(chart.title()));
+    line("  <title>%s: %s</title>", escape(chart.title()), escape(chart.subtitle()));
     line("  <rect width=\"%d\" height=\"%d\" fill=\"#ffffff\"/>", WIDTH, HEIGHT);
-    line("  <text x=\"%d\" y=\"24\" font-size=\"15\" font-weight=\"bold\">%s</text>", LEFT,
-        escape(chart.title()));
+    line("  <text x=\"%d\" y=\"22\" font-size=\"15\" font-weight=\"bold\">%s</text>", LEFT,
+        escape(shorten(chart.title())));
+    line("  <text x=\"%d\" y=\"40\" fill=\"#555555\">%s</text>", LEFT,
+        escape(shorten(chart.subtitle())));
     axes();
     candidates();
     frontier();
@@ -221,6 +225,11 @@ public final class FrontierSvg {
   private static String num(double v) {
     String s = String.format(Locale.ROOT, "%.1f", v);
     return s.equals("-0.0") ? "0.0" : s;
+  }
+
+  /** Keeps a heading within the chart's width: about 80 characters at these font sizes. */
+  private static String shorten(String text) {
+    return text.length() <= 80 ? text : text.substring(0, 77) + "...";
   }
 
   static String escape(String text) {

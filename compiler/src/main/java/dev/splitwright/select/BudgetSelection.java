@@ -246,8 +246,8 @@ public final class BudgetSelection {
           c.tree().depth(), c.tree().leafCount(), c.setting().maxDepth(), c.setting().minLeaf(),
           c.setting().alpha(), c.index() == chosen.index()));
     }
-    int smallest = search.candidates().stream()
-        .mapToInt(c -> c.size(settings.unit())).min().orElseThrow();
+    // Sorted by size, the frontier starts with the smallest usable candidate.
+    int smallest = search.frontier().get(0).size(settings.unit());
     return new SelectionReport(settings.budget(), settings.unit().optionName(),
         settings.metric().optionName(), scoredOn(),
         settings.refitAll() ? "train+validation" : "train", settings.maxDepth(),
@@ -257,7 +257,7 @@ public final class BudgetSelection {
 
   private String scoredOn() {
     return settings.folds() == 0 ? "validation"
-        : settings.folds() + "-fold cross-validation on train+validation";
+        : settings.folds() + "-fold cross-validation of train+validation";
   }
 
   private FrontierSvg.Chart chart(Data data, Search search, Candidate chosen, int chosenSize) {
@@ -273,8 +273,8 @@ public final class BudgetSelection {
         .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();
     List<FrontierSvg.Dot> frontier = search.frontier().stream()
         .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();
-    return new FrontierSvg.Chart(data.name() + ": " + scored + " vs " + settings.unit()
-        .description(), xLabel, scored, settings.budget(), all, frontier,
+    return new FrontierSvg.Chart(data.name(), scored + " vs " + settings.unit().description(),
+        xLabel, scored, settings.budget(), all, frontier,
         new FrontierSvg.Dot(chosenSize, chosen.score()));
   }
 }

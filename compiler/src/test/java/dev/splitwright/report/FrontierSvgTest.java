@@ -14,7 +14,7 @@ import org.w3c.dom.NodeList;
 
 class FrontierSvgTest {
   private static final FrontierSvg.Chart CHART = new FrontierSvg.Chart(
-      "pump <A&B>.csv: validation balanced accuracy vs class file size",
+      "pump <A&B>.csv", "validation balanced accuracy vs class file size",
       "class file size (bytes)", "validation balanced accuracy", 2048,
       List.of(new FrontierSvg.Dot(1400, 0.2), new FrontierSvg.Dot(1500, 0.7),
           new FrontierSvg.Dot(1600, 0.65), new FrontierSvg.Dot(1900, 0.82),
@@ -38,9 +38,10 @@ class FrontierSvgTest {
     assertThat(root.getLocalName()).isEqualTo("svg");
     assertThat(root.getNamespaceURI()).isEqualTo("http://www.w3.org/2000/svg");
     assertThat(svg.getElementsByTagName("title").item(0).getTextContent())
-        .isEqualTo(CHART.title());
+        .isEqualTo("pump <A&B>.csv: validation balanced accuracy vs class file size");
     List<String> texts = texts(svg);
-    assertThat(texts).contains(CHART.title(), "class file size (bytes)",
+    assertThat(texts).contains("pump <A&B>.csv", "validation balanced accuracy vs class file size",
+        "class file size (bytes)",
         "validation balanced accuracy", "budget 2048 B", "chosen: 1900 B, 0.8200");
   }
 
