@@ -105,7 +105,26 @@ public final class BudgetSelection {
       Function<DecisionTree, HeaderInfo> finalHeader) throws InputException {
     long start = System.nanoTime();
     SizeMeter meter = new SizeMeter(verifier.compiler());
-    Search search = search(data, candidateHeader, meter);
+    Search search = null;
+    try {
+      search = search(data, candidateHeader, meter);
+      return emitChoice(data, search, finalHeader, meter, start);
+    } finally {
+      // Also on failure, so that a progress bar is cleared before the error is printed.
+      progress.finished(stats(search, meter, start));
+    }
+  }
+
+  private static SearchStats stats(Search search, SizeMeter meter, long start) {
+    return new SearchStats(search == null ? 0 : search.settingsTried(),
+        search == null ? 0 : search.candidates().size(), meter.sourcesCompiled(),
+        meter.javacRuns(), System.nanoTime() - start);
+  }
+
+  /** Refits, emits and measures candidates best first until one fits; verifies it. */
+  private Outcome emitChoice(Data data, Search search,
+      Function<DecisionTree, HeaderInfo> finalHeader, SizeMeter meter, long start)
+      throws InputException {
     Dataset refitRows = settings.refitAll() ? data.train().concat(data.validation()) : data.train();
     boolean refit = settings.refitAll() && settings.folds() == 0;
     List<String> fallbacks = new ArrayList<>();
@@ -121,11 +140,9 @@ public final class BudgetSelection {
             emit.toBuilder().layout(best.source().layout()).build(), data.verifyRows(),
             data.seed());
         SelectionReport report = report(search, candidate, tree, best, fallbacks);
-        SearchStats stats = new SearchStats(search.settingsTried(), search.candidates().size(),
-            meter.sourcesCompiled(), meter.javacRuns(), System.nanoTime() - start);
-        progress.finished(stats);
         return new Outcome(tree, best.source(), verification, report,
-            FrontierSvg.render(chart(data, search, candidate, size)), stats);
+            FrontierSvg.render(chart(data, search, candidate, size)),
+            stats(search, meter, start));
       }
       fallbacks.add(String.format(Locale.ROOT, "candidate ranked %d (max-depth %d, min-leaf %d, "
           + "alpha %s) weighs %d bytes as emitted%s, over the budget; took the next", rank + 1,
@@ -133,8 +150,6 @@ public final class BudgetSelection {
           Setting.formatAlpha(candidate.setting().alpha()), size,
           refit ? " after refitting on train+validation" : ""));
     }
-    progress.finished(new SearchStats(search.settingsTried(), search.candidates().size(),
-        meter.sourcesCompiled(), meter.javacRuns(), System.nanoTime() - start));
     throw new InputException("budget", "no candidate fits the budget of " + settings.budget()
         + " bytes as emitted" + (refit ? " after refitting on train+validation" : ""),
         refit ? "raise --budget or leave out --refit-all" : "raise --budget");

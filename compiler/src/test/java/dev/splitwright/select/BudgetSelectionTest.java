@@ -190,11 +190,25 @@ class BudgetSelectionTest {
 
   @Test
   void tooSmallBudgetNamesTheLeastThatFits() {
-    assertThatThrownBy(() -> run(SearchSettings.builder(1000).maxDepth(3).build()))
+    List<SearchStats> finished = new ArrayList<>();
+    SearchProgress recorder = new SearchProgress() {
+      @Override
+      public void update(String stage, int done, int total) {}
+
+      @Override
+      public void finished(SearchStats stats) {
+        finished.add(stats);
+      }
+    };
+    BudgetSelection selection = new BudgetSelection(
+        SearchSettings.builder(1000).maxDepth(3).build(), EMIT, verifier, recorder);
+    assertThatThrownBy(() -> selection.run(data, HeaderInfo.none(), tree -> HeaderInfo.none()))
         .isInstanceOf(InputException.class)
         .hasMessageMatching("option --budget: 1000 bytes is too small: the smallest classifier "
             + "for this data \\(1 leaf\\) has a class file size of \\d+ bytes; give --budget \\d+ "
             + "or more");
+    // A progress bar must be cleared before the error is printed.
+    assertThat(finished).hasSize(1);
   }
 
   @Test
