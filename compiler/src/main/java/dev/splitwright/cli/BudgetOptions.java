@@ -93,7 +93,7 @@ final class BudgetOptions {
   List<String> optionsText() {
     List<String> parts = new ArrayList<>();
     if (budget != null) {
-      parts.add("--budget " + budget.strip().replace(" ", ""));
+      parts.add("--budget " + budget.replaceAll("\\s", ""));
       parts.add("--budget-unit " + unit.strip().toLowerCase(Locale.ROOT));
       parts.add("--metric " + metric.strip().toLowerCase(Locale.ROOT));
       if (folds != null) {

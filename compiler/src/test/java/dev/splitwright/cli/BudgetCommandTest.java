@@ -4,7 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import dev.splitwright.check.ClassFileInfo;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -188,10 +187,5 @@ class BudgetCommandTest {
           .orElseThrow();
       return (int) Files.size(classFile);
     }
-  }
-
-  /** Sum of the method code lengths of a class file (JVM Specification §4.7.3). */
-  static int bytecodeOf(Path classFile) throws IOException {
-    return ClassFileInfo.parse(Files.readAllBytes(classFile)).totalCodeLength();
   }
 }

@@ -81,5 +81,4 @@ class SizeMeterTest {
     Path classFile = out.resolve(source.qualifiedName().replace('.', '/') + ".class");
     return (int) Files.size(classFile);
   }
-
 }
