@@ -8,6 +8,8 @@ import dev.splitwright.eval.Scores;
 import dev.splitwright.job.CompileJob;
 import dev.splitwright.job.CompileRequest;
 import dev.splitwright.job.CompileResult;
+import dev.splitwright.select.SearchSettings;
+import dev.splitwright.select.SelectionReport;
 import dev.splitwright.train.ClassWeights;
 import dev.splitwright.train.Impurity;
 import dev.splitwright.train.TrainingOptions;
@@ -22,6 +24,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
@@ -134,6 +137,8 @@ final class CompileCommand implements Callable<Integer> {
           + "8000 bytes by default (default: ${DEFAULT-VALUE}).")
   int maxMethodBytes;
 
+  @Mixin BudgetOptions budgetOptions = new BudgetOptions();
+
   @Option(names = "--quiet", description = "Print nothing on success.")
   boolean quiet;
 
@@ -143,9 +148,12 @@ final class CompileCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     CompileRequest request = request();
-    CompileResult result = new CompileJob(Verifier.create()).run(request);
     PrintWriter stdout = spec.commandLine().getOut();
     PrintWriter stderr = spec.commandLine().getErr();
+    Optional<SearchSettings> budget =
+        budgetOptions.settings(spec.commandLine(), request.training(), seed);
+    ProgressBar progress = ProgressBar.forTerminal(stderr, quiet);
+    CompileResult result = new CompileJob(Verifier.create()).run(request, budget, progress);
     VerificationResult v = result.verification();
     if (!v.passed()) {
       stderr.println("verification failed, nothing written: " + v.verdict());
@@ -153,6 +161,9 @@ final class CompileCommand implements Callable<Integer> {
     }
     if (!quiet) {
       Summary.print(stdout, result);
+      if (result.report().selection() instanceof SelectionReport selection) {
+        BudgetSummary.print(stdout, selection, progress.stats());
+      }
     }
     return ExitCodes.OK;
   }
@@ -272,6 +283,7 @@ final class CompileCommand implements Callable<Integer> {
     parts.add("--layout " + layout.toLowerCase(Locale.ROOT));
     parts.add("--input " + input.toLowerCase(Locale.ROOT));
     parts.add("--max-method-bytes " + maxMethodBytes);
+    parts.addAll(budgetOptions.optionsText());
     return String.join(" ", parts);
   }
 
