@@ -120,7 +120,8 @@ final class CompileCommand implements Callable<Integer> {
   Path out;
 
   @Option(names = "--layout", defaultValue = "branches", paramLabel = "branches|table|smallest",
-      description = "Code layout (default: ${DEFAULT-VALUE}).")
+      description = "Code layout: nested ifs, a packed table walked by a loop (smaller for big "
+          + "trees), or whichever compiles smaller (default: ${DEFAULT-VALUE}).")
   String layout;
 
   @Option(names = "--input", defaultValue = "float", paramLabel = "float|double|int",
@@ -131,6 +132,16 @@ final class CompileCommand implements Callable<Integer> {
       description = "Same as --input int: classify(int[] x) for raw counts; every numeric cell "
           + "must be a whole number (none missing), else the run stops with exit code 2.")
   boolean intInputs;
+
+  @Option(names = "--named-args",
+      description = "Emit classify(float rmsVelocity, float kurtosis, ...) with one parameter per "
+          + "feature instead of an array (at most 32 features).")
+  boolean namedArgs;
+
+  @Option(names = "--probabilities",
+      description = "Also emit classProbabilities(x, out), filling out with the class frequencies "
+          + "of the leaf reached.")
+  boolean probabilities;
 
   @Option(names = "--max-method-bytes", defaultValue = "8000", paramLabel = "N",
       description = "Largest bytecode of one method; HotSpot does not JIT-compile methods over "
@@ -201,6 +212,8 @@ final class CompileCommand implements Callable<Integer> {
           .inputKind(InputKind.parse(input).orElseThrow(() -> bad("--input",
               "must be float, double or int, but it is '" + input + "'")))
           .maxMethodBytes(maxMethodBytes)
+          .namedArgs(namedArgs)
+          .probabilities(probabilities)
           .build();
     } catch (IllegalArgumentException e) {
       throw bad(optionFor(e.getMessage()), e.getMessage());
@@ -283,6 +296,12 @@ final class CompileCommand implements Callable<Integer> {
     parts.add("--layout " + layout.toLowerCase(Locale.ROOT));
     parts.add("--input " + input.toLowerCase(Locale.ROOT));
     parts.add("--max-method-bytes " + maxMethodBytes);
+    if (namedArgs) {
+      parts.add("--named-args");
+    }
+    if (probabilities) {
+      parts.add("--probabilities");
+    }
     parts.addAll(budgetOptions.optionsText());
     return String.join(" ", parts);
   }
@@ -305,6 +324,10 @@ final class CompileCommand implements Callable<Integer> {
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
           + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
           v.classFileBytes(), v.classFileBytesWithoutDebug(), v.maxMethodBytes());
+      Object choice = result.report().options().get("layoutChoice");
+      if (choice != null) {
+        out.println("layout: " + choice);
+      }
       out.printf(Locale.ROOT, "verified: %d inputs, %d mismatches, branch coverage %.1f%% "
           + "(%d of %d splits both ways)%n", v.inputsChecked(), v.mismatches(),
           100 * v.branchCoverage(), v.coveredSplits(), v.splits());

@@ -23,10 +23,27 @@ final class EntryDoc {
         doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
       }
     } else {
-      doc.add("@param x the $L feature values in the order of the class comment; $L; "
-          + "categorical features take their code\n", schema.featureCount(), missing);
+      doc.add("@param x the $L feature values in the order of the class comment; $L;\n"
+          + "    categorical features take their code\n", schema.featureCount(), missing);
     }
     return doc.add("@return the class index\n").build();
+  }
+
+  static CodeBlock probabilities(Schema schema, InputAccess input) {
+    CodeBlock.Builder doc = CodeBlock.builder()
+        .add("Fills {@code out} with the class frequencies of the training rows at the leaf\n"
+            + "this input reaches: {@code out[c]} is the share of class {@code c}, as float.\n"
+            + "The class {@link #classify} returns is not always the most frequent one when\n"
+            + "class weights were used in training.\n\n");
+    if (input.named()) {
+      for (int f = 0; f < schema.featureCount(); f++) {
+        doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
+      }
+    } else {
+      doc.add("@param x the $L feature values, as for {@link #classify}\n", schema.featureCount());
+    }
+    return doc.add("@param out receives $L frequencies, one per class index\n", schema.classCount())
+        .build();
   }
 
   private static String paramText(Feature feature) {
@@ -38,7 +55,7 @@ final class EntryDoc {
     method.beginControlFlow("if (x.length != $L)", schema.featureCount())
         // String.concat keeps the class free of invokedynamic string concatenation, whose
         // bootstrap lives in java.lang.invoke.
-        .addStatement("throw new IllegalArgumentException($S.concat(String.valueOf(x.length)))",
+        .addStatement("throw new IllegalArgumentException($W$S.concat(String.valueOf(x.length)))",
             "expected " + schema.featureCount() + " features but got ")
         .endControlFlow();
   }

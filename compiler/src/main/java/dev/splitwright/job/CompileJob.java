@@ -1,15 +1,13 @@
 package dev.splitwright.job;
 
-import dev.splitwright.check.CompilationException;
 import dev.splitwright.data.CsvLoader;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
 import dev.splitwright.data.SourcePosition;
-import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
-import dev.splitwright.emit.JavaEmitter;
+import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.Evaluator;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.eval.SplitParts;
@@ -21,6 +19,8 @@ import dev.splitwright.report.ReportJson;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.train.CartTrainer;
+import dev.splitwright.verify.LayoutChoice;
+import dev.splitwright.verify.LayoutChooser;
 import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
 import java.io.IOException;
@@ -82,10 +82,17 @@ public final class CompileJob {
     Map<String, Scores> scores = score(tree, parts);
     HeaderInfo header = new HeaderInfo(loaded.sourceName(), loaded.sha256(),
         request.optionsText(), scoreLines(scores));
-    EmittedSource source = JavaEmitter.emit(tree, request.emit(), header);
-    VerificationResult verification = verify(tree, source, request.emit(), parts, request.seed());
+    // --layout smallest is resolved here: both layouts emitted and compiled, the smaller kept.
+    LayoutChoice layout = LayoutChooser.resolve(tree, request.emit(), header, verifier.compiler());
+    EmittedSource source = layout.source();
+    VerificationResult verification = verifier.check(tree, layout.classes(), source,
+        layout.options(), parts.all(), request.seed());
+    Map<String, Object> options = optionsMap(request);
+    if (request.emit().layout() == Layout.SMALLEST) {
+      options.put("layoutChoice", layout.describe());
+    }
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
-        optionsMap(request), request.emit(), source, verification, scores, null);
+        options, layout.options(), source, verification, scores, null);
     if (!verification.passed()) {
       return new CompileResult(tree, source, verification, scores, report, List.of());
     }
@@ -98,16 +105,6 @@ public final class CompileJob {
     }
     out.commit();
     return new CompileResult(tree, source, verification, scores, report, out.paths());
-  }
-
-  private VerificationResult verify(DecisionTree tree, EmittedSource source, EmitOptions emit,
-      Parts parts, long seed) {
-    try {
-      return verifier.verify(tree, source, emit, parts.all(), seed);
-    } catch (CompilationException e) {
-      // The emitter made source javac rejects: a bug of ours, not the user's input.
-      throw new IllegalStateException("emitted source does not compile:\n" + e.getMessage(), e);
-    }
   }
 
   /** The rows each part holds; validation and test may be empty. */

@@ -16,32 +16,37 @@ import java.util.Arrays;
  */
 final class EmittedClassifier {
   private final Method classify;
+  private final Method probabilities;
   private final InputKind kind;
   private final boolean named;
+  private final int classCount;
   /** Features whose NaN becomes -1 rather than 0 as int; null when none. */
   private final boolean[] categorical;
 
-  private EmittedClassifier(Method classify, InputKind kind, boolean named,
-      boolean[] categorical) {
+  private EmittedClassifier(Method classify, Method probabilities, InputKind kind, boolean named,
+      int classCount, boolean[] categorical) {
     this.classify = classify;
+    this.probabilities = probabilities;
     this.kind = kind;
     this.named = named;
+    this.classCount = classCount;
     this.categorical = categorical;
   }
 
-  /** Like {@link #of(Class, EmitOptions, int)}, passing missing categories as -1 to int inputs. */
+  /** Like {@link #of(Class, EmitOptions, int, int)}, passing missing categories as -1 to ints. */
   static EmittedClassifier of(Class<?> type, EmitOptions options, Schema schema)
       throws NoSuchMethodException {
-    EmittedClassifier plain = of(type, options, schema.featureCount());
+    EmittedClassifier plain = of(type, options, schema.featureCount(), schema.classCount());
     boolean[] categorical = new boolean[schema.featureCount()];
     for (int f = 0; f < categorical.length; f++) {
       categorical[f] = schema.feature(f).isCategorical();
     }
-    return new EmittedClassifier(plain.classify, plain.kind, plain.named, categorical);
+    return new EmittedClassifier(plain.classify, plain.probabilities, plain.kind, plain.named,
+        plain.classCount, categorical);
   }
 
-  static EmittedClassifier of(Class<?> type, EmitOptions options, int featureCount)
-      throws NoSuchMethodException {
+  static EmittedClassifier of(Class<?> type, EmitOptions options, int featureCount,
+      int classCount) throws NoSuchMethodException {
     Class<?> element = switch (options.inputKind()) {
       case FLOAT -> float.class;
       case DOUBLE -> double.class;
@@ -54,8 +59,14 @@ final class EmittedClassifier {
     } else {
       parameters = new Class<?>[] {element.arrayType()};
     }
-    return new EmittedClassifier(type.getMethod("classify", parameters), options.inputKind(),
-        options.namedArgs(), null);
+    Method probabilities = null;
+    if (options.probabilities()) {
+      Class<?>[] withOut = Arrays.copyOf(parameters, parameters.length + 1);
+      withOut[parameters.length] = float[].class;
+      probabilities = type.getMethod("classProbabilities", withOut);
+    }
+    return new EmittedClassifier(type.getMethod("classify", parameters), probabilities,
+        options.inputKind(), options.namedArgs(), classCount, null);
   }
 
   /** The input the float model must see for {@code probe}: the probe after conversion. */
@@ -80,7 +91,7 @@ final class EmittedClassifier {
   }
 
   int classify(float[] probe) {
-    return invoke(named ? spread(probe) : new Object[] {array(probe)});
+    return (Integer) call(classify, named ? spread(probe) : new Object[] {array(probe)});
   }
 
   /** Calls an int classifier with exactly these ints. */
@@ -97,12 +108,41 @@ final class EmittedClassifier {
     } else {
       args = new Object[] {x.clone()};
     }
-    return invoke(args);
+    return (Integer) call(classify, args);
   }
 
-  private int invoke(Object[] args) {
+  /** Classifies a double input; only for a classifier that takes doubles. */
+  int classifyDouble(double[] x) {
+    if (kind != InputKind.DOUBLE) {
+      throw new IllegalStateException("the classifier takes " + kind.optionName() + " input");
+    }
+    Object[] args;
+    if (named) {
+      args = new Object[x.length];
+      for (int f = 0; f < x.length; f++) {
+        args[f] = x[f];
+      }
+    } else {
+      args = new Object[] {x.clone()};
+    }
+    return (Integer) call(classify, args);
+  }
+
+  /** The class frequencies {@code classProbabilities} writes for {@code probe}. */
+  float[] probabilities(float[] probe) {
+    Object[] inputs = named ? spread(probe) : new Object[] {array(probe)};
+    Object[] args = Arrays.copyOf(inputs, inputs.length + 1);
+    float[] out = new float[classCount];
+    // A value the method must overwrite, so "left untouched" is caught.
+    Arrays.fill(out, Float.NaN);
+    args[inputs.length] = out;
+    call(probabilities, args);
+    return out;
+  }
+
+  private static Object call(Method method, Object[] args) {
     try {
-      return (Integer) classify.invoke(null, args);
+      return method.invoke(null, args);
     } catch (InvocationTargetException e) {
       Throwable cause = e.getCause();
       throw cause instanceof RuntimeException r ? r : new IllegalStateException(cause);
