@@ -15,7 +15,8 @@ final class EntryDoc {
             schema.classCount() - 1);
     String missing = switch (input.kind()) {
       case FLOAT, DOUBLE -> "NaN marks a missing value";
-      case INT -> "integer inputs cannot be missing";
+      case INT -> "a numeric value cannot be missing, a category code outside its table "
+          + "(such as -1) marks a missing category";
     };
     if (input.named()) {
       for (int f = 0; f < schema.featureCount(); f++) {

@@ -16,6 +16,8 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
+import dev.splitwright.select.SearchProgress;
+import dev.splitwright.select.SearchSettings;
 import dev.splitwright.train.CartTrainer;
 import dev.splitwright.verify.LayoutChoice;
 import dev.splitwright.verify.LayoutChooser;
@@ -29,6 +31,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Optional;
 
 /**
  * Runs the main job: load, split, train (or read a saved model), score, emit, verify, and write the
@@ -48,8 +51,24 @@ public final class CompileJob {
    * @throws IOException if an output cannot be written (nothing is left half-written)
    */
   public CompileResult run(CompileRequest request) throws InputException, IOException {
+    return run(request, Optional.empty(), SearchProgress.none());
+  }
+
+  /**
+   * Runs {@code request}; with {@code budget}, the tree is the best validated one that fits it
+   * (see {@link dev.splitwright.select.BudgetSelection}) and a frontier chart is written too.
+   *
+   * @throws InputException if a file or option is unusable, or the budget is too small
+   * @throws IOException if an output cannot be written (nothing is left half-written)
+   */
+  public CompileResult run(CompileRequest request, Optional<SearchSettings> budget,
+      SearchProgress progress) throws InputException, IOException {
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
+    DataChecks.trainingData(request, loaded);
     Parts parts = split(loaded.dataset(), request);
+    if (budget.isPresent()) {
+      return BudgetRun.run(verifier, request, loaded, parts, budget.get(), progress);
+    }
     DecisionTree tree = request.model().isPresent()
         ? ModelFile.read(request.model().get())
         : CartTrainer.train(parts.train(), request.training());
@@ -99,7 +118,9 @@ public final class CompileJob {
     double[] f = request.fractions();
     if (request.testData().isPresent()) {
       Path testFile = request.testData().get();
-      Dataset test = CsvLoader.loadWithSchema(testFile, data.schema(), request.load()).dataset();
+      LoadedData testLoaded = CsvLoader.loadWithSchema(testFile, data.schema(), request.load());
+      DataChecks.evaluationData(request, testFile, testLoaded);
+      Dataset test = testLoaded.dataset();
       double trainShare = f[0] / (f[0] + f[1]);
       SplitParts p =
           StratifiedSplit.split(data, trainShare, 1 - trainShare, 0, request.seed());
@@ -109,7 +130,7 @@ public final class CompileJob {
     return new Parts(p.train(), p.validation(), p.test());
   }
 
-  private static Map<String, Scores> score(DecisionTree tree, Parts parts) {
+  static Map<String, Scores> score(DecisionTree tree, Parts parts) {
     Map<String, Scores> scores = new LinkedHashMap<>();
     scores.put("train", Evaluator.score(tree, parts.train()));
     if (parts.validation().rows() > 0) {
@@ -129,7 +150,7 @@ public final class CompileJob {
     return lines;
   }
 
-  private static Map<String, Object> optionsMap(CompileRequest request) {
+  static Map<String, Object> optionsMap(CompileRequest request) {
     Map<String, Object> options = new LinkedHashMap<>();
     options.put("command", request.optionsText());
     options.put("seed", request.seed());

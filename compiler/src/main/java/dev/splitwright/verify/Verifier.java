@@ -20,7 +20,10 @@ import java.util.Objects;
 /**
  * Proves an emitted classifier returns what the model returns: compiles the source in memory,
  * loads it in a fresh class loader and compares {@code classify} with {@link DecisionTree#predict}
- * on every data row, on boundary probes for every split and on seeded random inputs.
+ * on every data row, on boundary probes for every split and on seeded random inputs. A classifier
+ * taking {@code int} inputs is also checked on int boundary probes ({@link IntProbes}): each
+ * threshold's integer neighbours and the int extremes, with the model asked about their float
+ * conversions.
  */
 public final class Verifier {
   /** The javac options a user's build would use; the class file measured is the one they get. */
@@ -86,7 +89,7 @@ public final class Verifier {
     EmittedClassifier candidate;
     try {
       candidate = EmittedClassifier.of(classes.load(source.qualifiedName()), options,
-          tree.schema().featureCount(), tree.schema().classCount());
+          tree.schema());
     } catch (ReflectiveOperationException e) {
       throw new IllegalStateException("emitted class has no usable classify method", e);
     }
@@ -111,6 +114,15 @@ public final class Verifier {
     if (options.probabilities()) {
       tally.add("classProbabilities ", OracleComparison.compare(inputs, candidate::probabilities,
           x -> narrow(tree.probabilities(candidate.modelInput(x))), REPORTED_MISMATCHES));
+    }
+    if (options.inputKind() == InputKind.INT) {
+      List<int[]> ints = IntProbes.of(tree);
+      for (int[] x : ints) {
+        coverage.record(EmittedClassifier.modelInput(x));
+      }
+      tally.add("int probe ", OracleComparison.compare(ints, candidate::classifyInts,
+          x -> tree.predict(EmittedClassifier.modelInput(x)), REPORTED_MISMATCHES));
+      inputsChecked += ints.size();
     }
     String self = source.qualifiedName().replace('.', '/');
     List<String> foreign = info.referencedClasses().stream()
