@@ -11,6 +11,7 @@ import dev.splitwright.data.Feature;
 import dev.splitwright.data.Schema;
 import dev.splitwright.model.DecisionTree;
 import java.util.List;
+import java.util.Locale;
 import javax.lang.model.element.Modifier;
 
 /**
@@ -41,7 +42,7 @@ final class ClassScaffold {
         .initializer("$L", schema.classCount()).build());
 
     NameAllocator names = new NameAllocator();
-    for (String reserved : List.of("FEATURE_COUNT", "CLASS_COUNT")) {
+    for (String reserved : List.of("FEATURE_COUNT", "CLASS_COUNT", "LABELS", "FEATURES", "SETS")) {
       names.newName(reserved, reserved);
     }
     for (int c = 0; c < schema.classCount(); c++) {
@@ -52,6 +53,7 @@ final class ClassScaffold {
           .addJavadoc("Class index of label \"$L\".\n", JavaText.javadoc(label))
           .initializer("$L", c).build());
     }
+    addCategoryCodes(type, schema, names);
     type.addField(StringTable.field("LABELS", schema.classes(), support));
     type.addField(StringTable.field("FEATURES", schema.featureNames(), support));
     type.addMethod(MethodSpec.methodBuilder("label")
@@ -69,6 +71,45 @@ final class ClassScaffold {
         .addStatement("return FEATURES[featureIndex]")
         .build());
     return type;
+  }
+
+  /** Categorical features with more categories than this get no named code constants. */
+  static final int MAX_NAMED_CATEGORIES = 256;
+
+  /** How many category code constants {@link #addCategoryCodes} writes for {@code schema}. */
+  static int namedCategoryCount(Schema schema) {
+    int n = 0;
+    for (Feature feature : schema.features()) {
+      if (feature.isCategorical() && feature.categories().size() <= MAX_NAMED_CATEGORIES) {
+        n += feature.categories().size();
+      }
+    }
+    return n;
+  }
+
+  /**
+   * One constant per category, e.g. {@code MODE_MANUAL = 1}, so callers pass codes by name; the
+   * original text is in each constant's Javadoc. Skipped for identifier-like columns with very
+   * many categories, whose code table is still in the class comment.
+   */
+  private static void addCategoryCodes(TypeSpec.Builder type, Schema schema, NameAllocator names) {
+    for (int f = 0; f < schema.featureCount(); f++) {
+      Feature feature = schema.feature(f);
+      if (!feature.isCategorical() || feature.categories().size() > MAX_NAMED_CATEGORIES) {
+        continue;
+      }
+      String prefix = Identifiers.ascii(feature.name(), "FEATURE" + f).toUpperCase(Locale.ROOT)
+          + "_";
+      for (int code = 0; code < feature.categories().size(); code++) {
+        String category = feature.categories().get(code);
+        type.addField(FieldSpec.builder(TypeName.INT,
+                Identifiers.constant(names, prefix, category, "feature" + f + "code" + code),
+                Modifier.PUBLIC, Modifier.STATIC, Modifier.FINAL)
+            .addJavadoc("Code of category \"$L\" of feature \"$L\" (input $L).\n",
+                JavaText.javadoc(category), JavaText.javadoc(feature.name()), f)
+            .initializer("$L", code).build());
+      }
+    }
   }
 
   private static CodeBlock classJavadoc(DecisionTree tree, EmitOptions options, HeaderInfo header) {

@@ -105,6 +105,21 @@ class EmitterGoldenTest {
              */
             public static final int CLASS_WORN = 1;
 
+            /**
+             * Code of category "auto" of feature "mode" (input 1).
+             */
+            public static final int MODE_AUTO = 0;
+
+            /**
+             * Code of category "manual" of feature "mode" (input 1).
+             */
+            public static final int MODE_MANUAL = 1;
+
+            /**
+             * Code of category "service" of feature "mode" (input 1).
+             */
+            public static final int MODE_SERVICE = 2;
+
             private static final String[] LABELS = {"normal", "worn"};
 
             private static final String[] FEATURES = {"rms velocity", "mode"};
@@ -210,6 +225,21 @@ class EmitterGoldenTest {
              * Class index of label "worn".
              */
             public static final int CLASS_WORN = 1;
+
+            /**
+             * Code of category "auto" of feature "mode" (input 1).
+             */
+            public static final int MODE_AUTO = 0;
+
+            /**
+             * Code of category "manual" of feature "mode" (input 1).
+             */
+            public static final int MODE_MANUAL = 1;
+
+            /**
+             * Code of category "service" of feature "mode" (input 1).
+             */
+            public static final int MODE_SERVICE = 2;
 
             private static final String[] LABELS = {"normal", "worn"};
 

@@ -225,8 +225,8 @@ class HostileNamesTest {
 
   /**
    * The shape of a class: each method's modifiers, return and parameter types, each field's
-   * modifiers and type, and how many public CLASS_ constants there are; names aside, which
-   * differ by design (CLASS_ constants and named parameters follow the labels).
+   * modifiers and type, and how many public named constants there are; names aside, which
+   * differ by design (CLASS_ and category constants and named parameters follow the text).
    */
   private static List<String> members(Class<?> type) {
     TreeSet<String> out = new TreeSet<>();
@@ -240,8 +240,10 @@ class HostileNamesTest {
     }
     List<String> fields = new ArrayList<>();
     for (Field f : type.getDeclaredFields()) {
-      String name = f.getName().startsWith("CLASS_") && !f.getName().equals("CLASS_COUNT")
-          ? "CLASS_*" : f.getName();
+      // CLASS_ and category code constants are named after the labels and categories.
+      boolean named = Modifier.isPublic(f.getModifiers()) && f.getType() == int.class
+          && !f.getName().equals("CLASS_COUNT") && !f.getName().equals("FEATURE_COUNT");
+      String name = named ? "NAMED_CONSTANT" : f.getName();
       fields.add(Modifier.toString(f.getModifiers()) + " " + f.getType().getName() + " " + name);
     }
     fields.sort(null);
