@@ -143,6 +143,11 @@ final class CompileCommand implements Callable<Integer> {
           + "of the leaf reached.")
   boolean probabilities;
 
+  @Option(names = "--bare",
+      description = "Emit only classify (and classProbabilities): no label and feature-name "
+          + "tables, accessors or constants, for the tightest size budgets.")
+  boolean bare;
+
   @Option(names = "--max-method-bytes", defaultValue = "8000", paramLabel = "N",
       description = "Largest bytecode of one method; HotSpot does not JIT-compile methods over "
           + "8000 bytes by default (default: ${DEFAULT-VALUE}).")
@@ -214,6 +219,7 @@ final class CompileCommand implements Callable<Integer> {
           .maxMethodBytes(maxMethodBytes)
           .namedArgs(namedArgs)
           .probabilities(probabilities)
+          .bare(bare)
           .build();
     } catch (IllegalArgumentException e) {
       throw bad(optionFor(e.getMessage()), e.getMessage());
@@ -301,6 +307,9 @@ final class CompileCommand implements Callable<Integer> {
     }
     if (probabilities) {
       parts.add("--probabilities");
+    }
+    if (bare) {
+      parts.add("--bare");
     }
     parts.addAll(budgetOptions.optionsText());
     return String.join(" ", parts);

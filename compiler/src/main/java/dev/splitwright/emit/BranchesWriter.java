@@ -57,7 +57,7 @@ final class BranchesWriter {
         .returns(TypeName.INT)
         .addJavadoc(EntryDoc.classify(tree.schema(), input));
     input.addParameters(classify);
-    if (!input.named()) {
+    if (input.checksLength()) {
       EntryDoc.addLengthCheck(classify, tree.schema());
     }
     MethodSpec.Builder root = classify;

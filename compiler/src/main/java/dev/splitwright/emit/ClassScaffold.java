@@ -31,6 +31,9 @@ final class ClassScaffold {
         .addModifiers(Modifier.PUBLIC, Modifier.FINAL)
         .addJavadoc(classJavadoc(tree, options, header));
     type.addMethod(MethodSpec.constructorBuilder().addModifiers(Modifier.PRIVATE).build());
+    if (options.bare()) {
+      return type;
+    }
 
     type.addField(FieldSpec.builder(TypeName.INT, "FEATURE_COUNT",
             Modifier.PUBLIC, Modifier.STATIC, Modifier.FINAL)

@@ -14,7 +14,8 @@ public record EmitOptions(
     InputKind inputKind,
     boolean namedArgs,
     boolean probabilities,
-    int maxMethodBytes) {
+    int maxMethodBytes,
+    boolean bare) {
 
   /** HotSpot's default HugeMethodLimit: larger methods are never JIT-compiled (measured by HotSpotJitTest). */
   public static final int DEFAULT_MAX_METHOD_BYTES = 8000;
@@ -53,7 +54,8 @@ public record EmitOptions(
         .inputKind(inputKind)
         .namedArgs(namedArgs)
         .probabilities(probabilities)
-        .maxMethodBytes(maxMethodBytes);
+        .maxMethodBytes(maxMethodBytes)
+        .bare(bare);
   }
 
   /** The binary name of the emitted class. */
@@ -70,6 +72,7 @@ public record EmitOptions(
     private boolean namedArgs;
     private boolean probabilities;
     private int maxMethodBytes = DEFAULT_MAX_METHOD_BYTES;
+    private boolean bare;
 
     private Builder(String packageName, String className) {
       this.packageName = packageName;
@@ -96,6 +99,16 @@ public record EmitOptions(
       return this;
     }
 
+    /**
+     * Emits {@code classify} (and {@code classProbabilities}) only: no label and feature-name
+     * tables, accessors or constants, for the tightest budgets. The class comment still lists
+     * features and classes.
+     */
+    public Builder bare(boolean value) {
+      this.bare = value;
+      return this;
+    }
+
     public Builder maxMethodBytes(int value) {
       this.maxMethodBytes = value;
       return this;
@@ -103,7 +116,8 @@ public record EmitOptions(
 
     public EmitOptions build() {
       return new EmitOptions(
-          packageName, className, layout, inputKind, namedArgs, probabilities, maxMethodBytes);
+          packageName, className, layout, inputKind, namedArgs, probabilities, maxMethodBytes,
+          bare);
     }
   }
 }

@@ -16,8 +16,10 @@ import java.util.List;
 final class InputAccess {
   private final InputKind kind;
   private final List<String> parameterNames;
+  private final boolean bare;
 
-  private InputAccess(InputKind kind, List<String> parameterNames) {
+  private InputAccess(InputKind kind, List<String> parameterNames, boolean bare) {
+    this.bare = bare;
     this.kind = kind;
     this.parameterNames = parameterNames;
   }
@@ -32,7 +34,7 @@ final class InputAccess {
 
   static InputAccess of(Schema schema, EmitOptions options) {
     if (!options.namedArgs()) {
-      return new InputAccess(options.inputKind(), List.of());
+      return new InputAccess(options.inputKind(), List.of(), options.bare());
     }
     if (schema.featureCount() > EmitOptions.MAX_NAMED_ARGS) {
       throw new EmitLimitException("named-args", "named arguments need at most "
@@ -47,7 +49,16 @@ final class InputAccess {
     for (int f = 0; f < schema.featureCount(); f++) {
       params.add(Identifiers.parameter(names, schema.feature(f).name(), f));
     }
-    return new InputAccess(options.inputKind(), List.copyOf(params));
+    return new InputAccess(options.inputKind(), List.copyOf(params), options.bare());
+  }
+
+  /**
+   * Tells whether entry methods check the input array's length first: not with named arguments
+   * (there is no array) and not in a bare class, where the check's exception and message would
+   * weigh about 150 bytes of a few-hundred-byte budget.
+   */
+  boolean checksLength() {
+    return !named() && !bare;
   }
 
   boolean named() {

@@ -155,7 +155,7 @@ final class LeafTable {
         .addJavadoc(EntryDoc.probabilities(schema, input));
     input.addParameters(m);
     m.addParameter(ArrayTypeName.of(TypeName.FLOAT), "out");
-    if (!input.named()) {
+    if (input.checksLength()) {
       EntryDoc.addLengthCheck(m, schema);
     }
     m.beginControlFlow("if (out.length != $L)", schema.classCount())

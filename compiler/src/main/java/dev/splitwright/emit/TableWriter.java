@@ -226,7 +226,7 @@ final class TableWriter {
         .returns(TypeName.INT)
         .addJavadoc(EntryDoc.classify(tree.schema(), input));
     input.addParameters(classify);
-    if (!input.named()) {
+    if (input.checksLength()) {
       EntryDoc.addLengthCheck(classify, tree.schema());
     }
     type.addMethod(classify.addStatement("return $L", leaves.classOf(leafCall)).build());

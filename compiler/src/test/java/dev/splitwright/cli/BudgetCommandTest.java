@@ -45,18 +45,22 @@ class BudgetCommandTest {
     // provenance in src/test/resources/datasets/README.md) and our own seeded pump demo sample.
     Path cancer = Path.of(BudgetCommandTest.class
         .getResource("/datasets/breast-cancer-wisconsin-diagnostic.csv").toURI());
+    Path pump = Path.of("../generated-samples/data/pump-vibration.csv");
+    // With --bare (no label and feature tables, no length check) every budget from 400 B fits.
     return Stream.of(
         Arguments.of(cancer, List.of()),
-        Arguments.of(Path.of("../generated-samples/data/pump-vibration.csv"),
-            List.of("--target", "state")));
+        Arguments.of(pump, List.of("--target", "state")),
+        Arguments.of(cancer, List.of("--bare")),
+        Arguments.of(pump, List.of("--target", "state", "--bare")));
   }
 
-  @ParameterizedTest(name = "{0}")
+  @ParameterizedTest(name = "{0} {1}")
   @MethodSource("dataSets")
   void choosesClassifiersThatFitGrowingBudgets(Path data, List<String> extra, @TempDir Path dir)
       throws IOException {
     double previousScore = Double.NEGATIVE_INFINITY;
     boolean fitted = false;
+    int fits = 0;
     for (int budget : new int[] {400, 1024, 2048, 4096, 16384}) {
       Path out = dir.resolve("b" + budget);
       List<String> args = new ArrayList<>(List.of("compile", "--data", data.toString(),
@@ -80,6 +84,7 @@ class BudgetCommandTest {
       }
       assertThat(run.exit()).as(run.err()).isZero();
       fitted = true;
+      fits++;
       JsonNode report = JSON.readTree(out.resolve("Fit.report.json").toFile());
       JsonNode selection = report.get("selection");
       int written = classFileOnDisk(out.resolve("demo/budget/Fit.java"), dir.resolve("javac"));
@@ -96,6 +101,9 @@ class BudgetCommandTest {
       assertThat(out.resolve("Fit.frontier.svg")).exists();
     }
     assertThat(fitted).as("some budget up to 16 KiB fits").isTrue();
+    if (extra.contains("--bare")) {
+      assertThat(fits).as("a bare classifier fits every budget from 400 B").isEqualTo(5);
+    }
   }
 
   @Test

@@ -57,7 +57,7 @@ class EmitterPropertyTest {
         for (Layout layout : List.of(Layout.BRANCHES, Layout.TABLE)) {
           EmitOptions o = new EmitOptions("prop", "Tree" + i + "_" + layout.optionName(), layout,
               options.inputKind(), options.namedArgs(), options.probabilities(),
-              options.maxMethodBytes());
+              options.maxMethodBytes(), options.bare());
           batch.add(new Case(tree, o, JavaEmitter.emit(tree, o, HeaderInfo.none()), i));
         }
       }
@@ -99,7 +99,8 @@ class EmitterPropertyTest {
         .inputKind(kind < 14 ? InputKind.FLOAT : kind < 17 ? InputKind.DOUBLE : InputKind.INT)
         .namedArgs(tree.schema().featureCount() <= EmitOptions.MAX_NAMED_ARGS
             && random.nextInt(5) == 0)
-        .probabilities(random.nextInt(5) == 0);
+        .probabilities(random.nextInt(5) == 0)
+        .bare(random.nextInt(4) == 0);
     if (random.nextInt(5) == 0) {
       b.maxMethodBytes(256 + random.nextInt(2000));
     }

@@ -112,6 +112,21 @@ class VerifierTest {
   }
 
   @Test
+  void bareClassHoldsOnlyTheClassifierAndIsSmaller() throws Exception {
+    DecisionTree tree = tree(1);
+    EmitOptions full = EmitOptions.builder("v", "Full").build();
+    EmitOptions bare = EmitOptions.builder("v", "Bare").bare(true).build();
+
+    VerificationResult fullResult = VERIFIER.verify(tree, emit(tree, full), full, List.of(), 2);
+    VerificationResult bareResult = VERIFIER.verify(tree, emit(tree, bare), bare, List.of(), 2);
+
+    assertThat(bareResult.passed()).as(bareResult.verdict()).isTrue();
+    assertThat(bareResult.methods()).extracting(m -> m.name())
+        .containsExactlyInAnyOrder("<init>", "classify", "inSet");
+    assertThat(bareResult.classFileBytes()).isLessThan(fullResult.classFileBytes());
+  }
+
+  @Test
   void classFileSizeWithoutDebugInfoIsSmaller() throws Exception {
     DecisionTree tree = tree(1);
     EmitOptions options = EmitOptions.builder("v", "Sized").build();
