@@ -1,5 +1,6 @@
 package dev.splitwright.cli;
 
+import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadOptions;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.InputKind;
@@ -144,7 +145,9 @@ final class CompileCommand implements Callable<Integer> {
     return ExitCodes.OK;
   }
 
-  private CompileRequest request() {
+  private CompileRequest request() throws InputException {
+    JavaNames.checkPackage(packageName);
+    JavaNames.checkClass(className);
     double[] fractions = Fractions.parse(spec.commandLine(), "--split", split);
     Impurity criterion = switch (impurity.toLowerCase(Locale.ROOT)) {
       case "gini" -> Impurity.GINI;
@@ -156,7 +159,7 @@ final class CompileCommand implements Callable<Integer> {
     try {
       TrainingOptions.Builder t = TrainingOptions.builder()
           .impurity(criterion)
-          .maxDepth(check("--max-depth", maxDepth, 1))
+          .maxDepth(check("--max-depth", maxDepth, 1, Limits.MAX_DEPTH))
           .minLeaf(check("--min-leaf", minLeaf, 1));
       if (maxLeaves != null) {
         t.maxLeaves(check("--max-leaves", maxLeaves, 2));
@@ -198,6 +201,13 @@ final class CompileCommand implements Callable<Integer> {
       throw bad(option, "must be at least " + least + ", but it is " + value);
     }
     return value;
+  }
+
+  private int check(String option, int value, int least, int most) {
+    if (value > most) {
+      throw bad(option, "must be at most " + most + ", but it is " + value);
+    }
+    return check(option, value, least);
   }
 
   private ParameterException bad(String option, String message) {

@@ -1,6 +1,7 @@
 package dev.splitwright.cli;
 
 import dev.splitwright.data.InputException;
+import dev.splitwright.job.OutputException;
 import java.io.PrintWriter;
 import picocli.CommandLine;
 
@@ -42,6 +43,9 @@ final class ErrorHandlers {
       if (e instanceof InputException) {
         err.println("error: " + oneLine(e.getMessage()));
         code = ExitCodes.BAD_INPUT;
+      } else if (e instanceof OutputException) {
+        err.println("error: " + oneLine(e.getMessage()));
+        code = ExitCodes.BAD_INPUT;
       } else if (e instanceof java.io.IOException) {
         err.println("error: cannot write output: " + oneLine(String.valueOf(e.getMessage())));
         code = ExitCodes.BAD_INPUT;
@@ -54,6 +58,19 @@ final class ErrorHandlers {
         e.printStackTrace(err);
       }
       return code;
+    }
+  }
+
+  static String outOfMemory() {
+    long maxMb = Runtime.getRuntime().maxMemory() / (1024 * 1024);
+    return "error: out of memory (Java heap limit " + maxMb + " MB); the data needs about 4 bytes"
+        + " per cell plus working space for training: run java with a larger -Xmx, or use fewer"
+        + " rows or columns";
+  }
+
+  static void traceIfDebug(Throwable e, String[] args, PrintWriter err) {
+    if (debug(args)) {
+      e.printStackTrace(err);
     }
   }
 

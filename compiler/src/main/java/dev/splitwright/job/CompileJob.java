@@ -29,6 +29,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
+import java.util.function.UnaryOperator;
 
 /**
  * Runs the main job: load, split, train (or read a saved model), score, emit, verify, and write the
@@ -36,9 +37,19 @@ import java.util.Objects;
  */
 public final class CompileJob {
   private final Verifier verifier;
+  private final UnaryOperator<DecisionTree> emitFrom;
 
   public CompileJob(Verifier verifier) {
+    this(verifier, UnaryOperator.identity());
+  }
+
+  /**
+   * Test seam: emits code from {@code emitFrom(tree)} but verifies it against {@code tree}, so a
+   * test can make verification fail on purpose and see that nothing is written.
+   */
+  CompileJob(Verifier verifier, UnaryOperator<DecisionTree> emitFrom) {
     this.verifier = Objects.requireNonNull(verifier, "verifier");
+    this.emitFrom = Objects.requireNonNull(emitFrom, "emitFrom");
   }
 
   /**
@@ -48,7 +59,10 @@ public final class CompileJob {
    * @throws IOException if an output cannot be written (nothing is left half-written)
    */
   public CompileResult run(CompileRequest request) throws InputException, IOException {
+    OutputTargets targets = OutputTargets.of(request);
+    targets.check();
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
+    TrainingClasses.requireTwo(request.data().toString(), loaded);
     Parts parts = split(loaded.dataset(), request);
     DecisionTree tree = request.model().isPresent()
         ? ModelFile.read(request.model().get())
@@ -63,29 +77,32 @@ public final class CompileJob {
     Map<String, Scores> scores = score(tree, parts);
     HeaderInfo header = new HeaderInfo(loaded.sourceName(), loaded.sha256(),
         request.optionsText(), scoreLines(scores));
-    EmittedSource source = JavaEmitter.emit(tree, request.emit(), header);
-    VerificationResult verification = verify(tree, source, request.emit(), parts, request.seed());
+    EmittedSource source = JavaEmitter.emit(emitFrom.apply(tree), request.emit(), header);
+    VerificationResult verification =
+        verify(tree, source, request.emit(), parts, request.seed(), request.data());
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
         optionsMap(request), request.emit(), source, verification, scores, null);
     if (!verification.passed()) {
       return new CompileResult(tree, source, verification, scores, report, List.of());
     }
     OutputFiles out = new OutputFiles();
-    out.add(request.outDir().resolve(source.relativePath()), source.source());
-    out.add(request.outDir().resolve(source.simpleName() + ".report.json"),
-        ReportJson.render(report));
-    if (request.saveModel().isPresent()) {
-      out.add(request.saveModel().get(), ModelFile.toJson(tree, optionsMap(request)));
+    out.add(targets.source(), source.source());
+    out.add(targets.report(), ReportJson.render(report));
+    if (targets.model().isPresent()) {
+      out.add(targets.model().get(), ModelFile.toJson(tree, optionsMap(request)));
     }
     out.commit();
     return new CompileResult(tree, source, verification, scores, report, out.paths());
   }
 
   private VerificationResult verify(DecisionTree tree, EmittedSource source, EmitOptions emit,
-      Parts parts, long seed) {
+      Parts parts, long seed, Path data) throws InputException {
     try {
       return verifier.verify(tree, source, emit, parts.all(), seed);
     } catch (CompilationException e) {
+      if (ClassFileLimits.exceeded(e)) {
+        throw ClassFileLimits.tooLarge(data.toString(), tree, e);
+      }
       // The emitter made source javac rejects: a bug of ours, not the user's input.
       throw new IllegalStateException("emitted source does not compile:\n" + e.getMessage(), e);
     }
