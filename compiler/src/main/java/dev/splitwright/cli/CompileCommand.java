@@ -136,13 +136,24 @@ final class CompileCommand implements Callable<Integer> {
     PrintWriter stderr = spec.commandLine().getErr();
     VerificationResult v = result.verification();
     if (!v.passed()) {
-      stderr.println("verification failed, nothing written: " + v.verdict());
+      stderr.println("verification failed, nothing written: " + v.verdict() + advice(v));
       return ExitCodes.VERIFICATION_FAILED;
     }
     if (!quiet) {
       Summary.print(stdout, result);
     }
     return ExitCodes.OK;
+  }
+
+  /** What to do about a failed verification; a disagreement is our bug, a size cap is not. */
+  private static String advice(VerificationResult v) {
+    if (v.mismatches() > 0) {
+      return "; please report this with the data and options";
+    }
+    if (v.maxMethodBytes() > v.methodByteCap()) {
+      return "; raise --max-method-bytes (at most 65535), or use fewer feature columns and classes";
+    }
+    return "";
   }
 
   private CompileRequest request() throws InputException {

@@ -144,6 +144,24 @@ class BadInputTableTest {
     };
   }
 
+  /** Four rows of {@code columns} small numeric features; the label follows the row's parity. */
+  private static Setup wide(int columns) {
+    return (dir, args) -> {
+      StringBuilder text = new StringBuilder();
+      for (int c = 0; c < columns; c++) {
+        text.append('f').append(c).append(',');
+      }
+      text.append("label\n");
+      for (int r = 0; r < 4; r++) {
+        for (int c = 0; c < columns; c++) {
+          text.append((r * 7 + c) % 5).append(',');
+        }
+        text.append(r % 2 == 0 ? "x" : "y").append('\n');
+      }
+      Files.writeString(dir.resolve("t.csv"), text);
+    };
+  }
+
   static Stream<Case> table() {
     return Stream.of(
         // Files that cannot be read.
@@ -229,6 +247,13 @@ class BadInputTableTest {
           Files.writeString(dir.resolve("t.csv"), text);
         }, "t.csv:65537:2", "more than 65535 distinct class labels",
             "choose a target column with fewer classes"),
+        // Sizes past what one class file holds.
+        new Case("feature and class tables over the method byte cap", 1, wide(1500),
+            List.of("verification failed, nothing written: a method has", "over the cap of 8000",
+                "raise --max-method-bytes")),
+        fails("too many feature columns for one class file", wide(8300), "t.csv",
+            "8300 features and 2 leaves does not fit in one Java class file",
+            "javac: 'code too large'", "use fewer class labels or feature columns"),
         // Output locations.
         fails("output path is an existing file", (dir, args) -> {
           csv(VALID).apply(dir, args);
