@@ -231,6 +231,7 @@ class BadInputTableTest {
         accepted("UTF-8 byte order mark", csv("\uFEFFlabel,a,b\nx,1,2\ny,3,4\nx,1,3\ny,4,4\n",
             "--target", "label")),
         accepted("CRLF line ends", csv(VALID.replace("\n", "\r\n"))),
+        accepted("no line break after the last row", csv(VALID.strip())),
         accepted("quoted fields with commas and newlines",
             csv("a,note,label\n1,\"left, low\",\"north, east\"\n2,\"two\nlines\",south\n"
                 + "3,\"left, low\",\"north, east\"\n4,\"two\nlines\",south\n")),
