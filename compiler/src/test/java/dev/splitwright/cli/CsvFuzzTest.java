@@ -15,6 +15,7 @@ import dev.splitwright.eval.SplitParts;
 import dev.splitwright.eval.StratifiedSplit;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.train.CartTrainer;
+import dev.splitwright.train.Impurity;
 import dev.splitwright.train.TrainingOptions;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
@@ -48,24 +49,34 @@ import org.junit.jupiter.api.io.TempDir;
  * target/fuzz-failures/} with its seed and mutations, to be replayed and kept as a regression test.
  */
 class CsvFuzzTest {
-  /** Fixed so that a failure replays exactly; change it only to explore new cases. */
-  private static final long SEED = 6_2024L;
+  /**
+   * Fixed so that a failure replays exactly. To explore further, run with {@code -Dfuzz.seed=N}
+   * and {@code -Dfuzz.cases=N}; CI always uses the defaults.
+   */
+  private static final long SEED = Long.getLong("fuzz.seed", 6_2024L);
 
-  private static final int CASES = 5000;
-  private static final int CLI_EVERY = 50;
+  private static final int CASES = Integer.getInteger("fuzz.cases", 5000);
+  private static final int CLI_EVERY = 100;
   private static final int TIMEOUT_SECONDS = 30;
   private static final int HUGE_FIELD = 1 << 20;
+  private static final int HUGE_EVERY = 40;
 
   private static final Path FAILURES = Path.of("target/fuzz-failures");
 
   @TempDir Path dir;
 
   /** A valid file to mutate and its class-label column. */
-  record Sample(String name, byte[] bytes, String target) {}
+  record Sample(String name, byte[] bytes, String target) {
+    /** The column names of the unmutated file, unquoted. */
+    List<String> header() {
+      String first = new String(bytes, StandardCharsets.UTF_8).lines().findFirst().orElse("");
+      return List.of(first.replace("\"", "").split(","));
+    }
+  }
 
   /** One mutated input: what was done to which sample, and with which options. */
   record Input(int index, Sample sample, List<String> mutations, byte[] bytes, LoadOptions options,
-      List<String> cliOptions) {
+      TrainingOptions training, double[] split, List<String> cliOptions) {
     @Override
     public String toString() {
       return "case " + index + " (" + sample.name() + ": " + String.join(", ", mutations) + "; "
@@ -136,9 +147,9 @@ class CsvFuzzTest {
     if (data.schema().classCount() < 2) {
       return "rejected (one class)"; // the job stops here with its own one-line error
     }
-    SplitParts parts = StratifiedSplit.split(data, 0.6, 0.2, 0.2, 1);
-    DecisionTree tree = CartTrainer.train(parts.train(), TrainingOptions.builder().maxDepth(3)
-        .build());
+    double[] f = input.split();
+    SplitParts parts = StratifiedSplit.split(data, f[0], f[1], f[2], 1);
+    DecisionTree tree = CartTrainer.train(parts.train(), input.training());
     Evaluator.score(tree, parts.test());
     String source = JavaEmitter.emit(tree, EmitOptions.builder("fuzz", "Fuzz").build(),
         HeaderInfo.none()).source();
@@ -158,8 +169,7 @@ class CsvFuzzTest {
   /** The whole command line, javac included: exit 0, or exit 2 with one clean line. */
   String runCli(Path file, Input input) {
     List<String> args = new ArrayList<>(List.of("compile", "--data", file.toString(), "--class",
-        "Fuzz", "--package", "fuzz", "--out", dir.resolve("out").toString(), "--max-depth", "3",
-        "--quiet"));
+        "Fuzz", "--package", "fuzz", "--out", dir.resolve("out").toString(), "--quiet"));
     args.addAll(input.cliOptions());
     StringWriter out = new StringWriter();
     StringWriter err = new StringWriter();
@@ -183,6 +193,10 @@ class CsvFuzzTest {
     for (int k = 0; k < count; k++) {
       m.apply(random.nextInt(Mutator.KINDS));
     }
+    if (random.nextInt(HUGE_EVERY) == 0) {
+      // Rarer than the rest: a megabyte per case would dominate the run time.
+      m.hugeField(random.nextInt(m.bytes().length + 1));
+    }
     List<String> cli = new ArrayList<>();
     LoadOptions.Builder options = LoadOptions.builder();
     if (random.nextInt(10) > 0) {
@@ -193,12 +207,40 @@ class CsvFuzzTest {
       options.missingTokens(List.of("NA", "?"));
       cli.addAll(List.of("--missing", "NA,?"));
     }
-    return new Input(index, sample, m.done, m.bytes(), options.build(), cli);
+    // Declared column kinds: a column may have lost its name or its numbers to the mutations.
+    List<String> header = sample.header();
+    if (random.nextInt(8) == 0) {
+      String column = header.get(random.nextInt(header.size()));
+      options.categoricalColumns(List.of(column));
+      cli.addAll(List.of("--categorical", column));
+    } else if (random.nextInt(8) == 0) {
+      String column = header.get(random.nextInt(header.size()));
+      options.numericColumns(List.of(column));
+      cli.addAll(List.of("--numeric", column));
+    }
+    // Small trees of varied shape keep the cases fast yet reach every growth rule.
+    int depth = 1 + random.nextInt(4);
+    int minLeaf = 1 + random.nextInt(random.nextBoolean() ? 3 : 300);
+    Impurity impurity = random.nextBoolean() ? Impurity.GINI : Impurity.ENTROPY;
+    TrainingOptions.Builder training =
+        TrainingOptions.builder().maxDepth(depth).minLeaf(minLeaf).impurity(impurity);
+    cli.addAll(List.of("--max-depth", Integer.toString(depth), "--min-leaf",
+        Integer.toString(minLeaf), "--impurity", impurity.name().toLowerCase(Locale.ROOT)));
+    if (random.nextInt(4) == 0) {
+      int leaves = 2 + random.nextInt(6);
+      training.maxLeaves(leaves);
+      cli.addAll(List.of("--max-leaves", Integer.toString(leaves)));
+    }
+    double[][] splits = {{0.6, 0.2, 0.2}, {1, 0, 0}, {0.1, 0.45, 0.45}, {0.5, 0.5, 0}};
+    double[] split = splits[random.nextInt(splits.length)];
+    cli.addAll(List.of("--split", split[0] + "," + split[1] + "," + split[2]));
+    return new Input(index, sample, m.done, m.bytes(), options.build(), training.build(), split,
+        cli);
   }
 
   /** Applies one mutation at a time to a growing byte buffer, logging what it did. */
   static final class Mutator {
-    static final int KINDS = 14;
+    static final int KINDS = 13;
     private static final String[] ODD_CELLS = {"NaN", "-Infinity", "inf", "1e39", "-1e39", "-0",
         "0x1p3", "2.5f", "1e-50", "", " ", "NA", "?", "3.4028236e38", "1.4e-45", "\"\"",
         "9".repeat(400), "1,5", "\u00e9", "\t"};
@@ -249,14 +291,13 @@ class CsvFuzzTest {
         }
         case 7 -> headerCell(true);
         case 8 -> headerCell(false);
-        case 9 -> hugeField(at);
-        case 10 -> replaceCell(ODD_CELLS[random.nextInt(ODD_CELLS.length)]);
-        case 11 -> {
+        case 9 -> replaceCell(ODD_CELLS[random.nextInt(ODD_CELLS.length)]);
+        case 10 -> {
           String[] oddities = {"\uFEFF", "\u0000", "\"\"", ",,,", "\"a\nb\""};
           insert(at, oddities[random.nextInt(oddities.length)], "oddity");
         }
-        case 12 -> duplicateLine();
-        case 13 -> replaceCell("label" + random.nextInt(100_000));
+        case 11 -> duplicateLine();
+        case 12 -> replaceCell("label" + random.nextInt(100_000));
         default -> throw new IllegalArgumentException("kind " + kind);
       }
     }
@@ -295,7 +336,7 @@ class CsvFuzzTest {
     }
 
     /** Replaces a random cell with about 1 MB of digits, letters or a quoted mix. */
-    private void hugeField(int near) {
+    void hugeField(int near) {
       int[] cell = cellAt(near);
       char[] alphabet = switch (random.nextInt(3)) {
         case 0 -> "0123456789".toCharArray();
