@@ -43,7 +43,7 @@ import org.junit.jupiter.api.io.TempDir;
  * a categorical variant of it, and the UCI voting records) are mutated by byte flips, truncation,
  * inserted quotes, delimiters, line breaks and random bytes, duplicated or removed header cells,
  * odd numbers and 1 MB fields. Every case must load and train, or fail with an {@link
- * InputException} of one line; one case in {@value #CLI_EVERY} runs the whole command line and must
+ * InputException} of one line; one case in 25 runs the whole command line and must
  * exit 0 or 2 with one clean stderr line. Nothing may throw anything else, hang past {@value
  * #TIMEOUT_SECONDS} s or run out of memory. A failing case is saved under {@code
  * target/fuzz-failures/} with its seed and mutations, to be replayed and kept as a regression test.
@@ -51,12 +51,12 @@ import org.junit.jupiter.api.io.TempDir;
 class CsvFuzzTest {
   /**
    * Fixed so that a failure replays exactly. To explore further, run with {@code -Dfuzz.seed=N}
-   * and {@code -Dfuzz.cases=N}; CI always uses the defaults.
+   * and {@code -Dfuzz.cases=N} (and {@code -Dfuzz.cliEvery=N}); CI always uses the defaults.
    */
   private static final long SEED = Long.getLong("fuzz.seed", 6_2024L);
 
   private static final int CASES = Integer.getInteger("fuzz.cases", 5000);
-  private static final int CLI_EVERY = 100;
+  private static final int CLI_EVERY = Integer.getInteger("fuzz.cliEvery", 25);
   private static final int TIMEOUT_SECONDS = 30;
   private static final int HUGE_FIELD = 1 << 20;
   private static final int HUGE_EVERY = 40;
