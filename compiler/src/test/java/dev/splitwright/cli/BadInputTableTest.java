@@ -221,6 +221,8 @@ class BadInputTableTest {
             "t.csv:2:2", "'-Infinity' is not a reading", "export missing readings as empty"),
         accepted("NaN text declared missing with --missing",
             csv("a,b,label\n1,2,x\n3,4,y\nNaN,5,x\n6,NaN,y\n", "--missing", "NaN")),
+        fails("hexadecimal number", csv("a,b,label\n0x1p3,2,x\n3,4,y\n"), "t.csv:2:1",
+            "'0x1p3' is not a plain decimal number (column 'a')", "write numbers as plain decimals"),
         fails("number beyond float32 range", csv("a,b,label\n1,2,x\n3,-1e39,y\n"), "t.csv:3:2",
             "'-1e39' is too large for a 32-bit float", "rescale the column or fix the cell",
             "not clamped"),
@@ -237,6 +239,8 @@ class BadInputTableTest {
                 + "3,\"left, low\",\"north, east\"\n4,\"two\nlines\",south\n")),
         fails("unterminated quote", csv("a,label\n1,x\n\"2,y\n3,z\n"), "t.csv:3",
             "a quoted cell starting in this row is never closed", "close the quote"),
+        fails("text after a closing quote", csv("a,label\n\"1\"2,x\n3,y\n"), "t.csv:2",
+            "text follows a closing quote in this row", "put the whole cell inside the quotes"),
         fails("non-UTF-8 bytes", (dir, args) -> Files.write(dir.resolve("t.csv"),
             bytes("a,label\n1,x\n2,caf", (byte) 0xE9, "\n")), "t.csv:3",
             "invalid UTF-8 byte 0xE9 at byte offset 17", "save the file as UTF-8"),
@@ -248,6 +252,15 @@ class BadInputTableTest {
           Files.writeString(dir.resolve("t.csv"), text);
         }, "t.csv:65537:2", "more than 65535 distinct class labels",
             "choose a target column with fewer classes"),
+        fails("more than 65535 distinct values in a categorical column", (dir, args) -> {
+          StringBuilder text = new StringBuilder("id,a,label\n");
+          for (int i = 0; i <= 65_535; i++) {
+            text.append("row").append(i).append(',').append(i % 7).append(i % 2 == 0 ? ",x\n"
+                : ",y\n");
+          }
+          Files.writeString(dir.resolve("t.csv"), text);
+        }, "t.csv:65537:1", "more than 65535 distinct values in a categorical column (column 'id')",
+            "drop identifier-like columns"),
         // Sizes past what one class file holds.
         new Case("feature and class tables over the method byte cap", 1, wide(1500),
             List.of("verification failed, nothing written: a method has", "over the cap of 8000",
