@@ -261,6 +261,16 @@ class BadInputTableTest {
           Files.writeString(dir.resolve("t.csv"), text);
         }, "t.csv:65537:1", "more than 65535 distinct values in a categorical column (column 'id')",
             "drop identifier-like columns"),
+        // Saved models.
+        fails("--model file that is not JSON", (dir, args) -> {
+          csv(VALID).apply(dir, args);
+          args.set("--model", Files.writeString(dir.resolve("m.json"), "{\"format\":").toString());
+        }, "m.json:1:", "not a valid Splitwright model file", "pass a file written by --save-model"),
+        fails("--model file of another format", (dir, args) -> {
+          csv(VALID).apply(dir, args);
+          args.set("--model", Files.writeString(dir.resolve("m.json"), "{}").toString());
+        }, "m.json:1:2: not a valid Splitwright model file: Cannot map `null` into type `int`;",
+            "pass a file written by --save-model"),
         // Sizes past what one class file holds.
         new Case("feature and class tables over the method byte cap", 1, wide(1500),
             List.of("verification failed, nothing written: a method has", "over the cap of 8000",
