@@ -9,6 +9,9 @@ import dev.splitwright.eval.Scores;
 import dev.splitwright.job.CompileJob;
 import dev.splitwright.job.CompileRequest;
 import dev.splitwright.job.CompileResult;
+import dev.splitwright.select.SearchSettings;
+import dev.splitwright.select.SelectionReport;
+import dev.splitwright.train.ClassWeights;
 import dev.splitwright.train.Impurity;
 import dev.splitwright.train.TrainingOptions;
 import dev.splitwright.verify.VerificationResult;
@@ -22,6 +25,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
@@ -89,6 +93,13 @@ final class CompileCommand implements Callable<Integer> {
       description = "Split criterion (default: ${DEFAULT-VALUE}).")
   String impurity;
 
+  @Option(names = "--class-weight", defaultValue = "none",
+      paramLabel = "balanced|none|LABEL=W,...",
+      description = "How much a training row of each class counts: balanced (inversely to class "
+          + "frequency), none, or per label, e.g. fault=5,normal=1; unnamed labels weigh 1 "
+          + "(default: ${DEFAULT-VALUE}).")
+  String classWeight;
+
   @Option(names = "--model", paramLabel = "FILE",
       description = "Emit this saved model instead of training (the CSV is still scored).")
   Path model;
@@ -110,17 +121,35 @@ final class CompileCommand implements Callable<Integer> {
   Path out;
 
   @Option(names = "--layout", defaultValue = "branches", paramLabel = "branches|table|smallest",
-      description = "Code layout (default: ${DEFAULT-VALUE}).")
+      description = "Code layout: nested ifs, a packed table walked by a loop (smaller for big "
+          + "trees), or whichever compiles smaller (default: ${DEFAULT-VALUE}).")
   String layout;
 
   @Option(names = "--input", defaultValue = "float", paramLabel = "float|double|int",
       description = "Element type of classify's input (default: ${DEFAULT-VALUE}).")
   String input;
 
+  @Option(names = "--int-inputs",
+      description = "Same as --input int: classify(int[] x) for raw counts; every numeric cell "
+          + "must be a whole number (none missing), else the run stops with exit code 2.")
+  boolean intInputs;
+
+  @Option(names = "--named-args",
+      description = "Emit classify(float rmsVelocity, float kurtosis, ...) with one parameter per "
+          + "feature instead of an array (at most 32 features).")
+  boolean namedArgs;
+
+  @Option(names = "--probabilities",
+      description = "Also emit classProbabilities(x, out), filling out with the class frequencies "
+          + "of the leaf reached.")
+  boolean probabilities;
+
   @Option(names = "--max-method-bytes", defaultValue = "8000", paramLabel = "N",
       description = "Largest bytecode of one method; HotSpot does not JIT-compile methods over "
           + "8000 bytes by default (default: ${DEFAULT-VALUE}).")
   int maxMethodBytes;
+
+  @Mixin BudgetOptions budgetOptions = new BudgetOptions();
 
   @Option(names = "--quiet", description = "Print nothing on success.")
   boolean quiet;
@@ -131,9 +160,12 @@ final class CompileCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     CompileRequest request = request();
-    CompileResult result = new CompileJob(Verifier.create()).run(request);
     PrintWriter stdout = spec.commandLine().getOut();
     PrintWriter stderr = spec.commandLine().getErr();
+    Optional<SearchSettings> budget =
+        budgetOptions.settings(spec.commandLine(), request.training(), seed);
+    ProgressBar progress = ProgressBar.forTerminal(stderr, quiet);
+    CompileResult result = new CompileJob(Verifier.create()).run(request, budget, progress);
     VerificationResult v = result.verification();
     if (!v.passed()) {
       stderr.println("verification failed, nothing written: " + v.verdict() + advice(v));
@@ -141,6 +173,9 @@ final class CompileCommand implements Callable<Integer> {
     }
     if (!quiet) {
       Summary.print(stdout, result);
+      if (result.report().selection() instanceof SelectionReport selection) {
+        BudgetSummary.print(stdout, selection, progress.stats());
+      }
     }
     return ExitCodes.OK;
   }
@@ -165,13 +200,22 @@ final class CompileCommand implements Callable<Integer> {
       case "entropy" -> Impurity.ENTROPY;
       default -> throw bad("--impurity", "must be gini or entropy, but it is '" + impurity + "'");
     };
+    ClassWeights weights = classWeights();
+    if (intInputs) {
+      if (spec.commandLine().getParseResult().hasMatchedOption("--input")
+          && !input.trim().equalsIgnoreCase("int")) {
+        throw bad("--int-inputs", "contradicts --input " + input);
+      }
+      input = "int";
+    }
     TrainingOptions training;
     EmitOptions emit;
     try {
       TrainingOptions.Builder t = TrainingOptions.builder()
           .impurity(criterion)
           .maxDepth(check("--max-depth", maxDepth, 1, Limits.MAX_DEPTH))
-          .minLeaf(check("--min-leaf", minLeaf, 1));
+          .minLeaf(check("--min-leaf", minLeaf, 1))
+          .weights(weights);
       if (maxLeaves != null) {
         t.maxLeaves(check("--max-leaves", maxLeaves, 2));
       }
@@ -182,6 +226,8 @@ final class CompileCommand implements Callable<Integer> {
           .inputKind(InputKind.parse(input).orElseThrow(() -> bad("--input",
               "must be float, double or int, but it is '" + input + "'")))
           .maxMethodBytes(maxMethodBytes)
+          .namedArgs(namedArgs)
+          .probabilities(probabilities)
           .build();
     } catch (IllegalArgumentException e) {
       throw bad(optionFor(e.getMessage()), e.getMessage());
@@ -195,6 +241,15 @@ final class CompileCommand implements Callable<Integer> {
     return new CompileRequest(data, Optional.ofNullable(testData), Optional.ofNullable(model),
         load, fractions, seed, training, emit, out, Optional.ofNullable(saveModel),
         optionsText());
+  }
+
+  private ClassWeights classWeights() {
+    try {
+      return ClassWeights.parse(classWeight);
+    } catch (IllegalArgumentException e) {
+      throw new ParameterException(spec.commandLine(),
+          "option '--class-weight': " + e.getMessage());
+    }
   }
 
   private static String optionFor(String message) {
@@ -254,10 +309,21 @@ final class CompileCommand implements Callable<Integer> {
       }
       parts.add("--min-leaf " + minLeaf);
       parts.add("--impurity " + impurity.toLowerCase(Locale.ROOT));
+      String weights = ClassWeights.parse(classWeight).optionText();
+      if (!weights.equals("none")) {
+        parts.add("--class-weight " + weights);
+      }
     }
     parts.add("--layout " + layout.toLowerCase(Locale.ROOT));
     parts.add("--input " + input.toLowerCase(Locale.ROOT));
     parts.add("--max-method-bytes " + maxMethodBytes);
+    if (namedArgs) {
+      parts.add("--named-args");
+    }
+    if (probabilities) {
+      parts.add("--probabilities");
+    }
+    parts.addAll(budgetOptions.optionsText());
     return String.join(" ", parts);
   }
 
@@ -275,9 +341,14 @@ final class CompileCommand implements Callable<Integer> {
             + "macro-F1 %.4f%n", e.getKey(), s.rows(), s.accuracy(), s.balancedAccuracy(),
             s.macroF1());
       }
+      RecallLine.of(result).ifPresent(out::println);
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
           + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
           v.classFileBytes(), v.classFileBytesWithoutDebug(), v.maxMethodBytes());
+      Object choice = result.report().options().get("layoutChoice");
+      if (choice != null) {
+        out.println("layout: " + choice);
+      }
       out.printf(Locale.ROOT, "verified: %d inputs, %d mismatches, branch coverage %.1f%% "
           + "(%d of %d splits both ways)%n", v.inputsChecked(), v.mismatches(),
           100 * v.branchCoverage(), v.coveredSplits(), v.splits());

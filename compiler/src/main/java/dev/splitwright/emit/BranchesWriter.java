@@ -1,6 +1,8 @@
 package dev.splitwright.emit;
 
+import com.palantir.javapoet.ArrayTypeName;
 import com.palantir.javapoet.CodeBlock;
+import com.palantir.javapoet.FieldSpec;
 import com.palantir.javapoet.MethodSpec;
 import com.palantir.javapoet.TypeName;
 import com.palantir.javapoet.TypeSpec;
@@ -10,35 +12,42 @@ import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
+import java.util.LinkedHashMap;
 import java.util.Locale;
+import java.util.Map;
 import javax.lang.model.element.Modifier;
 
 /** Emits the tree as nested {@code if} comparisons, split into methods under the bytecode cap. */
 final class BranchesWriter {
   private final DecisionTree tree;
-  private final EmitOptions options;
   private final InputAccess input;
   private final MethodPlan plan;
   private final TypeSpec.Builder type;
-  private boolean needsCategoryHelper;
-  private boolean needsWideCategoryHelper;
-  private int fieldIndex;
+  private final SupportMethods support;
+  private final LeafTable leaves;
+  /** Code sets of more than 64 categories, by content, with their offset in {@code SETS}. */
+  private final Map<String, Integer> wideSets = new LinkedHashMap<>();
+  private final PackedInts setData = new PackedInts();
 
   private BranchesWriter(DecisionTree tree, EmitOptions options, InputAccess input,
-      TypeSpec.Builder type) {
+      TypeSpec.Builder type, SupportMethods support) {
     this.tree = tree;
-    this.options = options;
     this.input = input;
     this.type = type;
+    this.support = support;
+    this.leaves = new LeafTable(options.probabilities());
     this.plan = MethodPlan.of(tree.root(), options.maxMethodBytes(),
         MethodPlan.ENTRY_CHECK_BYTES, input.callBytes());
   }
 
   static String write(DecisionTree tree, EmitOptions options, HeaderInfo header) {
     InputAccess input = InputAccess.of(tree.schema(), options);
-    TypeSpec.Builder type = ClassScaffold.start(tree, options, header, input);
-    BranchesWriter writer = new BranchesWriter(tree, options, input, type);
+    SupportMethods support = new SupportMethods(input.kind());
+    TypeSpec.Builder type = ClassScaffold.start(tree, options, header, support);
+    BranchesWriter writer = new BranchesWriter(tree, options, input, type, support);
+    writer.checkConstantPool();
     writer.addMethods();
+    support.addTo(type);
     return ClassScaffold.finish(type.build(), options, header);
   }
 
@@ -51,20 +60,36 @@ final class BranchesWriter {
     if (!input.named()) {
       EntryDoc.addLengthCheck(classify, tree.schema());
     }
-    classify.addCode(body(tree.root()));
-    type.addMethod(classify.build());
-    for (Node root : plan.methodRoots()) {
-      MethodSpec.Builder helper = MethodSpec.methodBuilder(plan.methodName(root))
+    MethodSpec.Builder root = classify;
+    if (leaves.probabilities()) {
+      // The tree returns a leaf number; classify and classProbabilities look it up.
+      String leafCall = "leaf(" + input.arguments() + ")";
+      classify.addStatement("return $L", leaves.classOf(leafCall));
+      type.addMethod(classify.build());
+      type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
+      root = MethodSpec.methodBuilder("leaf")
+          .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+          .returns(TypeName.INT);
+      input.addParameters(root);
+    }
+    type.addMethod(root.addCode(body(tree.root())).build());
+    for (Node node : plan.methodRoots()) {
+      MethodSpec.Builder helper = MethodSpec.methodBuilder(plan.methodName(node))
           .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
           .returns(TypeName.INT);
       input.addParameters(helper);
-      type.addMethod(helper.addCode(body(root)).build());
+      type.addMethod(helper.addCode(body(node)).build());
     }
-    if (needsCategoryHelper) {
-      type.addMethod(CategoryHelper.narrow(input.kind()));
+    if (!wideSets.isEmpty()) {
+      type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
+              Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+          .addJavadoc("Code sets of more than 64 categories: k, then ceil(k / 32) bit words.\n")
+          .initializer(StringTable.unpack(setData))
+          .build());
     }
-    if (needsWideCategoryHelper) {
-      type.addMethod(CategoryHelper.wide(input.kind()));
+    CodeBlock init = leaves.addFields(type, support);
+    if (!init.isEmpty()) {
+      type.addStaticBlock(init);
     }
   }
 
@@ -81,7 +106,8 @@ final class BranchesWriter {
       return;
     }
     if (node instanceof Leaf leaf) {
-      code.addStatement("return $L", leaf.prediction());
+      int payload = leaves.payload(leaf);
+      code.addStatement("return $L", payload);
       return;
     }
     Split split = (Split) node;
@@ -97,11 +123,14 @@ final class BranchesWriter {
     if (split instanceof NumericSplit numeric) {
       return numericCondition(value, numeric);
     }
+    if (input.kind() == InputKind.DOUBLE) {
+      value = "(float) " + value;
+    }
     CategoricalSplit categorical = (CategoricalSplit) split;
     int k = tree.schema().feature(split.feature()).categories().size();
     int[] codes = categorical.leftCodes().toArray();
     if (k <= Long.SIZE) {
-      needsCategoryHelper = true;
+      support.need(SupportMethods.Kind.IN_SET_NARROW);
       long mask = 0;
       for (int code : codes) {
         mask |= 1L << code;
@@ -109,11 +138,15 @@ final class BranchesWriter {
       return String.format(Locale.ROOT, "inSet(%s, %d, 0x%xL, %b)", value, k, mask,
           split.missingLeft());
     }
-    needsWideCategoryHelper = true;
-    String field = "SET_" + fieldIndex++;
-    type.addField(CategoryHelper.maskField(field, k, codes));
-    return String.format(Locale.ROOT, "inSet(%s, %d, %s, %b)", value, k, field,
-        split.missingLeft());
+    support.need(SupportMethods.Kind.IN_SET_WIDE);
+    String key = k + ":" + categorical.leftCodes();
+    Integer at = wideSets.get(key);
+    if (at == null) {
+      at = setData.count();
+      CategoryHelper.pack(setData, k, codes);
+      wideSets.put(key, at);
+    }
+    return String.format(Locale.ROOT, "inSet(%s, %d, %b)", value, at, split.missingLeft());
   }
 
   private String numericCondition(String value, NumericSplit split) {
@@ -123,13 +156,40 @@ final class BranchesWriter {
       case FLOAT -> split.missingLeft()
           ? "!(" + value + " > " + JavaText.floatLiteral(t) + ")"
           : value + " <= " + JavaText.floatLiteral(t);
-      case DOUBLE -> split.missingLeft()
-          ? "!(" + value + " > " + JavaText.doubleLiteral(Thresholds.forDouble(t)) + ")"
-          : value + " <= " + JavaText.doubleLiteral(Thresholds.forDouble(t));
+      case DOUBLE -> {
+        double d = Thresholds.forDouble(t);
+        yield split.missingLeft()
+            ? "!(" + value + " > " + JavaText.doubleLiteral(d) + ")"
+            : value + " <= " + JavaText.doubleLiteral(d);
+      }
       case INT -> {
         long n = Thresholds.forInt(t);
         yield n == Long.MIN_VALUE ? value + " < " + Integer.MIN_VALUE : value + " <= " + n;
       }
     };
+  }
+
+  /** Refuses a tree whose constants cannot fit one class file; the table layout always fits. */
+  private void checkConstantPool() {
+    long bound = constantBound();
+    if (bound > ConstantCount.LIMIT) {
+      throw new EmitLimitException("layout", String.format(Locale.ROOT,
+          "the branches layout of this tree needs up to %d class-file constants, over the "
+              + "limit of %d (JVM Specification 4.1)", bound, ConstantCount.LIMIT),
+          "use --layout table, whose constants do not grow with the tree");
+    }
+  }
+
+  private long constantBound() {
+    int methods = plan.methodRoots().size() + (leaves.probabilities() ? 1 : 0);
+    return ConstantCount.forBranches(tree, input.kind(), methods, leaves.probabilities());
+  }
+
+  /** The bound {@link #write} checks, for tests to hold against real class files. */
+  static long constantBound(DecisionTree tree, EmitOptions options) {
+    InputAccess input = InputAccess.of(tree.schema(), options);
+    SupportMethods support = new SupportMethods(input.kind());
+    TypeSpec.Builder type = ClassScaffold.start(tree, options, HeaderInfo.none(), support);
+    return new BranchesWriter(tree, options, input, type, support).constantBound();
   }
 }

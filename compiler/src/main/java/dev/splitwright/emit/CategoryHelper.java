@@ -1,11 +1,7 @@
 package dev.splitwright.emit;
 
-import com.palantir.javapoet.ArrayTypeName;
-import com.palantir.javapoet.CodeBlock;
-import com.palantir.javapoet.FieldSpec;
 import com.palantir.javapoet.MethodSpec;
 import com.palantir.javapoet.TypeName;
-import java.util.Locale;
 import javax.lang.model.element.Modifier;
 
 /**
@@ -19,56 +15,69 @@ final class CategoryHelper {
   static MethodSpec narrow(InputKind kind) {
     MethodSpec.Builder m = start(kind).addParameter(TypeName.LONG, "mask")
         .addParameter(TypeName.BOOLEAN, "missingLeft");
-    return m.beginControlFlow("if ($L)", validCode(kind))
-        .addStatement("return ((mask >>> (int) v) & 1L) != 0L")
+    return m.beginControlFlow("if ($L)", validCode(kind, "k"))
+        .addStatement("return ((mask >>> $L) & 1L) != 0L", code(kind))
         .endControlFlow()
         .addStatement("return missingLeft")
         .build();
   }
 
-  /** {@code inSet(v, k, masks, missingLeft)} for more than 64 categories. */
+  /**
+   * {@code inSet(v, at, missingLeft)} for a code set packed into {@code SETS}: {@code SETS[at]} is
+   * the number of categories k, then come ceil(k / 32) words, code c being bit {@code c & 31} of
+   * word {@code c >>> 5}.
+   */
   static MethodSpec wide(InputKind kind) {
-    MethodSpec.Builder m = start(kind).addParameter(ArrayTypeName.of(TypeName.LONG), "masks")
-        .addParameter(TypeName.BOOLEAN, "missingLeft");
-    return m.beginControlFlow("if ($L)", validCode(kind))
-        .addStatement("int code = (int) v")
-        .addStatement("return ((masks[code >>> 6] >>> (code & 63)) & 1L) != 0L")
-        .endControlFlow()
-        .addStatement("return missingLeft")
-        .build();
-  }
-
-  private static MethodSpec.Builder start(InputKind kind) {
-    TypeName valueType = switch (kind) {
-      case FLOAT -> TypeName.FLOAT;
-      case DOUBLE -> TypeName.DOUBLE;
-      case INT -> TypeName.INT;
-    };
     return MethodSpec.methodBuilder("inSet")
         .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
         .returns(TypeName.BOOLEAN)
-        .addParameter(valueType, "v")
+        .addParameter(valueType(kind), "v")
+        .addParameter(TypeName.INT, "at")
+        .addParameter(TypeName.BOOLEAN, "missingLeft")
+        .beginControlFlow("if ($L)", validCode(kind, "SETS[at]"))
+        .addStatement("int code = $L", code(kind))
+        .addStatement("return ((SETS[at + 1 + (code >>> 5)] >>> (code & 31)) & 1) != 0")
+        .endControlFlow()
+        .addStatement("return missingLeft")
+        .build();
+  }
+
+  /** Packs a code set as {@link #wide} reads it: k, then the bit words. */
+  static void pack(PackedInts out, int k, int[] codes) {
+    int[] words = new int[(k + 31) / 32];
+    for (int code : codes) {
+      words[code >>> 5] |= 1 << (code & 31);
+    }
+    out.add(k);
+    for (int word : words) {
+      out.add(word);
+    }
+  }
+
+  /**
+   * The value type the helpers take. A double input is narrowed to float by the caller, because
+   * the model decides on the float value: 2.9999999999 is code 3 once it is a float.
+   */
+  static TypeName valueType(InputKind kind) {
+    return kind == InputKind.INT ? TypeName.INT : TypeName.FLOAT;
+  }
+
+  /** The value as an int code; a cast of an int is a lint warning (and -Werror an error). */
+  private static String code(InputKind kind) {
+    return kind == InputKind.INT ? "v" : "(int) v";
+  }
+
+  private static MethodSpec.Builder start(InputKind kind) {
+    return MethodSpec.methodBuilder("inSet")
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.BOOLEAN)
+        .addParameter(valueType(kind), "v")
         .addParameter(TypeName.INT, "k");
   }
 
-  private static String validCode(InputKind kind) {
+  private static String validCode(InputKind kind, String k) {
     // NaN fails "v >= 0", so it is missing; so are fractions and codes past the table.
-    return kind == InputKind.INT ? "v >= 0 && v < k" : "v >= 0 && v < k && v == (int) v";
-  }
-
-  /** A {@code long[]} bit set of the codes, 64 codes a word. */
-  static FieldSpec maskField(String name, int k, int[] codes) {
-    long[] words = new long[(k + 63) / 64];
-    for (int code : codes) {
-      words[code >>> 6] |= 1L << (code & 63);
-    }
-    CodeBlock.Builder init = CodeBlock.builder().add("{");
-    for (int i = 0; i < words.length; i++) {
-      init.add(i == 0 ? "$L" : ",$W$L", String.format(Locale.ROOT, "0x%xL", words[i]));
-    }
-    return FieldSpec.builder(ArrayTypeName.of(TypeName.LONG), name,
-            Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
-        .initializer(init.add("}").build())
-        .build();
+    return kind == InputKind.INT ? "v >= 0 && v < " + k
+        : "v >= 0 && v < " + k + " && v == (int) v";
   }
 }

@@ -1,6 +1,5 @@
 package dev.splitwright.emit;
 
-import com.palantir.javapoet.ArrayTypeName;
 import com.palantir.javapoet.CodeBlock;
 import com.palantir.javapoet.FieldSpec;
 import com.palantir.javapoet.JavaFile;
@@ -25,7 +24,7 @@ final class ClassScaffold {
 
   /** Starts the class with everything but the tree. */
   static TypeSpec.Builder start(DecisionTree tree, EmitOptions options, HeaderInfo header,
-      InputAccess input) {
+      SupportMethods support) {
     Schema schema = tree.schema();
     TypeSpec.Builder type = TypeSpec.classBuilder(options.className())
         .addModifiers(Modifier.PUBLIC, Modifier.FINAL)
@@ -42,7 +41,7 @@ final class ClassScaffold {
         .initializer("$L", schema.classCount()).build());
 
     NameAllocator names = new NameAllocator();
-    for (String reserved : List.of("FEATURE_COUNT", "CLASS_COUNT", "LABELS", "FEATURES")) {
+    for (String reserved : List.of("FEATURE_COUNT", "CLASS_COUNT")) {
       names.newName(reserved, reserved);
     }
     for (int c = 0; c < schema.classCount(); c++) {
@@ -53,8 +52,8 @@ final class ClassScaffold {
           .addJavadoc("Class index of label \"$L\".\n", JavaText.javadoc(label))
           .initializer("$L", c).build());
     }
-    type.addField(stringTable("LABELS", schema.classes()));
-    type.addField(stringTable("FEATURES", schema.featureNames()));
+    type.addField(StringTable.field("LABELS", schema.classes(), support));
+    type.addField(StringTable.field("FEATURES", schema.featureNames(), support));
     type.addMethod(MethodSpec.methodBuilder("label")
         .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
         .returns(String.class)
@@ -70,17 +69,6 @@ final class ClassScaffold {
         .addStatement("return FEATURES[featureIndex]")
         .build());
     return type;
-  }
-
-  private static FieldSpec stringTable(String name, List<String> values) {
-    CodeBlock.Builder init = CodeBlock.builder().add("{");
-    for (int i = 0; i < values.size(); i++) {
-      init.add(i == 0 ? "$S" : ",$W$S", values.get(i));
-    }
-    return FieldSpec.builder(ArrayTypeName.of(String.class), name,
-            Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
-        .initializer(init.add("}").build())
-        .build();
   }
 
   private static CodeBlock classJavadoc(DecisionTree tree, EmitOptions options, HeaderInfo header) {

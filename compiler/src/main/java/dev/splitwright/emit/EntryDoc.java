@@ -15,17 +15,35 @@ final class EntryDoc {
             schema.classCount() - 1);
     String missing = switch (input.kind()) {
       case FLOAT, DOUBLE -> "NaN marks a missing value";
-      case INT -> "integer inputs cannot be missing";
+      case INT -> "a numeric value cannot be missing, a category code outside its table "
+          + "(such as -1) marks a missing category";
     };
     if (input.named()) {
       for (int f = 0; f < schema.featureCount(); f++) {
         doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
       }
     } else {
-      doc.add("@param x the $L feature values in the order of the class comment; $L; "
-          + "categorical features take their code\n", schema.featureCount(), missing);
+      doc.add("@param x the $L feature values in the order of the class comment; $L;\n"
+          + "    categorical features take their code\n", schema.featureCount(), missing);
     }
     return doc.add("@return the class index\n").build();
+  }
+
+  static CodeBlock probabilities(Schema schema, InputAccess input) {
+    CodeBlock.Builder doc = CodeBlock.builder()
+        .add("Fills {@code out} with the class frequencies of the training rows at the leaf\n"
+            + "this input reaches: {@code out[c]} is the share of class {@code c}, as float.\n"
+            + "The class {@link #classify} returns is not always the most frequent one when\n"
+            + "class weights were used in training.\n\n");
+    if (input.named()) {
+      for (int f = 0; f < schema.featureCount(); f++) {
+        doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
+      }
+    } else {
+      doc.add("@param x the $L feature values, as for {@link #classify}\n", schema.featureCount());
+    }
+    return doc.add("@param out receives $L frequencies, one per class index\n", schema.classCount())
+        .build();
   }
 
   private static String paramText(Feature feature) {
@@ -37,7 +55,7 @@ final class EntryDoc {
     method.beginControlFlow("if (x.length != $L)", schema.featureCount())
         // String.concat keeps the class free of invokedynamic string concatenation, whose
         // bootstrap lives in java.lang.invoke.
-        .addStatement("throw new IllegalArgumentException($S.concat(String.valueOf(x.length)))",
+        .addStatement("throw new IllegalArgumentException($W$S.concat(String.valueOf(x.length)))",
             "expected " + schema.featureCount() + " features but got ")
         .endControlFlow();
   }

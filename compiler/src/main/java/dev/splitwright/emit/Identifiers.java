@@ -5,16 +5,20 @@ import java.util.Locale;
 
 /** Makes ASCII Java identifiers out of user text such as column headers and class labels. */
 final class Identifiers {
+  /** Longest identifier made; the original text stays in the string tables. */
+  static final int MAX_LENGTH = 48;
+
   private Identifiers() {}
 
   /**
-   * Reduces {@code text} to {@code [A-Za-z0-9_]}, runs of other characters becoming one underscore;
-   * {@code fallback} stands in for text with no usable character.
+   * Reduces {@code text} to {@code [A-Za-z0-9_]}, runs of other characters becoming one underscore,
+   * cut at {@link #MAX_LENGTH} characters; {@code fallback} stands in for text with no usable
+   * character.
    */
   static String ascii(String text, String fallback) {
-    StringBuilder out = new StringBuilder(text.length());
+    StringBuilder out = new StringBuilder(Math.min(text.length(), MAX_LENGTH));
     boolean pendingUnderscore = false;
-    for (int i = 0; i < text.length(); i++) {
+    for (int i = 0; i < text.length() && out.length() < MAX_LENGTH; i++) {
       char c = text.charAt(i);
       boolean usable = (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || (c >= '0' && c <= '9');
       if (usable) {

@@ -22,15 +22,27 @@ final class InputAccess {
     this.parameterNames = parameterNames;
   }
 
+  /**
+   * Names a parameter must not take: the other parameters and locals of emitted methods, and
+   * restricted identifiers (JLS §3.9) that are legal names but confusing ones.
+   */
+  private static final List<String> RESERVED = List.of("x", "out", "leaf", "node", "left",
+      "i", "j", "c", "v", "at", "var", "yield", "record", "sealed", "permits");
+  private static final String RESERVED_TAG = "reserved:";
+
   static InputAccess of(Schema schema, EmitOptions options) {
     if (!options.namedArgs()) {
       return new InputAccess(options.inputKind(), List.of());
     }
     if (schema.featureCount() > EmitOptions.MAX_NAMED_ARGS) {
-      throw new IllegalArgumentException("named arguments need at most " + EmitOptions.MAX_NAMED_ARGS
-          + " features, but there are " + schema.featureCount());
+      throw new EmitLimitException("named-args", "named arguments need at most "
+          + EmitOptions.MAX_NAMED_ARGS + " features, but there are " + schema.featureCount(),
+          "pass the features as an array (leave out --named-args)");
     }
     NameAllocator names = new NameAllocator();
+    for (String reserved : RESERVED) {
+      names.newName(reserved, RESERVED_TAG + reserved);
+    }
     List<String> params = new ArrayList<>();
     for (int f = 0; f < schema.featureCount(); f++) {
       params.add(Identifiers.parameter(names, schema.feature(f).name(), f));
@@ -68,6 +80,14 @@ final class InputAccess {
     } else {
       method.addParameter(ArrayTypeName.of(elementType()), "x");
     }
+  }
+
+  /** An array of the inputs: {@code x}, or {@code new float[] {a, b}} for named parameters. */
+  String asArray() {
+    if (!named()) {
+      return "x";
+    }
+    return "new " + elementType() + "[] {" + String.join(", ", parameterNames) + "}";
   }
 
   /** The argument list that passes the inputs on to a helper method. */

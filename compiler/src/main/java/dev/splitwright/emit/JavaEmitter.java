@@ -11,8 +11,9 @@ public final class JavaEmitter {
    * Emits {@code tree} with the given layout and options. {@link Layout#SMALLEST} needs a compiler
    * to measure, so it is resolved by the caller; here it is rejected.
    *
-   * @throws IllegalArgumentException if the options do not fit the tree (e.g. named arguments for
-   *     more than 32 features)
+   * @throws EmitLimitException if the options do not fit the tree: named arguments for more than 32
+   *     features, or a {@code branches} tree with more constants than a class file holds
+   * @throws IllegalArgumentException for {@link Layout#SMALLEST}
    */
   public static EmittedSource emit(DecisionTree tree, EmitOptions options, HeaderInfo header) {
     Objects.requireNonNull(tree, "tree");
@@ -20,7 +21,7 @@ public final class JavaEmitter {
     Objects.requireNonNull(header, "header");
     String source = switch (options.layout()) {
       case BRANCHES -> BranchesWriter.write(tree, options, header);
-      case TABLE -> throw new IllegalArgumentException("layout 'table' is not available yet");
+      case TABLE -> TableWriter.write(tree, options, header);
       case SMALLEST -> throw new IllegalArgumentException(
           "layout 'smallest' is chosen by measuring both layouts; emit each and compare");
     };

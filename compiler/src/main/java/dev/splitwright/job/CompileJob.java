@@ -1,15 +1,13 @@
 package dev.splitwright.job;
 
-import dev.splitwright.check.CompilationException;
 import dev.splitwright.data.CsvLoader;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
 import dev.splitwright.data.SourcePosition;
-import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
-import dev.splitwright.emit.JavaEmitter;
+import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.Evaluator;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.eval.SplitParts;
@@ -18,7 +16,11 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
+import dev.splitwright.select.SearchProgress;
+import dev.splitwright.select.SearchSettings;
 import dev.splitwright.train.CartTrainer;
+import dev.splitwright.verify.LayoutChoice;
+import dev.splitwright.verify.LayoutChooser;
 import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
 import java.io.IOException;
@@ -29,6 +31,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Optional;
 import java.util.function.UnaryOperator;
 
 /**
@@ -59,11 +62,27 @@ public final class CompileJob {
    * @throws IOException if an output cannot be written (nothing is left half-written)
    */
   public CompileResult run(CompileRequest request) throws InputException, IOException {
-    OutputTargets targets = OutputTargets.of(request);
+    return run(request, Optional.empty(), SearchProgress.none());
+  }
+
+  /**
+   * Runs {@code request}; with {@code budget}, the tree is the best validated one that fits it
+   * (see {@link dev.splitwright.select.BudgetSelection}) and a frontier chart is written too.
+   *
+   * @throws InputException if a file or option is unusable, or the budget is too small
+   * @throws IOException if an output cannot be written (nothing is left half-written)
+   */
+  public CompileResult run(CompileRequest request, Optional<SearchSettings> budget,
+      SearchProgress progress) throws InputException, IOException {
+    OutputTargets targets = OutputTargets.of(request, budget.isPresent());
     targets.check();
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
     TrainingClasses.requireTwo(request.data().toString(), loaded);
+    DataChecks.trainingData(request, loaded);
     Parts parts = split(loaded.dataset(), request);
+    if (budget.isPresent()) {
+      return BudgetRun.run(verifier, request, loaded, parts, budget.get(), progress);
+    }
     DecisionTree tree = request.model().isPresent()
         ? ModelFile.read(request.model().get())
         : CartTrainer.train(parts.train(), request.training());
@@ -77,11 +96,18 @@ public final class CompileJob {
     Map<String, Scores> scores = score(tree, parts);
     HeaderInfo header = new HeaderInfo(loaded.sourceName(), loaded.sha256(),
         request.optionsText(), scoreLines(scores));
-    EmittedSource source = JavaEmitter.emit(emitFrom.apply(tree), request.emit(), header);
-    VerificationResult verification =
-        verify(tree, source, request.emit(), parts, request.seed(), request.data());
+    // --layout smallest is resolved here: both layouts emitted and compiled, the smaller kept.
+    LayoutChoice layout = LayoutChooser.resolve(emitFrom.apply(tree), request.emit(), header,
+        verifier.compiler());
+    EmittedSource source = layout.source();
+    VerificationResult verification = verifier.check(tree, layout.classes(), source,
+        layout.options(), parts.all(), request.seed());
+    Map<String, Object> options = optionsMap(request);
+    if (request.emit().layout() == Layout.SMALLEST) {
+      options.put("layoutChoice", layout.describe());
+    }
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
-        optionsMap(request), request.emit(), source, verification, scores, null);
+        options, layout.options(), source, verification, scores, null);
     if (!verification.passed()) {
       return new CompileResult(tree, source, verification, scores, report, List.of());
     }
@@ -95,19 +121,6 @@ public final class CompileJob {
     return new CompileResult(tree, source, verification, scores, report, out.paths());
   }
 
-  private VerificationResult verify(DecisionTree tree, EmittedSource source, EmitOptions emit,
-      Parts parts, long seed, Path data) throws InputException {
-    try {
-      return verifier.verify(tree, source, emit, parts.all(), seed);
-    } catch (CompilationException e) {
-      if (ClassFileLimits.exceeded(e)) {
-        throw ClassFileLimits.tooLarge(data.toString(), tree, e);
-      }
-      // The emitter made source javac rejects: a bug of ours, not the user's input.
-      throw new IllegalStateException("emitted source does not compile:\n" + e.getMessage(), e);
-    }
-  }
-
   /** The rows each part holds; validation and test may be empty. */
   record Parts(Dataset train, Dataset validation, Dataset test) {
     List<Dataset> all() {
@@ -119,7 +132,9 @@ public final class CompileJob {
     double[] f = request.fractions();
     if (request.testData().isPresent()) {
       Path testFile = request.testData().get();
-      Dataset test = CsvLoader.loadWithSchema(testFile, data.schema(), request.load()).dataset();
+      LoadedData testLoaded = CsvLoader.loadWithSchema(testFile, data.schema(), request.load());
+      DataChecks.evaluationData(request, testFile, testLoaded);
+      Dataset test = testLoaded.dataset();
       double trainShare = f[0] / (f[0] + f[1]);
       SplitParts p =
           StratifiedSplit.split(data, trainShare, 1 - trainShare, 0, request.seed());
@@ -129,7 +144,7 @@ public final class CompileJob {
     return new Parts(p.train(), p.validation(), p.test());
   }
 
-  private static Map<String, Scores> score(DecisionTree tree, Parts parts) {
+  static Map<String, Scores> score(DecisionTree tree, Parts parts) {
     Map<String, Scores> scores = new LinkedHashMap<>();
     scores.put("train", Evaluator.score(tree, parts.train()));
     if (parts.validation().rows() > 0) {
@@ -149,7 +164,7 @@ public final class CompileJob {
     return lines;
   }
 
-  private static Map<String, Object> optionsMap(CompileRequest request) {
+  static Map<String, Object> optionsMap(CompileRequest request) {
     Map<String, Object> options = new LinkedHashMap<>();
     options.put("command", request.optionsText());
     options.put("seed", request.seed());

@@ -4,8 +4,6 @@ import dev.splitwright.data.InputException;
 import dev.splitwright.emit.EmitOptions;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 
@@ -16,9 +14,11 @@ import java.util.Optional;
  * @param outDir the {@code --out} directory
  * @param source {@code <out>/<package path>/<Class>.java}
  * @param report {@code <out>/<Class>.report.json}
+ * @param frontier {@code <out>/<Class>.frontier.svg}, written by a budget search
  * @param model the {@code --save-model} file, if any
  */
-record OutputTargets(Path outDir, Path source, Path report, Optional<Path> model) {
+record OutputTargets(
+    Path outDir, Path source, Path report, Optional<Path> frontier, Optional<Path> model) {
 
   static final String OPTION_OUT = "out";
   static final String OPTION_SAVE_MODEL = "save-model";
@@ -27,14 +27,19 @@ record OutputTargets(Path outDir, Path source, Path report, Optional<Path> model
     Objects.requireNonNull(outDir, "outDir");
     Objects.requireNonNull(source, "source");
     Objects.requireNonNull(report, "report");
+    Objects.requireNonNull(frontier, "frontier");
     Objects.requireNonNull(model, "model");
   }
 
-  static OutputTargets of(CompileRequest request) {
+  /** The targets of {@code request}; {@code budgetSearch} adds the frontier chart. */
+  static OutputTargets of(CompileRequest request, boolean budgetSearch) {
     EmitOptions emit = request.emit();
     Path out = request.outDir();
+    Optional<Path> frontier = budgetSearch
+        ? Optional.of(out.resolve(emit.className() + ".frontier.svg"))
+        : Optional.empty();
     return new OutputTargets(out, out.resolve(emit.qualifiedName().replace('.', '/') + ".java"),
-        out.resolve(emit.className() + ".report.json"), request.saveModel());
+        out.resolve(emit.className() + ".report.json"), frontier, request.saveModel());
   }
 
   /**
@@ -50,6 +55,9 @@ record OutputTargets(Path outDir, Path source, Path report, Optional<Path> model
     }
     checkFile(OPTION_OUT, source);
     checkFile(OPTION_OUT, report);
+    if (frontier.isPresent()) {
+      checkFile(OPTION_OUT, frontier.get());
+    }
     if (model.isPresent()) {
       checkFile(OPTION_SAVE_MODEL, model.get());
     }
@@ -77,12 +85,5 @@ record OutputTargets(Path outDir, Path source, Path report, Optional<Path> model
       throw new InputException(option, "cannot write " + file + ": directory " + existing
           + " is not writable", "choose a directory you may write to, or change its permissions");
     }
-  }
-
-  /** Every target, in writing order. */
-  List<Path> all() {
-    List<Path> all = new ArrayList<>(List.of(source, report));
-    model.ifPresent(all::add);
-    return List.copyOf(all);
   }
 }

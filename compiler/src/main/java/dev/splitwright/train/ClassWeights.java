@@ -2,13 +2,16 @@ package dev.splitwright.train;
 
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.Schema;
+import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Collections;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
 import java.util.SortedMap;
 import java.util.TreeMap;
+import java.util.regex.Pattern;
 
 /**
  * How much one training row of each class counts in impurity, leaf predictions and pruning
@@ -21,6 +24,10 @@ public final class ClassWeights {
     BALANCED,
     EXPLICIT
   }
+
+  /** A plain decimal weight: no sign, hex, "NaN", "Infinity" or type suffix as Java would take. */
+  private static final Pattern DECIMAL =
+      Pattern.compile("([0-9]+(\\.[0-9]*)?|\\.[0-9]+)([eE][+-]?[0-9]+)?");
 
   private static final ClassWeights NONE = new ClassWeights(Kind.NONE, new TreeMap<>());
   private static final ClassWeights BALANCED = new ClassWeights(Kind.BALANCED, new TreeMap<>());
@@ -69,6 +76,73 @@ public final class ClassWeights {
       }
     }
     return new ClassWeights(Kind.EXPLICIT, copy);
+  }
+
+  /**
+   * Parses the command-line spelling: {@code balanced}, {@code none} (either in any case), or
+   * comma-separated {@code label=weight} pairs such as {@code fault=5,normal=1}. Labels and weights
+   * are trimmed; a label therefore cannot contain {@code ','} or {@code '='} or start or end with
+   * a space. Labels are checked against the data later, by {@link #unknownLabels}.
+   *
+   * @throws IllegalArgumentException if the text is none of these forms, a weight is not a positive
+   *     finite decimal, or a label appears twice
+   */
+  public static ClassWeights parse(String text) {
+    Objects.requireNonNull(text, "text");
+    String trimmed = text.trim();
+    String keyword = trimmed.toLowerCase(Locale.ROOT);
+    if (keyword.equals("balanced")) {
+      return BALANCED;
+    }
+    if (keyword.equals("none")) {
+      return NONE;
+    }
+    TreeMap<String, Double> weights = new TreeMap<>();
+    for (String pair : trimmed.split(",", -1)) {
+      int eq = pair.indexOf('=');
+      if (eq < 0 || pair.indexOf('=', eq + 1) >= 0) {
+        throw new IllegalArgumentException("expected balanced, none or label=weight pairs such as "
+            + "fault=5,normal=1, but found '" + pair.trim() + "'");
+      }
+      String label = pair.substring(0, eq).trim();
+      String weight = pair.substring(eq + 1).trim();
+      if (label.isEmpty()) {
+        throw new IllegalArgumentException("class label missing before '=" + weight + "'");
+      }
+      if (!DECIMAL.matcher(weight).matches()) {
+        throw new IllegalArgumentException("weight of class '" + label
+            + "' must be a positive decimal number, but it is '" + weight + "'");
+      }
+      if (weights.put(label, Double.parseDouble(weight)) != null) {
+        throw new IllegalArgumentException("class '" + label + "' is given a weight twice");
+      }
+    }
+    return of(weights);
+  }
+
+  /**
+   * Returns the labels an explicit weight names that are not among {@code classes}, in label
+   * order; empty for {@link #none()} and {@link #balanced()}.
+   */
+  public List<String> unknownLabels(List<String> classes) {
+    Objects.requireNonNull(classes, "classes");
+    List<String> unknown = new ArrayList<>();
+    for (String label : byLabel.keySet()) {
+      if (!classes.contains(label)) {
+        unknown.add(label);
+      }
+    }
+    return List.copyOf(unknown);
+  }
+
+  /** Renders the spelling {@link #parse} reads: {@code none}, {@code balanced} or the pairs. */
+  public String optionText() {
+    if (kind != Kind.EXPLICIT) {
+      return kind.name().toLowerCase(Locale.ROOT);
+    }
+    List<String> pairs = new ArrayList<>();
+    byLabel.forEach((label, w) -> pairs.add(label + "=" + w));
+    return String.join(",", pairs);
   }
 
   /** Resolves the weight of each class of {@code train}'s schema, in class-code order. */

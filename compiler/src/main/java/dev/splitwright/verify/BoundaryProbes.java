@@ -10,6 +10,7 @@ import dev.splitwright.model.Split;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.function.BiConsumer;
 
 /**
  * Builds, for every split, inputs that reach it (each comparison on its path satisfied) and then
@@ -27,23 +28,31 @@ final class BoundaryProbes {
 
   static List<float[]> of(DecisionTree tree) {
     BoundaryProbes probes = new BoundaryProbes(tree.schema());
-    probes.visit(tree.root(), PathState.initial(tree.schema()));
+    forEachSplit(tree, (split, base) -> {
+      for (float v : probes.valuesAround(split)) {
+        float[] probe = base.clone();
+        probe[split.feature()] = v;
+        probes.out.add(probe);
+      }
+    });
     return probes.out;
   }
 
-  private void visit(Node node, PathState state) {
+  /**
+   * Calls {@code action} for every split in pre-order with an input that reaches it: every
+   * comparison on the path is satisfied, present values preferred.
+   */
+  static void forEachSplit(DecisionTree tree, BiConsumer<Split, float[]> action) {
+    visit(tree.root(), PathState.initial(tree.schema()), action);
+  }
+
+  private static void visit(Node node, PathState state, BiConsumer<Split, float[]> action) {
     if (!(node instanceof Split split)) {
       return;
     }
-    float[] base = state.witness();
-    int f = split.feature();
-    for (float v : valuesAround(split)) {
-      float[] probe = base.clone();
-      probe[f] = v;
-      out.add(probe);
-    }
-    visit(split.left(), state.then(split, true));
-    visit(split.right(), state.then(split, false));
+    action.accept(split, state.witness());
+    visit(split.left(), state.then(split, true), action);
+    visit(split.right(), state.then(split, false), action);
   }
 
   private float[] valuesAround(Split split) {

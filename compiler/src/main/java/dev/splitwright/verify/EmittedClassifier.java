@@ -1,5 +1,6 @@
 package dev.splitwright.verify;
 
+import dev.splitwright.data.Schema;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.InputKind;
 import java.lang.reflect.InvocationTargetException;
@@ -9,21 +10,43 @@ import java.util.Arrays;
 /**
  * Calls a loaded classifier's {@code classify} whatever its signature, from a float probe. For
  * {@code int} and {@code double} inputs it also says what float input the model must be asked
- * about, so the comparison stays exact: the model sees what the device's value converts to.
+ * about, so the comparison stays exact: the model sees what the device's value converts to. For
+ * {@code int} inputs a missing (NaN) category is passed as code -1, the way a device says
+ * "missing" to an int classifier; other NaNs convert as Java does, to 0.
  */
 final class EmittedClassifier {
   private final Method classify;
+  private final Method probabilities;
   private final InputKind kind;
   private final boolean named;
+  private final int classCount;
+  /** Features whose NaN becomes -1 rather than 0 as int; null when none. */
+  private final boolean[] categorical;
 
-  private EmittedClassifier(Method classify, InputKind kind, boolean named) {
+  private EmittedClassifier(Method classify, Method probabilities, InputKind kind, boolean named,
+      int classCount, boolean[] categorical) {
     this.classify = classify;
+    this.probabilities = probabilities;
     this.kind = kind;
     this.named = named;
+    this.classCount = classCount;
+    this.categorical = categorical;
   }
 
-  static EmittedClassifier of(Class<?> type, EmitOptions options, int featureCount)
+  /** Like {@link #of(Class, EmitOptions, int, int)}, passing missing categories as -1 to ints. */
+  static EmittedClassifier of(Class<?> type, EmitOptions options, Schema schema)
       throws NoSuchMethodException {
+    EmittedClassifier plain = of(type, options, schema.featureCount(), schema.classCount());
+    boolean[] categorical = new boolean[schema.featureCount()];
+    for (int f = 0; f < categorical.length; f++) {
+      categorical[f] = schema.feature(f).isCategorical();
+    }
+    return new EmittedClassifier(plain.classify, plain.probabilities, plain.kind, plain.named,
+        plain.classCount, categorical);
+  }
+
+  static EmittedClassifier of(Class<?> type, EmitOptions options, int featureCount,
+      int classCount) throws NoSuchMethodException {
     Class<?> element = switch (options.inputKind()) {
       case FLOAT -> float.class;
       case DOUBLE -> double.class;
@@ -36,8 +59,14 @@ final class EmittedClassifier {
     } else {
       parameters = new Class<?>[] {element.arrayType()};
     }
-    return new EmittedClassifier(type.getMethod("classify", parameters), options.inputKind(),
-        options.namedArgs());
+    Method probabilities = null;
+    if (options.probabilities()) {
+      Class<?>[] withOut = Arrays.copyOf(parameters, parameters.length + 1);
+      withOut[parameters.length] = float[].class;
+      probabilities = type.getMethod("classProbabilities", withOut);
+    }
+    return new EmittedClassifier(type.getMethod("classify", parameters), probabilities,
+        options.inputKind(), options.namedArgs(), classCount, null);
   }
 
   /** The input the float model must see for {@code probe}: the probe after conversion. */
@@ -47,15 +76,73 @@ final class EmittedClassifier {
     }
     float[] x = new float[probe.length];
     for (int f = 0; f < x.length; f++) {
-      x[f] = (float) toInt(probe[f]);
+      x[f] = (float) toInt(probe[f], f);
     }
     return x;
   }
 
+  /** What the float model must see for an int input: each value converted to float. */
+  static float[] modelInput(int[] x) {
+    float[] v = new float[x.length];
+    for (int f = 0; f < v.length; f++) {
+      v[f] = x[f];
+    }
+    return v;
+  }
+
   int classify(float[] probe) {
-    Object[] args = named ? spread(probe) : new Object[] {array(probe)};
+    return (Integer) call(classify, named ? spread(probe) : new Object[] {array(probe)});
+  }
+
+  /** Calls an int classifier with exactly these ints. */
+  int classifyInts(int[] x) {
+    if (kind != InputKind.INT) {
+      throw new IllegalStateException("the classifier takes " + kind.optionName() + " inputs");
+    }
+    Object[] args;
+    if (named) {
+      args = new Object[x.length];
+      for (int f = 0; f < x.length; f++) {
+        args[f] = x[f];
+      }
+    } else {
+      args = new Object[] {x.clone()};
+    }
+    return (Integer) call(classify, args);
+  }
+
+  /** Classifies a double input; only for a classifier that takes doubles. */
+  int classifyDouble(double[] x) {
+    if (kind != InputKind.DOUBLE) {
+      throw new IllegalStateException("the classifier takes " + kind.optionName() + " input");
+    }
+    Object[] args;
+    if (named) {
+      args = new Object[x.length];
+      for (int f = 0; f < x.length; f++) {
+        args[f] = x[f];
+      }
+    } else {
+      args = new Object[] {x.clone()};
+    }
+    return (Integer) call(classify, args);
+  }
+
+  /** The class frequencies {@code classProbabilities} writes for {@code probe}. */
+  float[] probabilities(float[] probe) {
+    Object[] inputs = named ? spread(probe) : new Object[] {array(probe)};
+    Object[] args = Arrays.copyOf(inputs, inputs.length + 1);
+    float[] out = new float[classCount];
+    // A value the method must overwrite, so "left untouched" is caught.
+    Arrays.fill(out, Float.NaN);
+    args[inputs.length] = out;
+    call(probabilities, args);
+    return out;
+  }
+
+  private static Object call(Method method, Object[] args) {
     try {
-      return (Integer) classify.invoke(null, args);
+      return method.invoke(null, args);
     } catch (InvocationTargetException e) {
       Throwable cause = e.getCause();
       throw cause instanceof RuntimeException r ? r : new IllegalStateException(cause);
@@ -77,7 +164,7 @@ final class EmittedClassifier {
       case INT -> {
         int[] n = new int[probe.length];
         for (int f = 0; f < n.length; f++) {
-          n[f] = toInt(probe[f]);
+          n[f] = toInt(probe[f], f);
         }
         yield n;
       }
@@ -90,14 +177,20 @@ final class EmittedClassifier {
       args[f] = switch (kind) {
         case FLOAT -> probe[f];
         case DOUBLE -> (double) probe[f];
-        case INT -> toInt(probe[f]);
+        case INT -> toInt(probe[f], f);
       };
     }
     return args;
   }
 
-  /** Java's float-to-int conversion (JLS §5.1.3): NaN to 0, saturating at the int range. */
-  private static int toInt(float v) {
+  /**
+   * Java's float-to-int conversion (JLS §5.1.3): NaN to 0, saturating at the int range; but a
+   * missing category to -1, which int classifiers read as missing.
+   */
+  private int toInt(float v, int feature) {
+    if (Float.isNaN(v) && categorical != null && categorical[feature]) {
+      return -1;
+    }
     return (int) v;
   }
 }

@@ -8,6 +8,8 @@ import java.util.Objects;
  * What verifying one emitted classifier found: how many inputs agreed with the model, which did
  * not, how many splits were taken both ways, and what the compiled class weighs.
  *
+ * @param maxMethodBytes the largest bytecode of a method that runs per call: every method but the
+ *     static initializer, which runs once and is held only to the JVM's limit
  * @param foreignReferences classes the compiled code refers to outside {@code java/lang}
  */
 public record VerificationResult(

@@ -4,12 +4,14 @@ import dev.splitwright.check.ClassFileInfo;
 import dev.splitwright.check.CompilationException;
 import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.check.ComparisonResult;
-import dev.splitwright.check.Mismatch;
 import dev.splitwright.check.InMemoryCompiler;
+import dev.splitwright.check.MethodSize;
+import dev.splitwright.check.Mismatch;
 import dev.splitwright.check.OracleComparison;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
+import dev.splitwright.emit.InputKind;
 import dev.splitwright.model.DecisionTree;
 import java.util.ArrayList;
 import java.util.List;
@@ -18,7 +20,10 @@ import java.util.Objects;
 /**
  * Proves an emitted classifier returns what the model returns: compiles the source in memory,
  * loads it in a fresh class loader and compares {@code classify} with {@link DecisionTree#predict}
- * on every data row, on boundary probes for every split and on seeded random inputs.
+ * on every data row, on boundary probes for every split and on seeded random inputs. A classifier
+ * taking {@code int} inputs is also checked on int boundary probes ({@link IntProbes}): each
+ * threshold's integer neighbours and the int extremes, with the model asked about their float
+ * conversions.
  */
 public final class Verifier {
   /** The javac options a user's build would use; the class file measured is the one they get. */
@@ -29,9 +34,23 @@ public final class Verifier {
   private static final int REPORTED_MISMATCHES = 5;
 
   private final InMemoryCompiler compiler;
+  private final int randomProbes;
 
   public Verifier(InMemoryCompiler compiler) {
+    this(compiler, RANDOM_PROBES);
+  }
+
+  private Verifier(InMemoryCompiler compiler, int randomProbes) {
     this.compiler = Objects.requireNonNull(compiler, "compiler");
+    this.randomProbes = randomProbes;
+  }
+
+  /** This verifier with {@code count} seeded random inputs per check instead of 2,000. */
+  public Verifier withRandomProbes(int count) {
+    if (count < 0) {
+      throw new IllegalArgumentException("count must be >= 0, but it is " + count);
+    }
+    return new Verifier(compiler, count);
   }
 
   /** A verifier with its own compiler using {@link #JAVAC_OPTIONS}. */
@@ -55,7 +74,14 @@ public final class Verifier {
     return check(tree, classes, source, options, data, seed);
   }
 
-  /** Verifies an already compiled class; lets callers compile many candidates in one batch. */
+  /**
+   * Verifies an already compiled class; lets callers compile many candidates in one batch.
+   *
+   * <p>Compares {@code classify} with the model on every input; for {@code double} input also on
+   * {@link DoubleProbes}, where rounding to float decides; with {@code --probabilities} also
+   * {@code classProbabilities} with {@link DecisionTree#probabilities} narrowed to float, bit for
+   * bit. Mismatches of all comparisons are counted together.
+   */
   public VerificationResult check(DecisionTree tree, CompiledClasses classes, EmittedSource source,
       EmitOptions options, List<Dataset> data, long seed) {
     byte[] bytes = classes.bytes(source.qualifiedName());
@@ -63,30 +89,86 @@ public final class Verifier {
     EmittedClassifier candidate;
     try {
       candidate = EmittedClassifier.of(classes.load(source.qualifiedName()), options,
-          tree.schema().featureCount());
+          tree.schema());
     } catch (ReflectiveOperationException e) {
       throw new IllegalStateException("emitted class has no usable classify method", e);
     }
-    List<float[]> inputs = inputs(tree, data, seed);
+    List<float[]> inputs = inputs(tree, data, seed, randomProbes);
     Coverage coverage = new Coverage(tree);
     for (float[] x : inputs) {
       coverage.record(candidate.modelInput(x));
     }
-    ComparisonResult<float[], Integer> result = OracleComparison.compare(
-        inputs, candidate::classify, x -> tree.predict(candidate.modelInput(x)),
-        REPORTED_MISMATCHES);
-    List<String> mismatches = new ArrayList<>();
-    for (Mismatch<float[], Integer> m : result.firstMismatches()) {
-      mismatches.add(m.describe());
+    Tally tally = new Tally();
+    tally.add("", OracleComparison.compare(inputs, candidate::classify,
+        x -> tree.predict(candidate.modelInput(x)), REPORTED_MISMATCHES));
+    long inputsChecked = inputs.size();
+    if (options.inputKind() == InputKind.DOUBLE) {
+      List<double[]> doubles = DoubleProbes.of(tree);
+      for (double[] x : doubles) {
+        coverage.record(DoubleProbes.narrow(x));
+      }
+      tally.add("double input ", OracleComparison.compare(doubles, candidate::classifyDouble,
+          x -> tree.predict(DoubleProbes.narrow(x)), REPORTED_MISMATCHES));
+      inputsChecked += doubles.size();
+    }
+    if (options.probabilities()) {
+      tally.add("classProbabilities ", OracleComparison.compare(inputs, candidate::probabilities,
+          x -> narrow(tree.probabilities(candidate.modelInput(x))), REPORTED_MISMATCHES));
+    }
+    if (options.inputKind() == InputKind.INT) {
+      List<int[]> ints = IntProbes.of(tree);
+      for (int[] x : ints) {
+        coverage.record(EmittedClassifier.modelInput(x));
+      }
+      tally.add("int probe ", OracleComparison.compare(ints, candidate::classifyInts,
+          x -> tree.predict(EmittedClassifier.modelInput(x)), REPORTED_MISMATCHES));
+      inputsChecked += ints.size();
     }
     String self = source.qualifiedName().replace('.', '/');
     List<String> foreign = info.referencedClasses().stream()
         .filter(name -> !name.equals(self) && !isJavaLang(name))
         .toList();
-    return new VerificationResult(result.checked(), result.mismatchCount(), mismatches,
+    return new VerificationResult(inputsChecked, tally.mismatches, tally.first,
         coverage.splits(), coverage.covered(), bytes.length, info.debugAttributeBytes(),
-        info.maxCodeLength(), options.maxMethodBytes(), info.methods(), info.constantPoolCount(),
-        foreign);
+        largestPerCallMethod(info), options.maxMethodBytes(), info.methods(),
+        info.constantPoolCount(), foreign);
+  }
+
+  /**
+   * The largest code of any method but the static initializer. The cap is there so HotSpot
+   * compiles what runs per call; {@code <clinit>} runs once, when the class is initialised, and
+   * its size does not grow with the tree (the tree is data there), so only the JVM's own limit of
+   * 65,535 bytes (JVMS §4.7.3) applies to it, which javac enforces.
+   */
+  static int largestPerCallMethod(ClassFileInfo info) {
+    return info.methods().stream()
+        .filter(m -> !m.name().equals("<clinit>"))
+        .mapToInt(MethodSize::codeLength)
+        .max()
+        .orElse(0);
+  }
+
+  private static float[] narrow(double[] p) {
+    float[] out = new float[p.length];
+    for (int c = 0; c < out.length; c++) {
+      out[c] = (float) p[c];
+    }
+    return out;
+  }
+
+  /** Mismatches of several comparisons, the first few described. */
+  private static final class Tally {
+    long mismatches;
+    final List<String> first = new ArrayList<>();
+
+    <I, R> void add(String what, ComparisonResult<I, R> result) {
+      mismatches += result.mismatchCount();
+      for (Mismatch<I, R> m : result.firstMismatches()) {
+        if (first.size() < REPORTED_MISMATCHES) {
+          first.add(what + m.describe());
+        }
+      }
+    }
   }
 
   private static boolean isJavaLang(String internalName) {
@@ -94,7 +176,7 @@ public final class Verifier {
   }
 
   /** Every data row, then the boundary probes, then the random probes. */
-  static List<float[]> inputs(DecisionTree tree, List<Dataset> data, long seed) {
+  static List<float[]> inputs(DecisionTree tree, List<Dataset> data, long seed, int randomProbes) {
     List<float[]> inputs = new ArrayList<>();
     Dataset reference = null;
     for (Dataset part : data) {
@@ -106,7 +188,7 @@ public final class Verifier {
       }
     }
     inputs.addAll(BoundaryProbes.of(tree));
-    inputs.addAll(RandomProbes.of(tree, reference, RANDOM_PROBES, seed));
+    inputs.addAll(RandomProbes.of(tree, reference, randomProbes, seed));
     return inputs;
   }
 }

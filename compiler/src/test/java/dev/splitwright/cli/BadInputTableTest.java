@@ -144,24 +144,6 @@ class BadInputTableTest {
     };
   }
 
-  /** Four rows of {@code columns} small numeric features; the label follows the row's parity. */
-  private static Setup wide(int columns) {
-    return (dir, args) -> {
-      StringBuilder text = new StringBuilder();
-      for (int c = 0; c < columns; c++) {
-        text.append('f').append(c).append(',');
-      }
-      text.append("label\n");
-      for (int r = 0; r < 4; r++) {
-        for (int c = 0; c < columns; c++) {
-          text.append((r * 7 + c) % 5).append(',');
-        }
-        text.append(r % 2 == 0 ? "x" : "y").append('\n');
-      }
-      Files.writeString(dir.resolve("t.csv"), text);
-    };
-  }
-
   static Stream<Case> table() {
     return Stream.of(
         // Files that cannot be read.
@@ -271,13 +253,6 @@ class BadInputTableTest {
           args.set("--model", Files.writeString(dir.resolve("m.json"), "{}").toString());
         }, "m.json:1:2: not a valid Splitwright model file: Cannot map `null` into type `int`;",
             "pass a file written by --save-model"),
-        // Sizes past what one class file holds.
-        new Case("feature and class tables over the method byte cap", 1, wide(1500),
-            List.of("verification failed, nothing written: a method has", "over the cap of 8000",
-                "raise --max-method-bytes")),
-        fails("too many feature columns for one class file", wide(8300), "t.csv",
-            "8300 features and 2 leaves does not fit in one Java class file",
-            "javac: 'code too large'", "use fewer class labels or feature columns"),
         // Output locations.
         fails("output path is an existing file", (dir, args) -> {
           csv(VALID).apply(dir, args);

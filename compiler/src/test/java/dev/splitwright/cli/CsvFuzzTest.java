@@ -10,11 +10,13 @@ import dev.splitwright.data.LoadedData;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
+import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.Evaluator;
 import dev.splitwright.eval.SplitParts;
 import dev.splitwright.eval.StratifiedSplit;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.train.CartTrainer;
+import dev.splitwright.train.ClassWeights;
 import dev.splitwright.train.Impurity;
 import dev.splitwright.train.TrainingOptions;
 import java.io.ByteArrayOutputStream;
@@ -76,7 +78,7 @@ class CsvFuzzTest {
 
   /** One mutated input: what was done to which sample, and with which options. */
   record Input(int index, Sample sample, List<String> mutations, byte[] bytes, LoadOptions options,
-      TrainingOptions training, double[] split, List<String> cliOptions) {
+      TrainingOptions training, double[] split, Layout layout, List<String> cliOptions) {
     @Override
     public String toString() {
       return "case " + index + " (" + sample.name() + ": " + String.join(", ", mutations) + "; "
@@ -151,8 +153,9 @@ class CsvFuzzTest {
     SplitParts parts = StratifiedSplit.split(data, f[0], f[1], f[2], 1);
     DecisionTree tree = CartTrainer.train(parts.train(), input.training());
     Evaluator.score(tree, parts.test());
-    String source = JavaEmitter.emit(tree, EmitOptions.builder("fuzz", "Fuzz").build(),
-        HeaderInfo.none()).source();
+    String source = JavaEmitter.emit(tree,
+        EmitOptions.builder("fuzz", "Fuzz").layout(input.layout()).build(), HeaderInfo.none())
+        .source();
     return source.contains("public final class Fuzz") ? "ok" : "emitted no class";
   }
 
@@ -231,11 +234,22 @@ class CsvFuzzTest {
       training.maxLeaves(leaves);
       cli.addAll(List.of("--max-leaves", Integer.toString(leaves)));
     }
+    if (random.nextInt(4) == 0) {
+      training.weights(ClassWeights.balanced());
+      cli.addAll(List.of("--class-weight", "balanced"));
+    }
+    Layout layout = random.nextBoolean() ? Layout.BRANCHES : Layout.TABLE;
+    // The command line also picks between the layouts, and tries other input types and extras.
+    cli.addAll(List.of("--layout", random.nextInt(3) == 0 ? "smallest" : layout.optionName(),
+        "--input", List.of("float", "double", "int").get(random.nextInt(3))));
+    if (random.nextInt(4) == 0) {
+      cli.add("--probabilities");
+    }
     double[][] splits = {{0.6, 0.2, 0.2}, {1, 0, 0}, {0.1, 0.45, 0.45}, {0.5, 0.5, 0}};
     double[] split = splits[random.nextInt(splits.length)];
     cli.addAll(List.of("--split", split[0] + "," + split[1] + "," + split[2]));
     return new Input(index, sample, m.done, m.bytes(), options.build(), training.build(), split,
-        cli);
+        layout, cli);
   }
 
   /** Applies one mutation at a time to a growing byte buffer, logging what it did. */

@@ -45,4 +45,32 @@ class JavaTextTest {
     assertThat(JavaText.asciiOnly("caf\u00e9 \u00b0C")).isEqualTo("caf\\u00e9 \\u00b0C");
     assertThat(JavaText.asciiOnly("plain")).isEqualTo("plain");
   }
+
+  // Built from code units: this file's own unicode escapes would meet the javac quirk tested here.
+  private static final String HIGH = String.valueOf((char) 0xd83d);
+  private static final String LOW = String.valueOf((char) 0xdd25);
+  private static final String BACKSLASH = String.valueOf((char) 0x5c);
+
+  @Test
+  void loneSurrogatesAreSpelledOutInCommentsAndPairsKept() {
+    assertThat(JavaText.comment("a" + HIGH + BACKSLASH + "u000a b" + HIGH + LOW))
+        .isEqualTo("a[U+D83D]" + BACKSLASH + BACKSLASH + "u000a b" + HIGH + LOW);
+  }
+
+  @Test
+  void stringLiteralsAreAsciiAndEscapeBackslashesAfterAHighSurrogateInOctal() {
+    // JLS §3.10.6: octal escape 134 is the backslash; javac 17 miscounts backslashes right after
+    // the escape of a lone high surrogate (measured), so that backslash is written in octal.
+    assertThat(JavaText.stringLiteral("q\"b" + BACKSLASH + "\n" + HIGH + BACKSLASH + "u"))
+        .isEqualTo("\"q" + BACKSLASH + "\"b" + BACKSLASH + BACKSLASH + BACKSLASH + "n"
+            + BACKSLASH + "ud83d" + BACKSLASH + "134u\"");
+  }
+
+  @Test
+  void asciiOnlyRefusesALoneHighSurrogateBeforeABackslash() {
+    assertThatThrownBy(() -> JavaText.asciiOnly("// " + HIGH + BACKSLASH + BACKSLASH + "u000a"))
+        .isInstanceOf(IllegalStateException.class);
+    assertThat(JavaText.asciiOnly(HIGH + LOW + BACKSLASH))
+        .isEqualTo(BACKSLASH + "ud83d" + BACKSLASH + "udd25" + BACKSLASH);
+  }
 }

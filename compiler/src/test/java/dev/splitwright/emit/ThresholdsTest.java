@@ -39,6 +39,42 @@ class ThresholdsTest {
     }
   }
 
+  /**
+   * The same property over the whole float range: every 4,099th bit pattern (about a million,
+   * all exponents and both signs) and every float within 2,048 ulps of zero, 1, the normal limit,
+   * 2^24 and the largest finite value. With it, {@code x <= d} in double equals {@code (float) x
+   * <= t} for every double x, because rounding to float is monotonic (IEEE 754 §4.3): x <= d
+   * gives {@code (float) x <= (float) d <= t}, and x > d gives x >= nextUp(d), so {@code (float) x
+   * >= (float) nextUp(d) > t}.
+   */
+  @Test
+  void doubleThresholdHoldsAcrossTheWholeFloatRange() {
+    List<Integer> bits = new ArrayList<>();
+    for (long b = 0; b <= 0xffffffffL; b += 4099) {
+      bits.add((int) b);
+    }
+    for (float center : new float[] {0f, 1f, Float.MIN_NORMAL, 0x1p24f, Float.MAX_VALUE}) {
+      int c = Float.floatToRawIntBits(center);
+      for (int d = -2048; d <= 2048; d++) {
+        bits.add(c + d);
+        bits.add((c + d) | 0x80000000);
+      }
+    }
+    int checked = 0;
+    for (int b : bits) {
+      float t = Float.intBitsToFloat(b);
+      if (Float.isNaN(t)) {
+        continue;
+      }
+      double d = Thresholds.forDouble(t);
+      if (!((float) d <= t) || (d != Double.POSITIVE_INFINITY && (float) Math.nextUp(d) <= t)) {
+        throw new AssertionError("forDouble(" + t + ") = " + d);
+      }
+      checked++;
+    }
+    assertThat(checked).isGreaterThan(1_000_000);
+  }
+
   @ParameterizedTest
   @MethodSource("thresholds")
   void intThresholdIsTheLastIntConvertingToAtMostT(float t) {

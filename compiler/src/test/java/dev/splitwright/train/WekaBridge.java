@@ -17,11 +17,11 @@ import weka.core.Utils;
  * GPL). Numeric attributes become float32 features, nominal ones categorical codes in Weka's value
  * order, the class attribute the labels; Weka's missing value is NaN.
  */
-final class WekaBridge {
+public final class WekaBridge {
   private WekaBridge() {}
 
   /** Converts {@code data}, whose class index must be set to a nominal attribute. */
-  static Dataset toDataset(Instances data) {
+  public static Dataset toDataset(Instances data) {
     Attribute target = data.classAttribute();
     if (!target.isNominal()) {
       throw new IllegalArgumentException("class attribute must be nominal: " + target.name());
@@ -60,7 +60,7 @@ final class WekaBridge {
   }
 
   /** Converts {@code data} with the class attribute last; values are the float32 values. */
-  static Instances toInstances(Dataset data, String relation) {
+  public static Instances toInstances(Dataset data, String relation) {
     Schema schema = data.schema();
     ArrayList<Attribute> attributes = new ArrayList<>();
     for (Feature feature : schema.features()) {

@@ -121,4 +121,23 @@ class VerifierTest {
     assertThat(result.classFileBytesWithoutDebug()).isPositive()
         .isLessThan(result.classFileBytes());
   }
+
+  @Test
+  void theStaticInitializerIsNotHeldToTheCapButEveryOtherMethodIs() throws Exception {
+    // 60 features: a 60-element array initializer, about 7 bytes each (JVMS §6.5), runs once.
+    List<Feature> features = new java.util.ArrayList<>();
+    for (int f = 0; f < 60; f++) {
+      features.add(Feature.numeric("feature" + f));
+    }
+    Schema wide = new Schema(features, "state", List.of("normal", "wear", "fault"));
+    DecisionTree tree = new DecisionTree(wide, full(5, new int[2]));
+    EmitOptions options = EmitOptions.builder("v", "Init").maxMethodBytes(256).build();
+
+    VerificationResult result = VERIFIER.verify(tree, emit(tree, options), options, List.of(), 1);
+
+    assertThat(result.methods()).filteredOn(m -> m.name().equals("<clinit>"))
+        .singleElement().satisfies(m -> assertThat(m.codeLength()).isGreaterThan(256));
+    assertThat(result.maxMethodBytes()).isLessThanOrEqualTo(256);
+    assertThat(result.passed()).as(result.verdict()).isTrue();
+  }
 }

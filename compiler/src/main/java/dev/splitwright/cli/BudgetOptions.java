@@ -1,0 +1,112 @@
+package dev.splitwright.cli;
+
+import dev.splitwright.data.InputException;
+import dev.splitwright.eval.Metric;
+import dev.splitwright.select.BudgetUnit;
+import dev.splitwright.select.SearchSettings;
+import dev.splitwright.select.SizeText;
+import dev.splitwright.train.TrainingOptions;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import picocli.CommandLine;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+
+/** The {@code compile} options of the byte-budget search, mixed into {@link CompileCommand}. */
+final class BudgetOptions {
+  @Option(names = "--budget", paramLabel = "SIZE",
+      description = "Emit the best validated tree whose size fits SIZE bytes: 1500, 2.5KB (1000 "
+          + "bytes each), 4KiB (1024 bytes each), 1MiB; units B, KB, KiB, MB, MiB in any case. "
+          + "Searches depths 1..--max-depth, leaf sizes from --min-leaf among 1,2,5,10,20 and "
+          + "every cost-complexity pruning of each, measuring each candidate compiled; also "
+          + "writes <out>/<Class>.frontier.svg.")
+  String budget;
+
+  @Option(names = "--budget-unit", defaultValue = "class", paramLabel = "class|bytecode|source",
+      description = "What --budget counts: the .class file javac writes with --release 17 and "
+          + "its default debug info, the methods' bytecode, or the .java file's UTF-8 bytes "
+          + "(default: ${DEFAULT-VALUE}).")
+  String unit;
+
+  @Option(names = "--metric", defaultValue = "balanced-accuracy",
+      paramLabel = "accuracy|balanced-accuracy|macro-f1",
+      description = "Validation score the budget search maximises (default: ${DEFAULT-VALUE}).")
+  String metric;
+
+  @Option(names = "--folds", paramLabel = "K",
+      description = "Score budget candidates by stratified K-fold cross-validation on train and "
+          + "validation rows together instead of on the validation rows.")
+  Integer folds;
+
+  @Option(names = "--refit-all",
+      description = "Refit the budget search's chosen settings on train and validation rows "
+          + "together (default: train rows only).")
+  boolean refitAll;
+
+  /**
+   * The search settings, or empty without {@code --budget}.
+   *
+   * @throws ParameterException if a value is malformed, or a search option is given without
+   *     {@code --budget}
+   */
+  Optional<SearchSettings> settings(CommandLine cli, TrainingOptions training, long seed) {
+    if (budget == null) {
+      for (String option : List.of("--budget-unit", "--metric", "--folds", "--refit-all")) {
+        if (cli.getParseResult().hasMatchedOption(option)) {
+          throw bad(cli, option, "only applies together with --budget");
+        }
+      }
+      return Optional.empty();
+    }
+    int bytes;
+    try {
+      bytes = SizeText.parse("budget", budget);
+    } catch (InputException e) {
+      throw bad(cli, "--budget", e.problem() + "; " + e.remedy());
+    }
+    BudgetUnit budgetUnit = BudgetUnit.parse(unit).orElseThrow(() -> bad(cli, "--budget-unit",
+        "must be class, bytecode or source, but it is '" + unit + "'"));
+    Metric score = Metric.parse(metric).orElseThrow(() -> bad(cli, "--metric",
+        "must be accuracy, balanced-accuracy or macro-f1, but it is '" + metric + "'"));
+    if (folds != null && folds < 2) {
+      throw bad(cli, "--folds", "must be at least 2, but it is " + folds);
+    }
+    if (training.maxDepth() > SearchSettings.MAX_DEPTH) {
+      throw bad(cli, "--max-depth", "must be at most " + SearchSettings.MAX_DEPTH
+          + " with --budget, but it is " + training.maxDepth());
+    }
+    return Optional.of(SearchSettings.builder(bytes)
+        .unit(budgetUnit)
+        .metric(score)
+        .maxDepth(training.maxDepth())
+        .minLeafs(SearchSettings.minLeafsFrom(training.minLeaf()))
+        .folds(folds == null ? 0 : folds)
+        .refitAll(refitAll)
+        .training(training)
+        .seed(seed)
+        .build());
+  }
+
+  /** The search options for the reproducing command line, or nothing without a budget. */
+  List<String> optionsText() {
+    List<String> parts = new ArrayList<>();
+    if (budget != null) {
+      parts.add("--budget " + budget.replaceAll("\\s", ""));
+      parts.add("--budget-unit " + unit.strip().toLowerCase(Locale.ROOT));
+      parts.add("--metric " + metric.strip().toLowerCase(Locale.ROOT));
+      if (folds != null) {
+        parts.add("--folds " + folds);
+      }
+      if (refitAll) {
+        parts.add("--refit-all");
+      }
+    }
+    return parts;
+  }
+
+  private static ParameterException bad(CommandLine cli, String option, String message) {
+    return new ParameterException(cli, "option '" + option + "' " + message);
+  }
+}

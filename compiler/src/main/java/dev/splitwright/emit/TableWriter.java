@@ -1,0 +1,238 @@
+package dev.splitwright.emit;
+
+import com.palantir.javapoet.ArrayTypeName;
+import com.palantir.javapoet.CodeBlock;
+import com.palantir.javapoet.FieldSpec;
+import com.palantir.javapoet.MethodSpec;
+import com.palantir.javapoet.TypeName;
+import com.palantir.javapoet.TypeSpec;
+import dev.splitwright.model.CategoricalSplit;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Leaf;
+import dev.splitwright.model.Node;
+import dev.splitwright.model.NumericSplit;
+import dev.splitwright.model.Split;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import javax.lang.model.element.Modifier;
+
+/**
+ * Emits the tree as data: the nodes in pre-order packed into string constants ({@link PackedInts}),
+ * decoded once at class initialisation into three arrays, and a loop that walks them. The code
+ * does not grow with the tree, so neither method sizes nor the constant pool limit the tree.
+ *
+ * <p>Arrays, one entry per node: {@code NODE[i]} is {@code ~result} for a leaf, else {@code
+ * (feature << 2) | missingLeft} for a numeric split or {@code (setOffset << 2) | 2 | missingLeft}
+ * for a categorical one; {@code THRESHOLD[i]} is the comparison operand; {@code RIGHT[i]} the right
+ * child. The left child is always {@code i + 1}.
+ */
+final class TableWriter {
+  private final DecisionTree tree;
+  private final InputAccess input;
+  private final TypeSpec.Builder type;
+  private final SupportMethods support;
+  private final LeafTable leaves;
+  private final List<Node> nodes = new ArrayList<>();
+  private final List<Integer> leftSizes = new ArrayList<>();
+  private final Map<String, Integer> sets = new LinkedHashMap<>();
+  private final PackedInts setData = new PackedInts();
+
+  private TableWriter(DecisionTree tree, EmitOptions options, InputAccess input,
+      TypeSpec.Builder type, SupportMethods support) {
+    this.tree = tree;
+    this.input = input;
+    this.type = type;
+    this.support = support;
+    this.leaves = new LeafTable(options.probabilities());
+  }
+
+  static String write(DecisionTree tree, EmitOptions options, HeaderInfo header) {
+    InputAccess input = InputAccess.of(tree.schema(), options);
+    SupportMethods support = new SupportMethods(input.kind());
+    TypeSpec.Builder type = ClassScaffold.start(tree, options, header, support);
+    TableWriter writer = new TableWriter(tree, options, input, type, support);
+    writer.collect(tree.root());
+    writer.addTables();
+    writer.addMethods();
+    support.addTo(type);
+    return ClassScaffold.finish(type.build(), options, header);
+  }
+
+  /** Lists the nodes in pre-order; returns the size of the subtree as listed. */
+  private int collect(Node node) {
+    if (node instanceof NumericSplit numeric && input.kind() == InputKind.INT
+        && Thresholds.forInt(numeric.threshold()) == Long.MIN_VALUE) {
+      // Below every int: each int input goes right, so the left side is left out.
+      return collect(numeric.right());
+    }
+    int at = nodes.size();
+    nodes.add(node);
+    leftSizes.add(0);
+    if (!(node instanceof Split split)) {
+      return 1;
+    }
+    int left = collect(split.left());
+    leftSizes.set(at, left);
+    return 1 + left + collect(split.right());
+  }
+
+  private boolean hasCategorical() {
+    return nodes.stream().anyMatch(n -> n instanceof CategoricalSplit);
+  }
+
+  private void addTables() {
+    PackedInts data = new PackedInts();
+    for (int i = 0; i < nodes.size(); i++) {
+      Node node = nodes.get(i);
+      if (node instanceof Leaf leaf) {
+        data.add((leaves.payload(leaf) << 1) | 1);
+        continue;
+      }
+      Split split = (Split) node;
+      int missing = split.missingLeft() ? 2 : 0;
+      if (split instanceof NumericSplit numeric) {
+        data.add((split.feature() << 3) | missing);
+        float t = numeric.threshold();
+        switch (input.kind()) {
+          case FLOAT -> data.addFloat(t);
+          case DOUBLE -> data.addDouble(Thresholds.forDouble(t));
+          case INT -> data.addSigned((int) Thresholds.forInt(t));
+        }
+      } else {
+        data.add((setOffset((CategoricalSplit) split) << 3) | 4 | missing);
+      }
+      data.add(leftSizes.get(i));
+    }
+    int n = nodes.size();
+    type.addField(array("NODE", TypeName.INT, n,
+        "Per node: ~result for a leaf; for a split, the feature (or the offset of its\n"
+            + "set in SETS) shifted left by 2, | 2 if categorical, | 1 if missing goes left."));
+    type.addField(array("THRESHOLD", input.elementType(), n,
+        "Per numeric split: go left when the value is at most this."));
+    type.addField(array("RIGHT", TypeName.INT, n,
+        "Per split: the right child; the left child is the next node."));
+    if (!sets.isEmpty()) {
+      type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
+              Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+          .addJavadoc("Per categorical split: feature, then k and bit words (see inSet).\n")
+          .initializer(StringTable.unpack(setData))
+          .build());
+    }
+    support.need(SupportMethods.Kind.UNPACK);
+    CodeBlock leafInit = leaves.addFields(type, support);
+    type.addStaticBlock(CodeBlock.builder().add(decoder(data)).add(leafInit).build());
+  }
+
+  private int setOffset(CategoricalSplit split) {
+    int k = tree.schema().feature(split.feature()).categories().size();
+    String key = split.feature() + ":" + k + ":" + split.leftCodes();
+    Integer known = sets.get(key);
+    if (known != null) {
+      return known;
+    }
+    int at = setData.count();
+    setData.add(split.feature());
+    CategoryHelper.pack(setData, k, split.leftCodes().toArray());
+    sets.put(key, at);
+    support.need(SupportMethods.Kind.IN_SET_WIDE);
+    return at;
+  }
+
+  private CodeBlock decoder(PackedInts data) {
+    CodeBlock.Builder code = CodeBlock.builder()
+        .add("// Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or\n")
+        .add("// set offset) << 3 | 4 if categorical | 2 if missing goes left, then a numeric\n")
+        .add("// split's threshold, then the size of the left subtree.\n")
+        .addStatement("int[] tree = $L", StringTable.unpack(data))
+        .addStatement("int at = 0")
+        .beginControlFlow("for (int i = 0; i < $L; i++)", nodes.size())
+        .addStatement("int head = tree[at++]")
+        .beginControlFlow("if ((head & 1) != 0)")
+        .addStatement("NODE[i] = ~(head >>> 1)")
+        .nextControlFlow("else")
+        .addStatement("NODE[i] = head >>> 1");
+    boolean categorical = hasCategorical();
+    if (categorical) {
+      code.beginControlFlow("if ((head & 4) == 0)");
+    }
+    switch (input.kind()) {
+      case FLOAT -> code.addStatement("THRESHOLD[i] = Float.intBitsToFloat(tree[at++])");
+      case DOUBLE -> code.addStatement("long high = tree[at++]")
+          .addStatement("THRESHOLD[i] = Double.longBitsToDouble(high << 32 | (tree[at++] & "
+              + "0xffffffffL))");
+      case INT -> code.addStatement("int zigzag = tree[at++]")
+          .addStatement("THRESHOLD[i] = (zigzag >>> 1) ^ -(zigzag & 1)");
+    }
+    if (categorical) {
+      code.endControlFlow();
+    }
+    return code.addStatement("RIGHT[i] = i + 1 + tree[at++]")
+        .endControlFlow()
+        .endControlFlow()
+        .build();
+  }
+
+  private static FieldSpec array(String name, TypeName element, int length, String doc) {
+    return FieldSpec.builder(ArrayTypeName.of(element), name,
+            Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+        .addJavadoc("$L\n", doc)
+        .initializer("new $T[$L]", element, length)
+        .build();
+  }
+
+  private void addMethods() {
+    String leafCall = "leaf(" + input.asArray() + ")";
+    MethodSpec.Builder classify = MethodSpec.methodBuilder("classify")
+        .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc(EntryDoc.classify(tree.schema(), input));
+    input.addParameters(classify);
+    if (!input.named()) {
+      EntryDoc.addLengthCheck(classify, tree.schema());
+    }
+    type.addMethod(classify.addStatement("return $L", leaves.classOf(leafCall)).build());
+    if (leaves.probabilities()) {
+      type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
+    }
+    type.addMethod(walk());
+  }
+
+  /** {@code leaf(x)}: walks from the root to a leaf and returns the leaf's result. */
+  private MethodSpec walk() {
+    CodeBlock.Builder code = CodeBlock.builder()
+        .addStatement("int i = 0")
+        .addStatement("int node")
+        .beginControlFlow("while ((node = NODE[i]) >= 0)")
+        .addStatement("boolean left");
+    boolean categorical = hasCategorical();
+    if (categorical) {
+      code.beginControlFlow("if ((node & 2) == 0)");
+    }
+    if (input.kind() == InputKind.INT) {
+      // An int is never missing.
+      code.addStatement("left = x[node >>> 2] <= THRESHOLD[i]");
+    } else {
+      // NaN fails every comparison, so "<=" sends it right and "!(>)" sends it left.
+      code.addStatement("$T v = x[node >>> 2]", input.elementType())
+          .addStatement("left = (node & 1) == 0 ? v <= THRESHOLD[i] : !(v > THRESHOLD[i])");
+    }
+    if (categorical) {
+      String cast = input.kind() == InputKind.DOUBLE ? "(float) " : "";
+      code.nextControlFlow("else")
+          .addStatement("int at = node >>> 2")
+          .addStatement("left = inSet($Lx[SETS[at]], at + 1, (node & 1) != 0)", cast)
+          .endControlFlow();
+    }
+    code.addStatement("i = left ? i + 1 : RIGHT[i]")
+        .endControlFlow()
+        .addStatement("return ~node");
+    return MethodSpec.methodBuilder("leaf")
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addParameter(ArrayTypeName.of(input.elementType()), "x")
+        .addCode(code.build())
+        .build();
+  }
+}

@@ -1,0 +1,307 @@
+package dev.splitwright.report;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Objects;
+
+/**
+ * Draws the budget search's trade-off as a plain SVG chart: validation score against measured
+ * size, every candidate as a grey dot, the Pareto frontier as a blue staircase, the budget as a
+ * dashed red line and the chosen classifier as a green ring. Numbers are formatted with {@link
+ * Locale#ROOT} and nothing depends on time or platform, so equal inputs give equal bytes.
+ */
+public final class FrontierSvg {
+  private static final int WIDTH = 760;
+  private static final int HEIGHT = 460;
+  private static final int LEFT = 78;
+  private static final int RIGHT = 24;
+  private static final int TOP = 60;
+  private static final int BOTTOM = 64;
+
+  private final Chart chart;
+  private final Scale x;
+  private final Scale y;
+  private final StringBuilder out = new StringBuilder();
+
+  /** A point: size in bytes and score in [0, 1]. */
+  public record Dot(int size, double score) {}
+
+  /**
+   * What to draw.
+   *
+   * @param title the heading, e.g. the data set's name
+   * @param subtitle the line under it, e.g. what is plotted against what
+   * @param xLabel the size axis label with its unit, e.g. {@code class file size (bytes)}
+   * @param yLabel the score axis label
+   * @param budget the budget in the same bytes as the sizes
+   * @param candidates every measured candidate
+   * @param frontier the Pareto-optimal candidates, by size ascending
+   * @param chosen the candidate emitted
+   */
+  public record Chart(String title, String subtitle, String xLabel, String yLabel, int budget,
+      List<Dot> candidates, List<Dot> frontier, Dot chosen) {
+
+    public Chart {
+      Objects.requireNonNull(title, "title");
+      Objects.requireNonNull(subtitle, "subtitle");
+      Objects.requireNonNull(xLabel, "xLabel");
+      Objects.requireNonNull(yLabel, "yLabel");
+      candidates = List.copyOf(candidates);
+      frontier = List.copyOf(frontier);
+      Objects.requireNonNull(chosen, "chosen");
+      if (frontier.isEmpty()) {
+        throw new IllegalArgumentException("frontier is empty");
+      }
+    }
+  }
+
+  private FrontierSvg(Chart chart) {
+    this.chart = chart;
+    // The size axis spans the frontier and the budget, not zero: the detail is in between.
+    int smallest = Math.min(chart.budget(), chart.frontier().get(0).size());
+    int largest =
+        Math.max(chart.budget(), chart.frontier().get(chart.frontier().size() - 1).size());
+    double margin = (largest - smallest) * 0.05 + 1;
+    this.x = Scale.of(Math.max(0, smallest - margin), largest + margin, LEFT, WIDTH - RIGHT);
+    double low = chart.chosen().score();
+    double high = low;
+    for (Dot d : chart.candidates()) {
+      if (x.contains(d.size())) {
+        low = Math.min(low, d.score());
+        high = Math.max(high, d.score());
+      }
+    }
+    for (Dot d : chart.frontier()) {
+      low = Math.min(low, d.score());
+      high = Math.max(high, d.score());
+    }
+    this.y = Scale.of(Math.max(0, low - 0.02), Math.min(1, high + 0.02), HEIGHT - BOTTOM, TOP);
+  }
+
+  /** Renders {@code chart} as an SVG document ending in a newline. */
+  public static String render(Chart chart) {
+    return new FrontierSvg(Objects.requireNonNull(chart, "chart")).draw();
+  }
+
+  private String draw() {
+    line("<?xml version=\"1.0\" encoding=\"UTF-8\"?>");
+    line("<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%d\" height=\"%d\""
+        + " viewBox=\"0 0 %d %d\" font-family=\"sans-serif\" font-size=\"12\">", WIDTH, HEIGHT,
+        WIDTH, HEIGHT);
+    line("  <title>%s: %s</title>", escape(chart.title()), escape(chart.subtitle()));
+    line("  <rect width=\"%d\" height=\"%d\" fill=\"#ffffff\"/>", WIDTH, HEIGHT);
+    line("  <text x=\"%d\" y=\"22\" font-size=\"15\" font-weight=\"bold\">%s</text>", LEFT,
+        escape(shorten(chart.title())));
+    line("  <text x=\"%d\" y=\"40\" fill=\"#555555\">%s</text>", LEFT,
+        escape(shorten(chart.subtitle())));
+    axes();
+    candidates();
+    frontier();
+    budget();
+    chosen();
+    legend();
+    line("</svg>");
+    return out.toString();
+  }
+
+  private void axes() {
+    line("  <g stroke=\"#e4e4e4\" stroke-width=\"1\">");
+    for (double t : x.ticks()) {
+      line("    <line x1=\"%s\" y1=\"%d\" x2=\"%s\" y2=\"%d\"/>", num(x.map(t)), TOP, num(x.map(t)),
+          HEIGHT - BOTTOM);
+    }
+    for (double t : y.ticks()) {
+      line("    <line x1=\"%d\" y1=\"%s\" x2=\"%d\" y2=\"%s\"/>", LEFT, num(y.map(t)),
+          WIDTH - RIGHT, num(y.map(t)));
+    }
+    line("  </g>");
+    line("  <g stroke=\"#333333\" stroke-width=\"1\">");
+    line("    <line x1=\"%d\" y1=\"%d\" x2=\"%d\" y2=\"%d\"/>", LEFT, HEIGHT - BOTTOM,
+        WIDTH - RIGHT, HEIGHT - BOTTOM);
+    line("    <line x1=\"%d\" y1=\"%d\" x2=\"%d\" y2=\"%d\"/>", LEFT, TOP, LEFT, HEIGHT - BOTTOM);
+    for (double t : x.ticks()) {
+      line("    <line x1=\"%s\" y1=\"%d\" x2=\"%s\" y2=\"%d\"/>", num(x.map(t)), HEIGHT - BOTTOM,
+          num(x.map(t)), HEIGHT - BOTTOM + 5);
+    }
+    for (double t : y.ticks()) {
+      line("    <line x1=\"%d\" y1=\"%s\" x2=\"%d\" y2=\"%s\"/>", LEFT - 5, num(y.map(t)), LEFT,
+          num(y.map(t)));
+    }
+    line("  </g>");
+    line("  <g fill=\"#333333\">");
+    for (double t : x.ticks()) {
+      line("    <text x=\"%s\" y=\"%d\" text-anchor=\"middle\">%s</text>", num(x.map(t)),
+          HEIGHT - BOTTOM + 19, x.label(t));
+    }
+    for (double t : y.ticks()) {
+      line("    <text x=\"%d\" y=\"%s\" text-anchor=\"end\">%s</text>", LEFT - 8,
+          num(y.map(t) + 4), y.label(t));
+    }
+    line("    <text x=\"%s\" y=\"%d\" text-anchor=\"middle\">%s</text>",
+        num((LEFT + WIDTH - RIGHT) / 2.0), HEIGHT - 18, escape(chart.xLabel()));
+    line("    <text transform=\"translate(20 %s) rotate(-90)\" text-anchor=\"middle\">%s</text>",
+        num((TOP + HEIGHT - BOTTOM) / 2.0), escape(chart.yLabel()));
+    line("  </g>");
+  }
+
+  private void candidates() {
+    line("  <g fill=\"#9a9a9a\" fill-opacity=\"0.6\">");
+    for (Dot d : chart.candidates()) {
+      if (x.contains(d.size())) {
+        line("    <circle cx=\"%s\" cy=\"%s\" r=\"2.2\"/>", num(x.map(d.size())),
+            num(y.map(d.score())));
+      }
+    }
+    line("  </g>");
+  }
+
+  private void frontier() {
+    List<Dot> f = chart.frontier();
+    StringBuilder path = new StringBuilder();
+    path.append("M").append(num(x.map(f.get(0).size()))).append(' ')
+        .append(num(y.map(f.get(0).score())));
+    for (int i = 1; i < f.size(); i++) {
+      path.append(" H").append(num(x.map(f.get(i).size())))
+          .append(" V").append(num(y.map(f.get(i).score())));
+    }
+    path.append(" H").append(num(x.map(x.max)));
+    line("  <path d=\"%s\" fill=\"none\" stroke=\"#1f5fbf\" stroke-width=\"1.8\"/>", path);
+    line("  <g fill=\"#1f5fbf\">");
+    for (Dot d : f) {
+      line("    <circle cx=\"%s\" cy=\"%s\" r=\"3.5\"/>", num(x.map(d.size())),
+          num(y.map(d.score())));
+    }
+    line("  </g>");
+  }
+
+  private void budget() {
+    String bx = num(x.map(chart.budget()));
+    line("  <line x1=\"%s\" y1=\"%d\" x2=\"%s\" y2=\"%d\" stroke=\"#c62828\" stroke-width=\"1.5\""
+        + " stroke-dasharray=\"6 4\"/>", bx, TOP, bx, HEIGHT - BOTTOM);
+    line("  <text x=\"%s\" y=\"%d\" fill=\"#c62828\" text-anchor=\"end\">budget %d B</text>",
+        num(x.map(chart.budget()) - 4), TOP + 12, chart.budget());
+  }
+
+  private void chosen() {
+    Dot c = chart.chosen();
+    double cx = x.map(c.size());
+    double cy = y.map(c.score());
+    line("  <circle cx=\"%s\" cy=\"%s\" r=\"7\" fill=\"none\" stroke=\"#2e7d32\""
+        + " stroke-width=\"2.2\"/>", num(cx), num(cy));
+    // Below the point, where the rising frontier is not; a white halo keeps it readable.
+    boolean leftOfCentre = cx < (LEFT + WIDTH - RIGHT) / 2.0;
+    line("  <text x=\"%s\" y=\"%s\" fill=\"#2e7d32\" text-anchor=\"%s\" stroke=\"#ffffff\""
+        + " stroke-width=\"4\" paint-order=\"stroke\">chosen: %d B, %s</text>",
+        num(cx + (leftOfCentre ? 6 : -6)), num(cy + 24), leftOfCentre ? "start" : "end",
+        c.size(), String.format(Locale.ROOT, "%.4f", c.score()));
+  }
+
+  private void legend() {
+    int lx = WIDTH - RIGHT - 170;
+    int ly = HEIGHT - BOTTOM - 82;
+    line("  <g font-size=\"11\">");
+    line("    <rect x=\"%d\" y=\"%d\" width=\"162\" height=\"74\" fill=\"#ffffff\""
+        + " stroke=\"#cccccc\"/>", lx - 8, ly - 6);
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"2.5\" fill=\"#9a9a9a\"/>", lx + 6, ly + 6);
+    line("    <text x=\"%d\" y=\"%d\">candidate</text>", lx + 20, ly + 10);
+    line("    <path d=\"M%d %d H%d\" stroke=\"#1f5fbf\" stroke-width=\"1.8\"/>", lx, ly + 22,
+        lx + 12);
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"3.5\" fill=\"#1f5fbf\"/>", lx + 6, ly + 22);
+    line("    <text x=\"%d\" y=\"%d\">Pareto frontier</text>", lx + 20, ly + 26);
+    line("    <path d=\"M%d %d H%d\" stroke=\"#c62828\" stroke-width=\"1.5\""
+        + " stroke-dasharray=\"4 3\"/>", lx, ly + 38, lx + 12);
+    line("    <text x=\"%d\" y=\"%d\">budget</text>", lx + 20, ly + 42);
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"6\" fill=\"none\" stroke=\"#2e7d32\""
+        + " stroke-width=\"2\"/>", lx + 6, ly + 55);
+    line("    <text x=\"%d\" y=\"%d\">chosen</text>", lx + 20, ly + 59);
+    line("  </g>");
+  }
+
+  private void line(String format, Object... args) {
+    out.append(String.format(Locale.ROOT, format, args)).append('\n');
+  }
+
+  private static String num(double v) {
+    String s = String.format(Locale.ROOT, "%.1f", v);
+    return s.equals("-0.0") ? "0.0" : s;
+  }
+
+  /** Keeps a heading within the chart's width: about 80 characters at these font sizes. */
+  private static String shorten(String text) {
+    return text.length() <= 80 ? text : text.substring(0, 77) + "...";
+  }
+
+  static String escape(String text) {
+    StringBuilder b = new StringBuilder(text.length());
+    for (char c : text.toCharArray()) {
+      switch (c) {
+        case '&' -> b.append("&amp;");
+        case '<' -> b.append("&lt;");
+        case '>' -> b.append("&gt;");
+        case '"' -> b.append("&quot;");
+        default -> b.append(Character.isISOControl(c) ? ' ' : c);
+      }
+    }
+    return b.toString();
+  }
+
+  /** A linear map from data to pixels with round tick values (1, 2 or 5 times a power of ten). */
+  static final class Scale {
+    final double min;
+    final double max;
+    private final double from;
+    private final double to;
+    private final double step;
+
+    private Scale(double min, double max, double from, double to, double step) {
+      this.min = min;
+      this.max = max;
+      this.from = from;
+      this.to = to;
+      this.step = step;
+    }
+
+    /** Widens [lo, hi] to whole ticks, about six of them. */
+    static Scale of(double lo, double hi, double from, double to) {
+      if (!(hi > lo)) {
+        hi = lo + 1;
+      }
+      double raw = (hi - lo) / 6;
+      double power = Math.pow(10, Math.floor(Math.log10(raw)));
+      double step = power;
+      for (double m : new double[] {1, 2, 5, 10}) {
+        if (m * power >= raw) {
+          step = m * power;
+          break;
+        }
+      }
+      double min = Math.floor(lo / step + 1e-9) * step;
+      double max = Math.ceil(hi / step - 1e-9) * step;
+      return new Scale(min, max, from, to, step);
+    }
+
+    boolean contains(double v) {
+      return v >= min && v <= max;
+    }
+
+    double map(double v) {
+      return from + (v - min) / (max - min) * (to - from);
+    }
+
+    List<Double> ticks() {
+      List<Double> ticks = new ArrayList<>();
+      long first = Math.round(min / step);
+      long last = Math.round(max / step);
+      for (long i = first; i <= last; i++) {
+        ticks.add(i * step);
+      }
+      return ticks;
+    }
+
+    String label(double v) {
+      int decimals = step >= 1 ? 0 : (int) Math.ceil(-Math.log10(step) - 1e-9);
+      return String.format(Locale.ROOT, "%." + decimals + "f", v);
+    }
+  }
+}

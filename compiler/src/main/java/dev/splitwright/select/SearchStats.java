@@ -1,0 +1,20 @@
+package dev.splitwright.select;
+
+/**
+ * What the search did and how long it took. Kept out of the report, whose bytes must not depend on
+ * timing.
+ *
+ * @param settingsTried pruning-path entries over all depth and leaf-size limits
+ * @param distinctTrees candidates left after removing equal trees
+ * @param sourcesCompiled emitted sources compiled to measure them
+ * @param javacRuns compiler runs the measuring took
+ * @param elapsedNanos wall time of the whole search, refit and final check included
+ */
+public record SearchStats(int settingsTried, int distinctTrees, int sourcesCompiled,
+    int javacRuns, long elapsedNanos) {
+
+  /** Elapsed seconds. */
+  public double seconds() {
+    return elapsedNanos / 1e9;
+  }
+}

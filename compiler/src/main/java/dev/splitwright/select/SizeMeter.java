@@ -1,0 +1,129 @@
+package dev.splitwright.select;
+
+import dev.splitwright.check.ClassFileInfo;
+import dev.splitwright.check.CompilationException;
+import dev.splitwright.check.CompiledClasses;
+import dev.splitwright.check.InMemoryCompiler;
+import dev.splitwright.check.SourceFile;
+import dev.splitwright.emit.EmittedSource;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+
+/**
+ * Measures emitted sources by compiling them, many per javac run: each run costs a fixed 20 ms or
+ * so with {@code --release 17} and about a millisecond per small class (see {@link
+ * InMemoryCompiler}), so batches of a hundred make the fixed cost negligible. Sources are renamed
+ * by {@link Aliases} to share a run; should a batch fail to compile anyway, its sources are
+ * compiled one by one under their own names.
+ */
+final class SizeMeter {
+  /** Sources per javac run. */
+  static final int BATCH_SOURCES = 100;
+  /** Characters per javac run, so that a batch of large trees does not hold much memory. */
+  static final int BATCH_CHARS = 2_000_000;
+
+  private final InMemoryCompiler compiler;
+  private int javacRuns;
+  private int sourcesCompiled;
+
+  SizeMeter(InMemoryCompiler compiler) {
+    this.compiler = Objects.requireNonNull(compiler, "compiler");
+  }
+
+  int javacRuns() {
+    return javacRuns;
+  }
+
+  int sourcesCompiled() {
+    return sourcesCompiled;
+  }
+
+  /** The sizes of {@code sources} (all of one class name), in order. */
+  List<Sizes> measure(List<EmittedSource> sources) {
+    List<Sizes> sizes = new ArrayList<>(sources.size());
+    if (sources.isEmpty()) {
+      return sizes;
+    }
+    Aliases aliases = new Aliases(sources.get(0).qualifiedName());
+    int limit = Math.min(BATCH_SOURCES, aliases.capacity());
+    int start = 0;
+    while (start < sources.size()) {
+      int end = start;
+      long chars = 0;
+      while (end < sources.size() && end - start < limit
+          && (end == start || chars + sources.get(end).source().length() <= BATCH_CHARS)) {
+        chars += sources.get(end).source().length();
+        end++;
+      }
+      sizes.addAll(measureBatch(sources.subList(start, end), aliases));
+      start = end;
+    }
+    return sizes;
+  }
+
+  private List<Sizes> measureBatch(List<EmittedSource> batch, Aliases aliases) {
+    List<SourceFile> files = new ArrayList<>(batch.size());
+    for (int i = 0; i < batch.size(); i++) {
+      files.add(aliases.alias(batch.get(i), i));
+    }
+    CompiledClasses classes;
+    try {
+      classes = compile(files);
+    } catch (CompilationException e) {
+      List<Sizes> sizes = new ArrayList<>(batch.size());
+      for (EmittedSource source : batch) {
+        sizes.add(measureAlone(source));
+      }
+      return sizes;
+    }
+    List<Sizes> sizes = new ArrayList<>(batch.size());
+    for (int i = 0; i < batch.size(); i++) {
+      sizes.add(sizesOf(classes, files.get(i).binaryClassName(), batch.get(i).sourceBytes()));
+    }
+    return sizes;
+  }
+
+  /** Compiles {@code source} under its own name and measures it. */
+  Sizes measureAlone(EmittedSource source) {
+    return sizesOf(compileAlone(source), source.qualifiedName(), source.sourceBytes());
+  }
+
+  /** Compiles {@code source} under its own name. */
+  CompiledClasses compileAlone(EmittedSource source) {
+    try {
+      return compile(List.of(new SourceFile(source.qualifiedName(), source.source())));
+    } catch (CompilationException e) {
+      // The emitter made source javac rejects: a bug of ours, not the user's input.
+      throw new IllegalStateException("emitted source does not compile:\n" + e.getMessage(), e);
+    }
+  }
+
+  private CompiledClasses compile(List<SourceFile> files) throws CompilationException {
+    javacRuns++;
+    sourcesCompiled += files.size();
+    return compiler.compile(files);
+  }
+
+  /** Adds up the class {@code binaryName} and its nested classes. */
+  static Sizes sizesOf(CompiledClasses classes, String binaryName, int sourceBytes) {
+    int bytes = 0;
+    int debug = 0;
+    int code = 0;
+    int largest = 0;
+    for (String name : classes.names()) {
+      if (name.equals(binaryName) || name.startsWith(binaryName + "$")) {
+        byte[] file = classes.bytes(name);
+        ClassFileInfo info = ClassFileInfo.parse(file);
+        bytes += file.length;
+        debug += info.debugAttributeBytes();
+        code += info.totalCodeLength();
+        largest = Math.max(largest, info.maxCodeLength());
+      }
+    }
+    if (bytes == 0) {
+      throw new IllegalStateException("no class " + binaryName + " in " + classes);
+    }
+    return new Sizes(bytes, bytes - debug, code, sourceBytes, largest);
+  }
+}

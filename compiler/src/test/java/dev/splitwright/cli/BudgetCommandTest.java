@@ -1,0 +1,191 @@
+package dev.splitwright.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.net.URISyntaxException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import java.util.stream.Stream;
+import javax.tools.ToolProvider;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
+import org.junit.jupiter.params.provider.ValueSource;
+
+/** The budget search through the real command line, {@link Main#run}. */
+class BudgetCommandTest {
+  private static final ObjectMapper JSON = new ObjectMapper();
+  private static final Pattern TOO_SMALL = Pattern.compile("error: option --budget: (\\d+) bytes "
+      + "is too small: the smallest classifier for this data \\(1 leaf\\) has a class file size "
+      + "of (\\d+) bytes; give --budget (\\d+) or more");
+
+  /** Output of one run. */
+  record Run(int exit, String out, String err) {}
+
+  static Run run(String... args) {
+    StringWriter out = new StringWriter();
+    StringWriter err = new StringWriter();
+    int exit = Main.run(args, new PrintWriter(out), new PrintWriter(err));
+    return new Run(exit, out.toString(), err.toString());
+  }
+
+  static Stream<Arguments> dataSets() throws URISyntaxException {
+    // Wisconsin diagnostic breast cancer (UCI, Wolberg, Street and Mangasarian 1995, CC BY 4.0;
+    // provenance in src/test/resources/datasets/README.md) and our own seeded pump demo sample.
+    Path cancer = Path.of(BudgetCommandTest.class
+        .getResource("/datasets/breast-cancer-wisconsin-diagnostic.csv").toURI());
+    return Stream.of(
+        Arguments.of(cancer, List.of()),
+        Arguments.of(Path.of("../generated-samples/data/pump-vibration.csv"),
+            List.of("--target", "state")));
+  }
+
+  @ParameterizedTest(name = "{0}")
+  @MethodSource("dataSets")
+  void choosesClassifiersThatFitGrowingBudgets(Path data, List<String> extra, @TempDir Path dir)
+      throws IOException {
+    double previousScore = Double.NEGATIVE_INFINITY;
+    boolean fitted = false;
+    for (int budget : new int[] {400, 1024, 2048, 4096, 16384}) {
+      Path out = dir.resolve("b" + budget);
+      List<String> args = new ArrayList<>(List.of("compile", "--data", data.toString(),
+          "--budget", budget + "B", "--package", "demo.budget", "--class", "Fit", "--out",
+          out.toString(), "--quiet"));
+      args.addAll(extra);
+      Run run = run(args.toArray(new String[0]));
+
+      if (run.exit() == 2) {
+        // Too small: one line naming the least budget, which must exceed this one; once a
+        // budget fits, every larger one must.
+        assertThat(fitted).as("budget %d failed after a smaller one fitted", budget).isFalse();
+        assertThat(run.err().strip()).doesNotContain("\n");
+        Matcher m = TOO_SMALL.matcher(run.err().strip());
+        assertThat(m.matches()).as(run.err()).isTrue();
+        assertThat(Integer.parseInt(m.group(1))).isEqualTo(budget);
+        assertThat(Integer.parseInt(m.group(2))).isGreaterThan(budget)
+            .isEqualTo(Integer.parseInt(m.group(3)));
+        assertThat(out).doesNotExist();
+        continue;
+      }
+      assertThat(run.exit()).as(run.err()).isZero();
+      fitted = true;
+      JsonNode report = JSON.readTree(out.resolve("Fit.report.json").toFile());
+      JsonNode selection = report.get("selection");
+      int written = classFileOnDisk(out.resolve("demo/budget/Fit.java"), dir.resolve("javac"));
+      assertThat(written).as("budget %d", budget).isLessThanOrEqualTo(budget)
+          .isEqualTo(selection.get("chosen").get("size").asInt())
+          .isEqualTo(report.get("classFileBytes").asInt());
+      double score = selection.get("chosen").get("validationScore").asDouble();
+      assertThat(score).as("budget %d", budget).isGreaterThanOrEqualTo(previousScore)
+          .isEqualTo(report.get("scores").get("validation").get("balancedAccuracy").asDouble());
+      previousScore = score;
+      assertThat(report.get("scores").get("test").get("rows").asInt()).isPositive();
+      assertThat(report.get("scores").get("test").get("balancedAccuracy").asDouble())
+          .isBetween(0.0, 1.0);
+      assertThat(out.resolve("Fit.frontier.svg")).exists();
+    }
+    assertThat(fitted).as("some budget up to 16 KiB fits").isTrue();
+  }
+
+  @Test
+  void reportsFrontierAndChoiceOnTheDemo(@TempDir Path dir) throws IOException {
+    Run run = run("compile", "--data", "../generated-samples/data/pump-vibration.csv", "--target",
+        "state", "--budget", "2KiB", "--class", "Pump", "--out", dir.toString());
+
+    assertThat(run.exit()).as(run.err()).isZero();
+    assertThat(run.out()).contains("budget: 2048 bytes (class); chosen max-depth ");
+    JsonNode selection = JSON.readTree(dir.resolve("Pump.report.json").toFile()).get("selection");
+    assertThat(selection.get("budget").asInt()).isEqualTo(2048);
+    assertThat(selection.get("budgetUnit").asText()).isEqualTo("class");
+    assertThat(selection.get("metric").asText()).isEqualTo("balanced-accuracy");
+    JsonNode chosen = selection.get("chosen");
+    for (String field : List.of("maxDepth", "minLeaf", "alpha", "depth", "leaves", "size",
+        "classFileBytesNoDebug", "classFileBytesFullDebug")) {
+      assertThat(chosen.has(field)).as(field).isTrue();
+    }
+    assertThat(chosen.get("classFileBytesNoDebug").asInt())
+        .isLessThan(chosen.get("classFileBytes").asInt());
+    assertThat(chosen.get("classFileBytesFullDebug").asInt())
+        .isGreaterThan(chosen.get("classFileBytes").asInt());
+    List<JsonNode> frontier = new ArrayList<>();
+    selection.get("frontier").forEach(frontier::add);
+    assertThat(frontier).filteredOn(p -> p.get("chosen").asBoolean()).hasSize(1)
+        .allMatch(p -> p.get("size").asInt() == chosen.get("size").asInt());
+    for (int i = 1; i < frontier.size(); i++) {
+      assertThat(frontier.get(i).get("size").asInt())
+          .isGreaterThan(frontier.get(i - 1).get("size").asInt());
+      assertThat(frontier.get(i).get("validationScore").asDouble())
+          .isGreaterThan(frontier.get(i - 1).get("validationScore").asDouble());
+    }
+  }
+
+  @ParameterizedTest
+  @ValueSource(strings = {"abc", "-1", "4 XB", "0", "99999999999KiB", "1e3"})
+  void malformedBudgetExitsTwoWithOneLineNamingTheOption(String size, @TempDir Path dir) {
+    Run run = run("compile", "--data", "../generated-samples/data/pump-vibration.csv", "--budget",
+        size, "--class", "Pump", "--out", dir.toString());
+
+    assertThat(run.exit()).isEqualTo(2);
+    assertThat(run.err().strip()).doesNotContain("\n")
+        .startsWith("splitwright compile: option '--budget' ")
+        .endsWith("(see 'splitwright compile --help')");
+    assertThat(run.out()).isEmpty();
+  }
+
+  @Test
+  void searchOptionsNeedABudget(@TempDir Path dir) {
+    for (String[] option : new String[][] {{"--folds", "5"}, {"--refit-all"},
+        {"--budget-unit", "source"}, {"--metric", "accuracy"}}) {
+      List<String> args = new ArrayList<>(List.of("compile", "--data",
+          "../generated-samples/data/pump-vibration.csv", "--class", "Pump", "--out",
+          dir.toString()));
+      args.addAll(List.of(option));
+      Run run = run(args.toArray(new String[0]));
+      assertThat(run.exit()).isEqualTo(2);
+      assertThat(run.err().strip()).isEqualTo("splitwright compile: option '" + option[0]
+          + "' only applies together with --budget (see 'splitwright compile --help')");
+    }
+  }
+
+  @Test
+  void rejectsBadSearchValues(@TempDir Path dir) {
+    String[][] cases = {
+        {"--folds", "1", "option '--folds' must be at least 2, but it is 1"},
+        {"--budget-unit", "bits", "option '--budget-unit' must be class, bytecode or source, but "
+            + "it is 'bits'"},
+        {"--metric", "f2", "option '--metric' must be accuracy, balanced-accuracy or macro-f1, but "
+            + "it is 'f2'"}};
+    for (String[] c : cases) {
+      Run run = run("compile", "--data", "../generated-samples/data/pump-vibration.csv",
+          "--budget", "4KiB", c[0], c[1], "--class", "Pump", "--out", dir.toString());
+      assertThat(run.exit()).isEqualTo(2);
+      assertThat(run.err().strip())
+          .isEqualTo("splitwright compile: " + c[2] + " (see 'splitwright compile --help')");
+    }
+  }
+
+  /** Compiles {@code source} with the system javac as a user's build would; returns the size. */
+  static int classFileOnDisk(Path source, Path out) throws IOException {
+    Files.createDirectories(out);
+    int status = ToolProvider.getSystemJavaCompiler().run(null, null, null, "--release", "17",
+        "-encoding", "UTF-8", "-d", out.toString(), source.toString());
+    assertThat(status).isZero();
+    String name = source.getFileName().toString().replace(".java", ".class");
+    try (Stream<Path> files = Files.walk(out)) {
+      Path classFile = files.filter(p -> p.getFileName().toString().equals(name)).findFirst()
+          .orElseThrow();
+      return (int) Files.size(classFile);
+    }
+  }
+}

@@ -1,0 +1,250 @@
+package dev.splitwright.select;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
+
+import dev.splitwright.check.ClassFileInfo;
+import dev.splitwright.check.CompiledClasses;
+import dev.splitwright.data.Dataset;
+import dev.splitwright.data.InputException;
+import dev.splitwright.emit.EmitOptions;
+import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.eval.Evaluator;
+import dev.splitwright.eval.Fold;
+import dev.splitwright.eval.Metric;
+import dev.splitwright.eval.SplitParts;
+import dev.splitwright.eval.StratifiedSplit;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.report.ReportJson;
+import dev.splitwright.train.CartTrainer;
+import dev.splitwright.train.ClassWeights;
+import dev.splitwright.train.PruningPath;
+import dev.splitwright.train.TrainingOptions;
+import dev.splitwright.verify.Verifier;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+
+class BudgetSelectionTest {
+  private static final EmitOptions EMIT = EmitOptions.builder("demo.budget", "Pump").build();
+  private static Verifier verifier;
+  private static SplitParts pump;
+  private static BudgetSelection.Data data;
+
+  @BeforeAll
+  static void setUp() throws InputException {
+    verifier = Verifier.create();
+    pump = TestData.split(TestData.pump());
+    data = new BudgetSelection.Data("pump-vibration.csv", pump.train(), pump.validation(),
+        List.of(pump.train(), pump.validation(), pump.test()), 1);
+  }
+
+  @AfterAll
+  static void tearDown() {
+    verifier.compiler().close();
+  }
+
+  private static BudgetSelection selection(SearchSettings settings) {
+    return new BudgetSelection(settings, EMIT, verifier, SearchProgress.none());
+  }
+
+  private static BudgetSelection.Outcome run(SearchSettings settings) throws InputException {
+    return selection(settings).run(data, HeaderInfo.none(), tree -> HeaderInfo.none());
+  }
+
+  @Test
+  void frontierHasNoDominatedCandidateAndHoldsTheChoice() throws InputException {
+    SearchSettings settings = SearchSettings.builder(1700).maxDepth(6).build();
+    BudgetSelection.Search search =
+        selection(settings).search(data, HeaderInfo.none(), new SizeMeter(verifier.compiler()));
+
+    for (Candidate p : search.frontier()) {
+      for (Candidate q : search.candidates()) {
+        boolean dominates = q.size(settings.unit()) <= p.size(settings.unit())
+            && q.score() >= p.score()
+            && (q.size(settings.unit()) < p.size(settings.unit()) || q.score() > p.score());
+        assertThat(dominates).as("%s dominates %s", q.setting(), p.setting()).isFalse();
+      }
+    }
+    Candidate chosen = search.ranked().get(0);
+    assertThat(search.frontier()).contains(chosen);
+    assertThat(chosen.size(settings.unit())).isLessThanOrEqualTo(1700);
+    for (Candidate c : search.candidates()) {
+      // Scores are the candidate's own validation score.
+      assertThat(c.score()).isEqualTo(
+          Evaluator.score(c.tree(), pump.validation()).get(Metric.BALANCED_ACCURACY));
+      if (c.size(settings.unit()) <= 1700) {
+        assertThat(c.score()).isLessThanOrEqualTo(chosen.score());
+      }
+    }
+  }
+
+  @Test
+  void emitsTheChosenCandidateAsMeasured() throws InputException {
+    BudgetSelection.Outcome outcome = run(SearchSettings.builder(2048).build());
+
+    assertThat(outcome.verification().passed()).isTrue();
+    SelectionReport.Chosen chosen = outcome.report().chosen();
+    assertThat(chosen.size()).isLessThanOrEqualTo(2048)
+        .isEqualTo(outcome.verification().classFileBytes());
+    assertThat(chosen.leaves()).isEqualTo(outcome.tree().leafCount());
+    assertThat(outcome.report().frontier()).filteredOn(SelectionReport.Point::chosen)
+        .singleElement()
+        .satisfies(p -> assertThat(p.size()).isEqualTo(chosen.size()));
+    assertThat(outcome.report().fallbacks()).isEmpty();
+    assertThat(outcome.stats().distinctTrees()).isEqualTo(outcome.report().distinctTrees());
+    // One run per batch of a hundred sources, one for the emitted file.
+    assertThat(outcome.stats().javacRuns())
+        .isEqualTo((outcome.stats().distinctTrees() + 99) / 100 + 1);
+  }
+
+  @Test
+  void sameInputsGiveByteIdenticalReportAndChart() throws InputException {
+    SearchSettings settings = SearchSettings.builder(1800).maxDepth(5).build();
+    BudgetSelection.Outcome first = run(settings);
+    BudgetSelection.Outcome second = run(settings);
+
+    assertThat(ReportJson.render(second.report())).isEqualTo(ReportJson.render(first.report()));
+    assertThat(second.frontierSvg()).isEqualTo(first.frontierSvg());
+    assertThat(second.source().source()).isEqualTo(first.source().source());
+  }
+
+  @Test
+  void countsBytecodeAndSourceUnits() throws Exception {
+    for (BudgetUnit unit : List.of(BudgetUnit.BYTECODE, BudgetUnit.SOURCE)) {
+      int budget = unit == BudgetUnit.BYTECODE ? 300 : 6000;
+      BudgetSelection.Outcome outcome =
+          run(SearchSettings.builder(budget).unit(unit).maxDepth(6).build());
+
+      CompiledClasses classes = verifier.compiler()
+          .compileOne(outcome.source().qualifiedName(), outcome.source().source());
+      int measured = unit == BudgetUnit.BYTECODE
+          ? ClassFileInfo.parse(classes.bytes(outcome.source().qualifiedName())).totalCodeLength()
+          : outcome.source().source().getBytes(StandardCharsets.UTF_8).length;
+      assertThat(measured).as("%s", unit).isLessThanOrEqualTo(budget)
+          .isEqualTo(outcome.report().chosen().size());
+      assertThat(outcome.report().budgetUnit()).isEqualTo(unit.optionName());
+    }
+  }
+
+  @Test
+  void crossValidationScoresEachSettingRefittedPerFold() throws InputException {
+    SearchSettings settings = SearchSettings.builder(1700).maxDepth(4).minLeafs(List.of(1, 10))
+        .folds(4).seed(3).build();
+    BudgetSelection.Search search =
+        selection(settings).search(data, HeaderInfo.none(), new SizeMeter(verifier.compiler()));
+
+    // Recomputed directly: for each fold, grow with the setting's limits on the fold's training
+    // rows, prune at the geometric mean of its alpha interval, score the held-out rows; average.
+    Dataset pool = pump.train().concat(pump.validation());
+    List<Fold> folds = StratifiedSplit.kFold(pool, 4, 3);
+    for (Candidate c : search.candidates()) {
+      double sum = 0;
+      for (Fold fold : folds) {
+        Dataset train = fold.train();
+        DecisionTree grown = CartTrainer.train(train, TrainingOptions.builder()
+            .maxDepth(c.setting().maxDepth()).minLeaf(c.setting().minLeaf()).build());
+        DecisionTree pruned = PruningPath.prune(grown, ClassWeights.none().resolve(train),
+            c.setting().representativeAlpha());
+        sum += Evaluator.score(pruned, fold.validation()).balancedAccuracy();
+      }
+      assertThat(c.score()).as("%s", c.setting()).isCloseTo(sum / 4, within(1e-12));
+    }
+  }
+
+  @Test
+  void refitOnTrainAndValidationStaysWithinTheBudget() throws InputException {
+    SearchSettings probe = SearchSettings.builder(4096).maxDepth(6).build();
+    List<Integer> budgets = new ArrayList<>();
+    for (Candidate c : selection(probe).search(data, HeaderInfo.none(),
+        new SizeMeter(verifier.compiler())).frontier()) {
+      budgets.add(c.size(BudgetUnit.CLASS));
+    }
+    int fallbacks = 0;
+    Dataset all = pump.train().concat(pump.validation());
+    for (int budget : budgets.subList(Math.max(0, budgets.size() - 4), budgets.size())) {
+      SearchSettings settings =
+          SearchSettings.builder(budget).maxDepth(6).refitAll(true).build();
+      BudgetSelection.Outcome outcome = run(settings);
+      SelectionReport.Chosen chosen = outcome.report().chosen();
+
+      assertThat(outcome.report().refitOn()).isEqualTo("train+validation");
+      assertThat(chosen.size()).as("budget %d", budget).isLessThanOrEqualTo(budget);
+      // The emitted tree is on the pruning path of the chosen limits grown on all those rows.
+      DecisionTree grown = CartTrainer.train(all, TrainingOptions.builder()
+          .maxDepth(chosen.maxDepth()).minLeaf(chosen.minLeaf()).build());
+      assertThat(PruningPath.of(grown, ClassWeights.none()))
+          .extracting(dev.splitwright.train.PrunedTree::tree).contains(outcome.tree());
+      for (String line : outcome.report().fallbacks()) {
+        assertThat(line).contains("after refitting on train+validation, over the budget");
+      }
+      fallbacks += outcome.report().fallbacks().size();
+    }
+    // The frontier's sizes are exact budgets, so a refit that grows must fall back at least once.
+    assertThat(fallbacks).isPositive();
+  }
+
+  @Test
+  void tooSmallBudgetNamesTheLeastThatFits() {
+    List<SearchStats> finished = new ArrayList<>();
+    SearchProgress recorder = new SearchProgress() {
+      @Override
+      public void update(String stage, int done, int total) {}
+
+      @Override
+      public void finished(SearchStats stats) {
+        finished.add(stats);
+      }
+    };
+    BudgetSelection selection = new BudgetSelection(
+        SearchSettings.builder(1000).maxDepth(3).build(), EMIT, verifier, recorder);
+    assertThatThrownBy(() -> selection.run(data, HeaderInfo.none(), tree -> HeaderInfo.none()))
+        .isInstanceOf(InputException.class)
+        .hasMessageMatching("option --budget: 1000 bytes is too small: the smallest classifier "
+            + "for this data \\(1 leaf\\) has a class file size of \\d+ bytes; give --budget \\d+ "
+            + "or more");
+    // A progress bar must be cleared before the error is printed.
+    assertThat(finished).hasSize(1);
+  }
+
+  @Test
+  void needsValidationRowsWithoutFolds() {
+    BudgetSelection.Data noValidation = new BudgetSelection.Data("pump-vibration.csv",
+        pump.train(), pump.validation().subset(new int[0]), List.of(pump.train()), 1);
+    assertThatThrownBy(() -> selection(SearchSettings.builder(4096).build())
+        .run(noValidation, HeaderInfo.none(), tree -> HeaderInfo.none()))
+        .isInstanceOf(InputException.class)
+        .hasMessage("option --budget: the split leaves no validation rows to choose a candidate "
+            + "by; give --split a validation fraction, e.g. 0.6,0.2,0.2, or use --folds");
+  }
+
+  @Test
+  void reportsProgressOfEveryStage() throws InputException {
+    List<String> events = new ArrayList<>();
+    SearchProgress recorder = new SearchProgress() {
+      @Override
+      public void update(String stage, int done, int total) {
+        assertThat(done).isBetween(0, total);
+        if (done == total) {
+          events.add(stage + " " + total);
+        }
+      }
+
+      @Override
+      public void finished(SearchStats stats) {
+        events.add("finished " + stats.distinctTrees());
+      }
+    };
+    BudgetSelection.Outcome outcome = new BudgetSelection(
+        SearchSettings.builder(2048).maxDepth(4).build(), EMIT, verifier, recorder)
+        .run(data, HeaderInfo.none(), tree -> HeaderInfo.none());
+
+    int distinct = outcome.stats().distinctTrees();
+    assertThat(events).containsExactly("growing 20", "measuring " + distinct,
+        "finished " + distinct);
+  }
+}
