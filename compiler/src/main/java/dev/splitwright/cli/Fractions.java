@@ -6,6 +6,8 @@ import picocli.CommandLine.ParameterException;
 
 /** Parses {@code --split TRAIN,VALIDATION,TEST}. */
 final class Fractions {
+  private static final String EXAMPLE = "give three fractions summing to 1, e.g. 0.6,0.2,0.2";
+
   private Fractions() {}
 
   static double[] parse(CommandLine cli, String option, String text) {
@@ -31,12 +33,12 @@ final class Fractions {
           "fractions must sum to 1, but '%s' sums to %s", text, sum));
     }
     if (f[0] == 0) {
-      throw bad(cli, option, "the train fraction must be above 0");
+      throw bad(cli, option, "gives the train part 0 in '" + text + "', so nothing could be trained");
     }
     return f;
   }
 
   private static ParameterException bad(CommandLine cli, String option, String message) {
-    return new ParameterException(cli, "option '" + option + "' " + message);
+    return new ParameterException(cli, "option '" + option + "' " + message + "; " + EXAMPLE);
   }
 }

@@ -24,6 +24,16 @@ public final class Main {
     cli.setExecutionStrategy(new CommandLine.RunLast());
     try {
       return cli.execute(args);
+    } catch (OutOfMemoryError e) {
+      // Past the memory limit: the user can fix it with a larger heap or a smaller file.
+      err.println(ErrorHandlers.outOfMemory());
+      ErrorHandlers.traceIfDebug(e, args, err);
+      return ExitCodes.BAD_INPUT;
+    } catch (StackOverflowError e) {
+      err.println("internal error: stack overflow (rerun with --debug for details and please"
+          + " report it)");
+      ErrorHandlers.traceIfDebug(e, args, err);
+      return ExitCodes.INTERNAL;
     } finally {
       out.flush();
       err.flush();

@@ -20,6 +20,13 @@ public final class CsvLoader {
   /** Most distinct values a categorical column may have; more suggests an identifier column. */
   public static final int MAX_CATEGORIES = 65_535;
 
+  /**
+   * Longest column name or class label, in characters. Both become string constants of the emitted
+   * class, which the class file format caps at 65535 bytes (JVM Specification §4.4.7); far shorter
+   * than that, a longer one is a misplaced data cell, not a name.
+   */
+  public static final int MAX_NAME_LENGTH = 1024;
+
   private CsvLoader() {}
 
   /**

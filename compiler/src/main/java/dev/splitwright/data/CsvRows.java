@@ -5,6 +5,7 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.nio.file.AccessDeniedException;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
@@ -78,9 +79,19 @@ final class CsvRows implements Closeable {
   }
 
   private static InputException readError(String name, IOException e) {
-    String detail = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+    // A FileSystemException's message repeats the path; its reason alone is what went wrong.
+    String detail =
+        e instanceof FileSystemException fse && fse.getReason() != null
+            ? fse.getReason()
+            : e.getMessage();
+    if (detail == null || detail.isBlank()) {
+      detail = "input/output error";
+    }
     return new InputException(
-        SourcePosition.ofFile(name), "cannot read the file: " + detail, "check the file", e);
+        SourcePosition.ofFile(name),
+        "cannot read the file: " + detail,
+        "check that the path names a readable regular file",
+        e);
   }
 
   private static void closeQuietly(Closeable c) {
@@ -136,6 +147,17 @@ final class CsvRows implements Closeable {
       if (name.isEmpty()) {
         throw new InputException(
             where, "blank column name", "give every column a name in the header row");
+      }
+      if (name.length() > CsvLoader.MAX_NAME_LENGTH) {
+        throw new InputException(
+            where,
+            String.format(
+                Locale.ROOT,
+                "column name %s has %d characters, more than the %d allowed",
+                InputException.quote(name),
+                name.length(),
+                CsvLoader.MAX_NAME_LENGTH),
+            "check that the first row is the header row; shorten the name");
       }
       Integer earlier = seen.putIfAbsent(name, c + 1);
       if (earlier != null) {

@@ -5,6 +5,7 @@ import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 
 /** Checks and messages that both ways of loading share. */
 final class LoadRules {
@@ -88,6 +89,17 @@ final class LoadRules {
     if (options.isMissing(text)) {
       throw new InputException(
           rows.cell(c), "missing class label", "give every row a label, or remove the row");
+    }
+    if (text.length() > CsvLoader.MAX_NAME_LENGTH) {
+      throw new InputException(
+          rows.cell(c),
+          String.format(
+              Locale.ROOT,
+              "class label %s has %d characters, more than the %d allowed",
+              InputException.quote(text),
+              text.length(),
+              CsvLoader.MAX_NAME_LENGTH),
+          "check that --target names the class-label column");
     }
   }
 

@@ -73,6 +73,11 @@ final class Utf8FileReader extends Reader {
     if (pending != null) {
       throw pending;
     }
+    if (flushed) {
+      // The parser may read again after the end (it does when the last line has no line break);
+      // a flushed decoder must not be called again (CharsetDecoder's state machine).
+      return false;
+    }
     chars.clear();
     CoderResult error = null;
     while (chars.position() == 0) {

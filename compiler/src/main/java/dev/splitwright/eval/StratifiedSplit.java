@@ -148,7 +148,9 @@ public final class StratifiedSplit {
    * Divides {@code n} rows among parts by largest remainder: each part first gets {@code
    * floor(fraction × n)}, then the leftover rows go to the parts with the largest fractional parts,
    * ties to the earlier part. Then, if {@code n} allows, a part with a non-zero fraction but no row
-   * takes one from the currently largest part.
+   * takes one from the currently largest part. Finally, a class too small to reach every part still
+   * gives the train part (if its fraction is non-zero) one row: a class the tree never sees in
+   * training can never be predicted, and a train part without rows cannot be trained on.
    */
   static int[] allocate(int n, double[] fractions) {
     int parts = fractions.length;
@@ -189,6 +191,16 @@ public final class StratifiedSplit {
           counts[p]++;
         }
       }
+    }
+    if (n > 0 && fractions[0] > 0 && counts[0] == 0) {
+      int donor = 1;
+      for (int q = 2; q < parts; q++) {
+        if (counts[q] > counts[donor]) {
+          donor = q;
+        }
+      }
+      counts[donor]--;
+      counts[0]++;
     }
     return counts;
   }

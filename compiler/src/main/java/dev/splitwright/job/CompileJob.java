@@ -32,6 +32,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.function.UnaryOperator;
 
 /**
  * Runs the main job: load, split, train (or read a saved model), score, emit, verify, and write the
@@ -39,9 +40,19 @@ import java.util.Optional;
  */
 public final class CompileJob {
   private final Verifier verifier;
+  private final UnaryOperator<DecisionTree> emitFrom;
 
   public CompileJob(Verifier verifier) {
+    this(verifier, UnaryOperator.identity());
+  }
+
+  /**
+   * Test seam: emits code from {@code emitFrom(tree)} but verifies it against {@code tree}, so a
+   * test can make verification fail on purpose and see that nothing is written.
+   */
+  CompileJob(Verifier verifier, UnaryOperator<DecisionTree> emitFrom) {
     this.verifier = Objects.requireNonNull(verifier, "verifier");
+    this.emitFrom = Objects.requireNonNull(emitFrom, "emitFrom");
   }
 
   /**
@@ -63,7 +74,10 @@ public final class CompileJob {
    */
   public CompileResult run(CompileRequest request, Optional<SearchSettings> budget,
       SearchProgress progress) throws InputException, IOException {
+    OutputTargets targets = OutputTargets.of(request, budget.isPresent());
+    targets.check();
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
+    TrainingClasses.requireTwo(request.data().toString(), loaded);
     DataChecks.trainingData(request, loaded);
     Parts parts = split(loaded.dataset(), request);
     if (budget.isPresent()) {
@@ -83,7 +97,8 @@ public final class CompileJob {
     HeaderInfo header = new HeaderInfo(loaded.sourceName(), loaded.sha256(),
         request.optionsText(), scoreLines(scores));
     // --layout smallest is resolved here: both layouts emitted and compiled, the smaller kept.
-    LayoutChoice layout = LayoutChooser.resolve(tree, request.emit(), header, verifier.compiler());
+    LayoutChoice layout = LayoutChooser.resolve(emitFrom.apply(tree), request.emit(), header,
+        verifier.compiler());
     EmittedSource source = layout.source();
     VerificationResult verification = verifier.check(tree, layout.classes(), source,
         layout.options(), parts.all(), request.seed());
@@ -97,11 +112,10 @@ public final class CompileJob {
       return new CompileResult(tree, source, verification, scores, report, List.of());
     }
     OutputFiles out = new OutputFiles();
-    out.add(request.outDir().resolve(source.relativePath()), source.source());
-    out.add(request.outDir().resolve(source.simpleName() + ".report.json"),
-        ReportJson.render(report));
-    if (request.saveModel().isPresent()) {
-      out.add(request.saveModel().get(), ModelFile.toJson(tree, optionsMap(request)));
+    out.add(targets.source(), source.source());
+    out.add(targets.report(), ReportJson.render(report));
+    if (targets.model().isPresent()) {
+      out.add(targets.model().get(), ModelFile.toJson(tree, optionsMap(request)));
     }
     out.commit();
     return new CompileResult(tree, source, verification, scores, report, out.paths());

@@ -100,8 +100,8 @@ public final class ModelFile {
       long line = location == null ? 0 : location.getLineNr();
       int column = location == null ? 0 : location.getColumnNr();
       throw new InputException(SourcePosition.ofCell(name, Math.max(1, line), Math.max(1, column),
-          null), "not a valid Splitwright model file: " + e.getOriginalMessage().lines().findFirst()
-              .orElse("malformed JSON"),
+          ""), "not a valid Splitwright model file: " + e.getOriginalMessage().lines().findFirst()
+              .orElse("malformed JSON").replaceFirst(" \\(set [A-Za-z_.]+ .*\\)$", ""),
           "pass a file written by --save-model");
     } catch (IOException e) {
       throw new InputException(SourcePosition.ofFile(name),

@@ -162,6 +162,19 @@ class CsvLoaderTest {
   }
 
   @Test
+  void loadsAFileWhoseLastLineHasNoLineBreak() throws Exception {
+    // Found by CsvFuzzTest: the parser reads again after the end, which crashed the decoder.
+    for (String last : List.of("3,x", "3,\"x\"", "3,café")) {
+      Path file = write("a,label\n1,x\n2,y\n" + last);
+
+      Dataset data = CsvLoader.load(file).dataset();
+
+      assertThat(data.rows()).as(last).isEqualTo(3);
+      assertThat(data.column(0)).as(last).containsExactly(1f, 2f, 3f);
+    }
+  }
+
+  @Test
   void skipsBlankLines() throws Exception {
     Path file = write("a,label\n\n1,x\n\r\n2,y\n\n");
 

@@ -100,7 +100,11 @@ class StratifiedSplitTest {
     "7, 0.6, 0.2, 0.2, 4 2 1",
     "1, 0.0, 0.0, 1.0, 0 0 1",
     "0, 0.6, 0.2, 0.2, 0 0 0",
-    "5, 0.9, 0.1, 0.0, 4 1 0"
+    "5, 0.9, 0.1, 0.0, 4 1 0",
+    // Too few rows for every part: the train part still gets one (worked by hand).
+    "1, 0.2, 0.4, 0.4, 1 0 0",
+    "2, 0.2, 0.4, 0.4, 1 0 1",
+    "1, 0.1, 0.9, 0.0, 1 0 0"
   })
   void allocatesByLargestRemainderAndFillsEveryNonEmptyPart(
       int n, double train, double validation, double test, String expected) {
