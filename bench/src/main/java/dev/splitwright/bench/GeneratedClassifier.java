@@ -3,12 +3,17 @@ package dev.splitwright.bench;
 import dev.splitwright.check.CompilationException;
 import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.check.InMemoryCompiler;
+import dev.splitwright.data.Dataset;
+import dev.splitwright.data.Feature;
+import dev.splitwright.data.Schema;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.train.CartTrainer;
+import dev.splitwright.train.TrainingOptions;
 import java.lang.invoke.MethodHandle;
 import java.lang.invoke.MethodHandles;
 import java.lang.invoke.MethodType;
@@ -43,20 +48,35 @@ final class GeneratedClassifier {
    * @throws UnsupportedOperationException if this build's emitter cannot write {@code layout}
    */
   static MethodHandle emitAndLoad(DecisionTree tree, Layout layout) {
+    EmittedSource source = emit(tree, layout);
+    return compileAndLoad(source.qualifiedName(), source.source());
+  }
+
+  private static EmittedSource emit(DecisionTree tree, Layout layout) {
     EmitOptions options = EmitOptions.builder(PACKAGE,
             "Model" + layout.optionName().substring(0, 1).toUpperCase(Locale.ROOT)
                 + layout.optionName().substring(1))
         .layout(layout)
         .build();
-    EmittedSource source;
     try {
-      source = JavaEmitter.emit(tree, options, HeaderInfo.none());
+      return JavaEmitter.emit(tree, options, HeaderInfo.none());
     } catch (IllegalArgumentException e) {
       throw new UnsupportedOperationException(
           "the emitter of this build cannot write layout '" + layout.optionName() + "': "
               + e.getMessage(), e);
     }
-    return compileAndLoad(source.qualifiedName(), source.source());
+  }
+
+  /**
+   * Fails at once, before any expensive setup, if this build's emitter cannot write {@code layout}:
+   * emits a two-leaf tree in it.
+   *
+   * @throws UnsupportedOperationException if it cannot
+   */
+  static void requireLayout(Layout layout) {
+    Schema schema = new Schema(List.of(Feature.numeric("x")), "y", List.of("a", "b"));
+    Dataset two = Dataset.ofRows(schema, new float[][] {{0f}, {1f}}, new int[] {0, 1});
+    emit(CartTrainer.train(two, TrainingOptions.defaults()), layout);
   }
 
   /** Loads the hand-written {@link #TRIVIAL_SOURCE}. */

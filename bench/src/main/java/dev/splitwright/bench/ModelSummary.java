@@ -52,8 +52,9 @@ public final class ModelSummary {
       Instances instances = WekaData.of(training, model.paramName());
       for (WekaLearner learner : WekaLearner.values()) {
         Classifier weka = store.trainedOn(learner, model.depth(), training, instances);
+        String options = String.join(" ", learner.options(model.depth()));
         md.append(String.format(Locale.ROOT, "| %s | Weka %s %s | %s | %s |%n", name,
-            learner.displayName(), String.join(" ", learner.options(model.depth())),
+            learner.displayName(), options.isEmpty() ? "(defaults)" : "`" + options + "`",
             size(weka), percent(accuracy(weka, instances, fresh))));
       }
     }

@@ -59,13 +59,16 @@ public class PredictionBenchmark {
 
   @Setup
   public void setUp(BenchmarkParams params) throws Throwable {
+    String method = params.getBenchmark().substring(params.getBenchmark().lastIndexOf('.') + 1);
+    if (method.equals("generatedTable")) {
+      GeneratedClassifier.requireLayout(Layout.TABLE);
+    }
     BenchModel bench = BenchModel.ofParam(model);
     Dataset training = bench.trainingSet();
     rows = bench.inputs(training, InputOrder.ofParam(order)).rows();
     if (rows.length != BenchModel.INPUT_ROWS || Integer.bitCount(rows.length) != 1) {
       throw new IllegalStateException("the cursor needs a power-of-two row count");
     }
-    String method = params.getBenchmark().substring(params.getBenchmark().lastIndexOf('.') + 1);
     switch (method) {
       case "baseline" -> { }
       case "handleBaseline" -> {

@@ -55,6 +55,19 @@ class GeneratedClassifierTest {
   }
 
   @Test
+  void layoutCheckPassesForBranchesAndNamesAMissingLayout() {
+    GeneratedClassifier.requireLayout(Layout.BRANCHES);
+    try {
+      GeneratedClassifier.requireLayout(Layout.TABLE);
+    } catch (UnsupportedOperationException e) {
+      assertThat(e).hasMessageStartingWith("the emitter of this build cannot write layout 'table'");
+    }
+    assertThatThrownBy(() -> GeneratedClassifier.requireLayout(Layout.SMALLEST))
+        .isInstanceOf(UnsupportedOperationException.class)
+        .hasMessageStartingWith("the emitter of this build cannot write layout 'smallest'");
+  }
+
+  @Test
   void trivialClassifierReturnsTheSignBitOfTheFirstValue() throws Throwable {
     MethodHandle trivial = GeneratedClassifier.trivial();
     // IEEE 754: the sign bit is the top bit, set for -0.0 and clear for +0.0.
