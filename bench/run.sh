@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # Runs the benchmark suite and writes bench/results/<profile>.md (plus the raw JMH JSON).
 #   bench/run.sh quick   # under 5 minutes on 2 cores: 1 fork per prediction cell, 3 training runs
-#   bench/run.sh full    # 3 forks per prediction cell, 5 training runs, depths 8 and 14 (~30 min)
+#   bench/run.sh full    # 3 forks per prediction cell, 5 training runs, depths 8 and 14 (~45 min)
 # Builds bench/target/benchmarks.jar first unless SKIP_BUILD=1. Not part of CI.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -10,13 +10,14 @@ profile=${1:-quick}
 case "$profile" in
   quick)
     train_forks=3; j48_forks=1; depths=14
-    predict=(-f 1 -wi 2 -w 300ms -i 3 -r 300ms)
-    predict_text="1 fork, warm-up 2 × 0.3 s, measurement 3 × 0.3 s per cell"
+    predict=()  # the annotations' settings
+    predict_text="1 fork per cell, warm-up 2 × 0.5 s (generated classes 8 × 1 s),"
+    predict_text+=" measurement 3 × 0.5 s"
     ;;
   full)
     train_forks=5; j48_forks=3; depths=8,14
-    predict=()  # the annotations' settings: 3 forks, warm-up 5 × 1 s, measurement 5 × 1 s
-    predict_text="3 forks, warm-up 5 × 1 s, measurement 5 × 1 s per cell"
+    predict=(-f 3 -wi 10 -w 1s -i 5 -r 1s)
+    predict_text="3 forks per cell, warm-up 10 × 1 s, measurement 5 × 1 s"
     ;;
   *) echo "usage: bench/run.sh [quick|full]" >&2; exit 2 ;;
 esac

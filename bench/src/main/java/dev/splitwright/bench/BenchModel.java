@@ -84,7 +84,10 @@ enum BenchModel {
     return SyntheticTable.generate(SYNTHETIC_ROWS, SYNTHETIC_FEATURES, SYNTHETIC_SEED);
   }
 
-  /** {@link #INPUT_ROWS} fresh independent readings in logged order, with their labels. */
+  /**
+   * {@link #INPUT_ROWS} fresh independent readings in logged order, with their labels. The pump
+   * readings are coded with {@code training}'s schema; the synthetic ones ignore it (may be null).
+   */
   LabelledRows freshReadings(Dataset training) {
     return switch (this) {
       case PUMP -> pumpReadings(training);
