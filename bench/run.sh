@@ -11,7 +11,7 @@ case "$profile" in
   quick)
     train_forks=3; j48_forks=1; depths=14
     predict=()  # the annotations' settings
-    predict_text="1 fork per cell, warm-up 2 × 0.5 s (generated classes 8 × 1 s),"
+    predict_text="1 fork per cell, warm-up 2 × 0.5 s (generated classes 6 × 1 s),"
     predict_text+=" measurement 3 × 0.5 s"
     ;;
   full)

@@ -14,6 +14,7 @@ import java.nio.file.StandardCopyOption;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
+import java.util.function.Supplier;
 import weka.classifiers.Classifier;
 import weka.core.Instances;
 import weka.core.Version;
@@ -45,9 +46,12 @@ final class ModelStore {
         : Path.of(System.getProperty("java.io.tmpdir"), "splitwright-bench-models"));
   }
 
-  /** Loads the classifier trained on {@code rows}, training and saving it if absent. */
-  Classifier trainedOn(WekaLearner learner, int depth, Dataset rows, Instances instances)
-      throws Exception {
+  /**
+   * Loads the classifier trained on {@code rows}, training and saving it if absent; {@code
+   * instances} converts the rows to Weka's form, only when training is needed.
+   */
+  Classifier trainedOn(WekaLearner learner, int depth, Dataset rows,
+      Supplier<Instances> instances) throws Exception {
     Path file = fileFor(learner, depth, rows);
     if (Files.isRegularFile(file)) {
       try (InputStream in = Files.newInputStream(file);
@@ -55,7 +59,7 @@ final class ModelStore {
         return (Classifier) objects.readObject();
       }
     }
-    Classifier trained = learner.train(instances, depth);
+    Classifier trained = learner.train(instances.get(), depth);
     save(file, trained);
     return trained;
   }

@@ -51,7 +51,7 @@ public final class ModelSummary {
           branchesClassBytes(tree), percent(accuracy(tree, fresh))));
       Instances instances = WekaData.of(training, model.paramName());
       for (WekaLearner learner : WekaLearner.values()) {
-        Classifier weka = store.trainedOn(learner, model.depth(), training, instances);
+        Classifier weka = store.trainedOn(learner, model.depth(), training, () -> instances);
         String options = String.join(" ", learner.options(model.depth()));
         md.append(String.format(Locale.ROOT, "| %s | Weka %s %s | %s | %s |%n", name,
             learner.displayName(), options.isEmpty() ? "(defaults)" : "`" + options + "`",

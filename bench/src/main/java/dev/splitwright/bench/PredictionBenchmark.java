@@ -114,7 +114,7 @@ public class PredictionBenchmark {
   private void loadWeka(Dataset training, BenchModel bench, WekaLearner learner)
       throws Exception {
     weka = ModelStore.fromSystemProperty().trainedOn(learner, bench.depth(), training,
-        WekaData.of(training, bench.paramName()));
+        () -> WekaData.of(training, bench.paramName()));
     Instances header = WekaData.header(training.schema(), bench.paramName(), 0);
     instances = new Instance[rows.length];
     for (int i = 0; i < rows.length; i++) {
@@ -147,13 +147,13 @@ public class PredictionBenchmark {
   }
 
   @Benchmark
-  @Warmup(iterations = 8, time = 1)
+  @Warmup(iterations = 6, time = 1)
   public int generatedBranches() throws Throwable {
     return (int) ConstantHandles.Branches.CLASSIFY.invokeExact(nextRow());
   }
 
   @Benchmark
-  @Warmup(iterations = 8, time = 1)
+  @Warmup(iterations = 6, time = 1)
   public int generatedTable() throws Throwable {
     return (int) ConstantHandles.Table.CLASSIFY.invokeExact(nextRow());
   }

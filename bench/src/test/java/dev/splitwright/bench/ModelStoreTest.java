@@ -19,11 +19,11 @@ class ModelStoreTest {
   @Test
   void storedModelLoadsAndPredictsLikeTheTrainedOne() throws Exception {
     ModelStore store = new ModelStore(dir);
-    Classifier trained = store.trainedOn(WekaLearner.REP_TREE, 5, rows, instances);
+    Classifier trained = store.trainedOn(WekaLearner.REP_TREE, 5, rows, () -> instances);
     Path file = store.fileFor(WekaLearner.REP_TREE, 5, rows);
     assertThat(file).isRegularFile();
 
-    Classifier loaded = store.trainedOn(WekaLearner.REP_TREE, 5, rows, instances);
+    Classifier loaded = store.trainedOn(WekaLearner.REP_TREE, 5, rows, () -> instances);
     assertThat(loaded).isNotSameAs(trained);
     for (int i = 0; i < instances.numInstances(); i++) {
       assertThat(loaded.classifyInstance(instances.instance(i)))
