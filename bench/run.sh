@@ -28,8 +28,8 @@ if [[ "${SKIP_BUILD:-0}" != 1 ]]; then
 fi
 out=bench/results
 mkdir -p "$out"
-# Weka models trained once are kept here for the other JVMs (see ModelStore).
-store="-Dsplitwright.bench.models=bench/target/model-store"
+# Weka models trained once are kept here for the other JVMs (see BenchStore).
+store="-Dsplitwright.bench.store=bench/target/bench-store"
 load_start=$(cut -d' ' -f1-3 /proc/loadavg)
 started=$(date +%s)
 

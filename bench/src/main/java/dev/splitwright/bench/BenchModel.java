@@ -7,6 +7,8 @@ import dev.splitwright.data.LoadOptions;
 import dev.splitwright.demo.DemoRow;
 import dev.splitwright.demo.PumpVibrationScenario;
 import dev.splitwright.train.TrainingOptions;
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Arrays;
@@ -128,8 +130,19 @@ enum BenchModel {
       throw new IllegalStateException("pump CSV columns " + names + " differ from the scenario's "
           + PumpVibrationScenario.FEATURES);
     }
-    List<DemoRow> generated = new PumpVibrationScenario().generate(INPUT_ROWS, PUMP_READINGS_SEED);
     List<String> classes = training.schema().classes();
+    try {
+      return BenchStore.fromSystemProperty().readings("pump-readings", INPUT_ROWS,
+          PUMP_READINGS_SEED, n -> pumpReadings(classes, n));
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+
+  /** Generates the readings, formatted as the scenario writes them and parsed back. */
+  private static LabelledRows pumpReadings(List<String> classes, int count) {
+    List<String> names = PumpVibrationScenario.FEATURES;
+    List<DemoRow> generated = new PumpVibrationScenario().generate(count, PUMP_READINGS_SEED);
     float[][] rows = new float[generated.size()][];
     int[] labels = new int[generated.size()];
     for (int r = 0; r < rows.length; r++) {

@@ -41,6 +41,14 @@ record BenchResult(String benchmarkClass, String method, Map<String, String> par
       raw = List.copyOf(raw);
     }
 
+    double min() {
+      return raw.stream().mapToDouble(Double::doubleValue).min().orElse(Double.NaN);
+    }
+
+    double max() {
+      return raw.stream().mapToDouble(Double::doubleValue).max().orElse(Double.NaN);
+    }
+
     /** The median of the raw values (the mean of the middle two for an even count). */
     double median() {
       if (raw.isEmpty()) {

@@ -18,9 +18,10 @@ final class Cells {
     return String.format(Locale.ROOT, pattern, value);
   }
 
-  /** A score with its confidence half-width, e.g. {@code 38.5 ± 4.2}. */
-  static String withError(double score, double error) {
-    return Double.isNaN(error) ? number(score) : number(score) + " ± " + number(error);
+  /** A score with the range of its samples, e.g. {@code 38.5 (36.1–41.0)}. */
+  static String withRange(double score, double min, double max) {
+    return min == max || Double.isNaN(min) ? number(score)
+        : number(score) + " (" + number(min) + "–" + number(max) + ")";
   }
 
   /** A ratio such as {@code 12.3×}. */

@@ -22,7 +22,7 @@ import weka.core.Instances;
 /**
  * Describes the trees the prediction benchmark compares: size and accuracy on the fresh readings,
  * so that a reader sees the forms answer the same question about equally well. Run as {@code main
- * <out.md>} after the benchmarks (Weka models then come from the {@link ModelStore}).
+ * <out.md>} after the benchmarks (Weka models then come from the {@link BenchStore}).
  */
 public final class ModelSummary {
   private ModelSummary() {}
@@ -38,7 +38,7 @@ public final class ModelSummary {
   static String render() throws Exception {
     StringBuilder md = new StringBuilder("## The trees compared\n\n"
         + "| model | form | size | accuracy on the fresh readings |\n|---|---|---|---:|\n");
-    ModelStore store = ModelStore.fromSystemProperty();
+    BenchStore store = BenchStore.fromSystemProperty();
     for (BenchModel model : BenchModel.values()) {
       Dataset training = model.trainingSet();
       LabelledRows fresh = model.freshReadings(training);

@@ -40,7 +40,7 @@ import weka.core.Instances;
  *
  * <p>Setup builds only what the running method needs (one trial = one method in one JVM), checks
  * that each generated class returns what the in-memory tree returns on every input row, and takes
- * Weka models from the {@link ModelStore}.
+ * Weka models from the {@link BenchStore}.
  */
 @BenchmarkMode(Mode.AverageTime)
 @OutputTimeUnit(TimeUnit.NANOSECONDS)
@@ -113,7 +113,7 @@ public class PredictionBenchmark {
 
   private void loadWeka(Dataset training, BenchModel bench, WekaLearner learner)
       throws Exception {
-    weka = ModelStore.fromSystemProperty().trainedOn(learner, bench.depth(), training,
+    weka = BenchStore.fromSystemProperty().trainedOn(learner, bench.depth(), training,
         () -> WekaData.of(training, bench.paramName()));
     Instances header = WekaData.header(training.schema(), bench.paramName(), 0);
     instances = new Instance[rows.length];

@@ -36,13 +36,15 @@ final class PredictionSection {
 
   String render() {
     StringBuilder md = new StringBuilder();
-    md.append("## Prediction cost (ns per prediction, mean ± 99.9% CI)\n\n");
+    md.append("## Prediction cost (ns per prediction: mean of the measured iterations, and"
+        + " their range)\n\n");
     md.append(header("form"));
     for (String[] form : FORMS) {
       md.append("| ").append(form[1]);
       for (String[] column : columns) {
         md.append(" | ").append(find(form[0], column)
-            .map(r -> Cells.withError(r.primary().score(), r.primary().error()))
+            .map(r -> Cells.withRange(r.primary().score(), r.primary().min(),
+                r.primary().max()))
             .orElse(Cells.NONE));
       }
       md.append(" |\n");

@@ -30,7 +30,7 @@ import weka.core.Instances;
  * Weka's format happen in setup, outside the timed run, but the rows stay on the heap and count
  * towards its peak, as they would in a build.
  *
- * <p>Weka models trained here are offered to the {@link ModelStore}, so that the prediction
+ * <p>Weka models trained here are offered to the {@link BenchStore}, so that the prediction
  * benchmark need not train J48 again.
  */
 @BenchmarkMode(Mode.SingleShotTime)
@@ -64,7 +64,7 @@ public class TrainingBenchmark {
       if (trained != null) {
         WekaLearner learner = params.getBenchmark().endsWith("wekaJ48")
             ? WekaLearner.J48 : WekaLearner.REP_TREE;
-        ModelStore.fromSystemProperty().offer(learner, depth, rows, trained);
+        BenchStore.fromSystemProperty().offer(learner, depth, rows, trained);
       }
     }
   }

@@ -13,14 +13,20 @@ class ResultTableTest {
   private static final MachineInfo MACHINE = new MachineInfo("Test CPU", 2, 4096, "0.1 0.2 0.3");
 
   private static String prediction(String method, String model, String order, double ns) {
+    return prediction(method, model, order, ns, ns, ns);
+  }
+
+  /** One fork whose three iterations took {@code low}, {@code mean} and {@code high}. */
+  private static String prediction(String method, String model, String order, double mean,
+      double low, double high) {
     return String.format(Locale.ROOT, """
         {"benchmark": "%sPredictionBenchmark.%s", "forks": 1, "jdkVersion": "17.0.15",
          "vmName": "OpenJDK 64-Bit Server VM", "vmVersion": "17.0.15+6",
          "params": {"model": "%s", "order": "%s"},
          "primaryMetric": {"score": %s, "scoreError": "NaN", "scoreUnit": "ns/op",
-                           "rawData": [[%s]]},
+                           "rawData": [[%s, %s, %s]]},
          "secondaryMetrics": {}}
-        """, PREFIX, method, model, order, ns, ns);
+        """, PREFIX, method, model, order, mean, low, mean, high);
   }
 
   private static String training(String method, String params, String rawMs, String heapMib) {
@@ -37,7 +43,7 @@ class ResultTableTest {
 
   private static List<BenchResult> results() throws Exception {
     String json = "[" + String.join(",",
-        prediction("generatedBranches", "pump", "shuffled", 40),
+        prediction("generatedBranches", "pump", "shuffled", 40, 36, 44),
         prediction("wekaJ48", "pump", "shuffled", 600),
         prediction("wekaRepTree", "pump", "shuffled", 100),
         prediction("inMemoryModel", "pump", "shuffled", 80),
@@ -83,7 +89,8 @@ class ResultTableTest {
         .contains("| Weka J48 / branches | 15.0× | 50.0× | — | — |")
         .contains("| Weka REPTree / branches | 2.50× | 7.50× | — | — |")
         .contains("| in-memory model / branches | 2.00× | — | — | — |")
-        .contains("| generated class, `table` layout | — | — | — | — |");
+        .contains("| generated class, `table` layout | — | — | — | — |")
+        .contains("| generated class, `branches` layout | 40.0 (36.0–44.0) | 8.00 | — | — |");
   }
 
   @Test

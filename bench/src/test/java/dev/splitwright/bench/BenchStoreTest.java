@@ -5,12 +5,14 @@ import static org.assertj.core.api.Assertions.assertThat;
 import dev.splitwright.data.Dataset;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import weka.classifiers.Classifier;
 import weka.core.Instances;
 
-class ModelStoreTest {
+class BenchStoreTest {
   @TempDir Path dir;
 
   private final Dataset rows = SyntheticTable.generate(2_000, 8, 4);
@@ -18,7 +20,7 @@ class ModelStoreTest {
 
   @Test
   void storedModelLoadsAndPredictsLikeTheTrainedOne() throws Exception {
-    ModelStore store = new ModelStore(dir);
+    BenchStore store = new BenchStore(dir);
     Classifier trained = store.trainedOn(WekaLearner.REP_TREE, 5, rows, () -> instances);
     Path file = store.fileFor(WekaLearner.REP_TREE, 5, rows);
     assertThat(file).isRegularFile();
@@ -36,7 +38,7 @@ class ModelStoreTest {
 
   @Test
   void keyChangesWithOptionsLearnerAndEveryLabel() {
-    ModelStore store = new ModelStore(dir);
+    BenchStore store = new BenchStore(dir);
     int[] labels = rows.labels();
     labels[labels.length - 1] = (labels[labels.length - 1] + 1) % SyntheticTable.CLASSES;
     float[][] columns = new float[rows.featureCount()][];
@@ -52,5 +54,44 @@ class ModelStoreTest {
     // J48 takes no depth, so the depth must not split its entries.
     assertThat(store.fileFor(WekaLearner.J48, 5, rows))
         .isEqualTo(store.fileFor(WekaLearner.J48, 14, rows));
+  }
+
+  /** Readings i = 0..n-1 with values (i, seed) and label i % 2, counting full generations. */
+  private final List<Integer> generated = new ArrayList<>();
+
+  private LabelledRows readings(int n, float offset) {
+    generated.add(n);
+    float[][] rows = new float[n][];
+    int[] labels = new int[n];
+    for (int i = 0; i < n; i++) {
+      rows[i] = new float[] {i + offset, Float.NaN};
+      labels[i] = i % 2;
+    }
+    return new LabelledRows(rows, labels);
+  }
+
+  @Test
+  void readingsAreGeneratedOnceThenLoadedBitForBit() throws Exception {
+    BenchStore store = new BenchStore(dir);
+    LabelledRows first = store.readings("r", 1_000, 7, n -> readings(n, 0.5f));
+    LabelledRows second = store.readings("r", 1_000, 7, n -> readings(n, 0.5f));
+
+    // Each call fingerprints the generator with 64 rows; only the first generates all 1,000.
+    assertThat(generated).containsExactly(64, 1_000, 64);
+    assertThat(second.labels()).containsExactly(first.labels());
+    for (int i = 0; i < first.size(); i++) {
+      assertThat(second.rows()[i][0]).isEqualTo(first.rows()[i][0]);
+      assertThat(second.rows()[i][1]).isNaN();
+    }
+  }
+
+  @Test
+  void changedGeneratorOutputIsGeneratedAfresh() throws Exception {
+    BenchStore store = new BenchStore(dir);
+    store.readings("r", 1_000, 7, n -> readings(n, 0.5f));
+    LabelledRows changed = store.readings("r", 1_000, 7, n -> readings(n, 0.25f));
+
+    assertThat(generated).containsExactly(64, 1_000, 64, 1_000);
+    assertThat(changed.rows()[3][0]).isEqualTo(3.25f);
   }
 }
