@@ -1,0 +1,102 @@
+package dev.splitwright.bench;
+
+import dev.splitwright.check.CompilationException;
+import dev.splitwright.check.CompiledClasses;
+import dev.splitwright.check.InMemoryCompiler;
+import dev.splitwright.data.Dataset;
+import dev.splitwright.data.Feature;
+import dev.splitwright.data.Schema;
+import dev.splitwright.emit.EmitOptions;
+import dev.splitwright.emit.EmittedSource;
+import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.emit.JavaEmitter;
+import dev.splitwright.emit.Layout;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.train.CartTrainer;
+import dev.splitwright.train.TrainingOptions;
+import java.lang.invoke.MethodHandle;
+import java.lang.invoke.MethodHandles;
+import java.lang.invoke.MethodType;
+import java.util.List;
+import java.util.Locale;
+
+/**
+ * Emits a tree, compiles the source with javac in this JVM and loads the class in a fresh class
+ * loader, exactly as the verifier does, and hands out its {@code int classify(float[])}.
+ */
+final class GeneratedClassifier {
+  static final String PACKAGE = "bench.generated";
+  static final MethodType CLASSIFY = MethodType.methodType(int.class, float[].class);
+
+  /**
+   * A hand-written classifier of one comparison-free line, compiled and loaded the same way: calling
+   * it measures what the call path adds to a generated classifier's own cost.
+   */
+  static final String TRIVIAL_SOURCE = "package " + PACKAGE + ";\n"
+      + "public final class Trivial {\n"
+      + "  private Trivial() {}\n"
+      + "  public static int classify(float[] x) {\n"
+      + "    return Float.floatToRawIntBits(x[0]) >>> 31;\n"
+      + "  }\n"
+      + "}\n";
+
+  private GeneratedClassifier() {}
+
+  /**
+   * Emits {@code tree} in {@code layout}, compiles and loads it.
+   *
+   * @throws UnsupportedOperationException if this build's emitter cannot write {@code layout}
+   */
+  static MethodHandle emitAndLoad(DecisionTree tree, Layout layout) {
+    EmittedSource source = emit(tree, layout);
+    return compileAndLoad(source.qualifiedName(), source.source());
+  }
+
+  private static EmittedSource emit(DecisionTree tree, Layout layout) {
+    EmitOptions options = EmitOptions.builder(PACKAGE,
+            "Model" + layout.optionName().substring(0, 1).toUpperCase(Locale.ROOT)
+                + layout.optionName().substring(1))
+        .layout(layout)
+        .build();
+    try {
+      return JavaEmitter.emit(tree, options, HeaderInfo.none());
+    } catch (IllegalArgumentException e) {
+      throw new UnsupportedOperationException(
+          "the emitter of this build cannot write layout '" + layout.optionName() + "': "
+              + e.getMessage(), e);
+    }
+  }
+
+  /**
+   * Fails at once, before any expensive setup, if this build's emitter cannot write {@code layout}:
+   * emits a two-leaf tree in it.
+   *
+   * @throws UnsupportedOperationException if it cannot
+   */
+  static void requireLayout(Layout layout) {
+    Schema schema = new Schema(List.of(Feature.numeric("x")), "y", List.of("a", "b"));
+    Dataset two = Dataset.ofRows(schema, new float[][] {{0f}, {1f}}, new int[] {0, 1});
+    emit(CartTrainer.train(two, TrainingOptions.defaults()), layout);
+  }
+
+  /** Loads the hand-written {@link #TRIVIAL_SOURCE}. */
+  static MethodHandle trivial() {
+    return compileAndLoad(PACKAGE + ".Trivial", TRIVIAL_SOURCE);
+  }
+
+  private static MethodHandle compileAndLoad(String name, String source) {
+    CompiledClasses classes;
+    try (InMemoryCompiler javac = InMemoryCompiler.create(List.of("--release", "17"))) {
+      classes = javac.compileOne(name, source);
+    } catch (CompilationException e) {
+      throw new IllegalStateException("generated source of " + name + " does not compile:\n"
+          + e.getMessage(), e);
+    }
+    Class<?> type = classes.load(name);
+    try {
+      return MethodHandles.publicLookup().findStatic(type, "classify", CLASSIFY);
+    } catch (NoSuchMethodException | IllegalAccessException e) {
+      throw new IllegalStateException(name + " has no public static int classify(float[])", e);
+    }
+  }
+}
