@@ -96,34 +96,32 @@ final class EmittedClassifier {
 
   /** Calls an int classifier with exactly these ints. */
   int classifyInts(int[] x) {
-    if (kind != InputKind.INT) {
-      throw new IllegalStateException("the classifier takes " + kind.optionName() + " inputs");
-    }
-    Object[] args;
-    if (named) {
-      args = new Object[x.length];
-      for (int f = 0; f < x.length; f++) {
-        args[f] = x[f];
-      }
-    } else {
-      args = new Object[] {x.clone()};
-    }
-    return (Integer) call(classify, args);
+    requireKind(InputKind.INT);
+    return classifyArray(x.clone(), x.length);
   }
 
   /** Classifies a double input; only for a classifier that takes doubles. */
   int classifyDouble(double[] x) {
-    if (kind != InputKind.DOUBLE) {
-      throw new IllegalStateException("the classifier takes " + kind.optionName() + " input");
+    requireKind(InputKind.DOUBLE);
+    return classifyArray(x.clone(), x.length);
+  }
+
+  private void requireKind(InputKind wanted) {
+    if (kind != wanted) {
+      throw new IllegalStateException("the classifier takes " + kind.optionName() + " inputs");
     }
+  }
+
+  /** Passes a primitive array as it is, or spread into one argument per feature. */
+  private int classifyArray(Object values, int length) {
     Object[] args;
     if (named) {
-      args = new Object[x.length];
-      for (int f = 0; f < x.length; f++) {
-        args[f] = x[f];
+      args = new Object[length];
+      for (int f = 0; f < length; f++) {
+        args[f] = java.lang.reflect.Array.get(values, f);
       }
     } else {
-      args = new Object[] {x.clone()};
+      args = new Object[] {values};
     }
     return (Integer) call(classify, args);
   }
