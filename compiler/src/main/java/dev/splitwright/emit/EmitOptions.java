@@ -17,7 +17,7 @@ public record EmitOptions(
     int maxMethodBytes,
     boolean bare) {
 
-  /** HotSpot's default HugeMethodLimit: larger methods are never JIT-compiled (measured by HotSpotJitTest). */
+  /** HotSpot's HugeMethodLimit: larger methods are never JIT-compiled (see HotSpotJitTest). */
   public static final int DEFAULT_MAX_METHOD_BYTES = 8000;
 
   /** The JVM's hard limit is 65,535 bytes of code per method (JVM Specification §4.7.3). */

@@ -117,9 +117,10 @@ final class LeafTable {
         Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
         .initializer("new float[$L]", entries).build());
     return CodeBlock.builder()
-        .add("// Per distinct leaf: its class, how many classes have a non-zero frequency,\n")
-        .add(words ? "// and those classes; their frequencies follow as IEEE 754 bits in order.\n"
-            : "// and for each such class its index and frequency as IEEE 754 bits.\n")
+        .add(words
+            ? "// Per distinct leaf: class, count of non-zero frequencies, their classes; the\n"
+                + "// frequencies follow as float bits, in the same order.\n"
+            : "// Per distinct leaf: class, count of non-zero frequencies, (class, float bits).\n")
         .addStatement("int[] leaves = $L", StringTable.unpack(data))
         .add(words ? CodeBlock.builder()
             .addStatement("int[] shares = $L", StringTable.words(shares)).build()

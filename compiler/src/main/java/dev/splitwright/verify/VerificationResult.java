@@ -42,7 +42,10 @@ public record VerificationResult(
     return classFileBytes - debugAttributeBytes;
   }
 
-  /** True when every input agreed, every method fits the cap and nothing outside java.lang is used. */
+  /**
+   * True when every input agreed, every per-call method fits the cap and nothing outside java.lang
+   * is used.
+   */
   public boolean passed() {
     return mismatches == 0 && maxMethodBytes <= methodByteCap && foreignReferences.isEmpty();
   }

@@ -9,7 +9,7 @@ import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
 import java.util.List;
 
-/** A small hand-built tree with a numeric split, a categorical one and missing values going left. */
+/** A small hand-built tree: a numeric split, a categorical one, missing values going left. */
 final class GoldenTrees {
   private GoldenTrees() {}
 

@@ -57,6 +57,10 @@ class HostileNamesTest {
   static final List<String> NAMES = List.of(
       LINE_ENDER,
       COMMENT_CLOSER,
+      // Parameter and local names of the emitted methods, for --named-args.
+      "x",
+      "out",
+      "leaf",
       "say \"hi\"",
       "C:\\temp\\new",
       "back\\ü slash before non-ASCII",
@@ -95,9 +99,6 @@ class HostileNamesTest {
       "FEATURE_COUNT",
       "CLASS_COUNT",
       "LABELS",
-      "x",
-      "out",
-      "leaf",
       "{@link java.lang.System#exit} <b>bold</b> @param &amp;",
       "\"; System.exit(1); //",
       "long " + "name ".repeat(20_000));
@@ -115,7 +116,8 @@ class HostileNamesTest {
   @MethodSource("variants")
   void hostileNamesCompileStayTextAndVerify(Layout layout, InputKind input, boolean named,
       boolean probabilities) throws Exception {
-    // At most 32 features for named arguments: the first 32 names then, all of them as labels.
+    // At most 32 features for named arguments: the first 32 names then (keywords and the emitted
+    // methods' own parameter and local names among them), all of them as labels.
     int featureCount = named ? EmitOptions.MAX_NAMED_ARGS : NAMES.size();
     DecisionTree hostile = tree(NAMES.subList(0, featureCount), NAMES);
     List<String> benignNames = new ArrayList<>();

@@ -24,10 +24,13 @@ public final class RandomTrees {
   /** How big a tree to grow. */
   public record Shape(int maxDepth, int maxNodes, int features, int classes) {}
 
-  /** A random shape: depth 0-20; mostly small trees, one in ten up to 20,000 nodes. */
+  /**
+   * A random shape: depth 0-20; mostly small trees, one in twenty up to 20,000 nodes (sizes
+   * log-uniform, so most of those still have a few hundred).
+   */
   public static Shape shape(SplittableRandom random) {
     int depth = random.nextInt(21);
-    double logMax = random.nextInt(10) == 0 ? Math.log(20_000) : Math.log(300);
+    double logMax = random.nextInt(20) == 0 ? Math.log(20_000) : Math.log(300);
     int nodes = (int) Math.exp(random.nextDouble() * logMax);
     return new Shape(depth, Math.max(1, nodes), 1 + random.nextInt(random.nextBoolean() ? 8 : 200),
         1 + random.nextInt(random.nextInt(4) == 0 ? 40 : 6));

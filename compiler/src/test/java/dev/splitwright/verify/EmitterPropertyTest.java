@@ -47,12 +47,17 @@ class EmitterPropertyTest {
     List<String> failures = new ArrayList<>();
     long inputs = 0;
     long nodes = 0;
+    int largest = 0;
+    int deepest = 0;
     int classes = 0;
     for (int first = 0; first < TREES; first += TREES_PER_BATCH) {
       List<Case> batch = new ArrayList<>();
       for (int i = first; i < Math.min(TREES, first + TREES_PER_BATCH); i++) {
         DecisionTree tree = RandomTrees.tree(random, RandomTrees.shape(random));
-        nodes += tree.leafCount() + tree.internalNodeCount();
+        int size = tree.leafCount() + tree.internalNodeCount();
+        nodes += size;
+        largest = Math.max(largest, size);
+        deepest = Math.max(deepest, tree.depth());
         EmitOptions options = options(random, tree);
         for (Layout layout : List.of(Layout.BRANCHES, Layout.TABLE)) {
           EmitOptions o = new EmitOptions("prop", "Tree" + i + "_" + layout.optionName(), layout,
@@ -78,13 +83,19 @@ class EmitterPropertyTest {
     }
     // Wall time depends on what else the machine runs; CPU time much less so. The JVM's other
     // threads (JIT compilers, GC) add to the process's CPU time and can run on a second core.
-    System.out.printf(Locale.ROOT, "EmitterPropertyTest: %d trees, %d nodes, %d classes, %d "
-        + "inputs; %.1f s wall (javac %.1f s); CPU: %.1f s test thread, %.1f s process%n", TREES,
-        nodes, classes, inputs, (System.nanoTime() - started) / 1e9, compileNanos / 1e9,
+    System.out.printf(Locale.ROOT, "EmitterPropertyTest: %d trees, %d nodes (largest %d, deepest "
+        + "%d), %d classes, %d inputs; %.1f s wall (javac %.1f s); CPU: %.1f s test thread, %.1f s "
+        + "process%n", TREES, nodes, largest, deepest, classes, inputs,
+        (System.nanoTime() - started) / 1e9, compileNanos / 1e9,
         (threads.getCurrentThreadCpuTime() - cpuStarted) / 1e9,
         (processCpuNanos() - processCpuStarted) / 1e9);
     assertThat(failures).isEmpty();
     assertThat(classes).isEqualTo(2 * TREES);
+    if (TREES >= 2000) {
+      // The shapes the issue asks for were really drawn.
+      assertThat(largest).isGreaterThan(10_000);
+      assertThat(deepest).isEqualTo(20);
+    }
   }
 
   private static long processCpuNanos() {

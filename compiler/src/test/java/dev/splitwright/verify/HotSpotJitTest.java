@@ -117,10 +117,12 @@ class HotSpotJitTest {
     assertThat(table.passed()).as(table.verdict()).isTrue();
     assertThat(table.classFileBytes()).isLessThan(verified.classFileBytes());
     System.out.printf(Locale.ROOT, "depth-14 tree: branches %d bytes (%d without debug), %d "
-        + "methods, largest %d bytes; table %d bytes (%d without debug), largest %d bytes%n",
+        + "methods, largest %d bytes, %d constants; table %d bytes (%d without debug), largest "
+        + "%d bytes, static initializer %d bytes, %d constants%n",
         verified.classFileBytes(), verified.classFileBytesWithoutDebug(), methods.size(),
-        verified.maxMethodBytes(), table.classFileBytes(), table.classFileBytesWithoutDebug(),
-        table.maxMethodBytes());
+        verified.maxMethodBytes(), verified.constantPoolCount(), table.classFileBytes(),
+        table.classFileBytesWithoutDebug(), table.maxMethodBytes(),
+        codeLength(classes, "jit.DeepTable", "<clinit>"), table.constantPoolCount());
 
     TreeSet<String> compiled = compiledMethods(write(classes), "jit.Driver", List.of());
     for (String name : treeMethods) {
