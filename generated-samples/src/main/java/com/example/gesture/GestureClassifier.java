@@ -106,8 +106,7 @@ public final class GestureClassifier {
     private static final float[] PROBABILITY = new float[23];
 
     static {
-        // Per distinct leaf: its class, how many classes have a non-zero frequency,
-        // and for each such class its index and frequency as IEEE 754 bits.
+        // Per distinct leaf: class, count of non-zero frequencies, (class, float bits).
         int[] leaves = unpack("$'$Qv_rs(%lc[ze(&RUT_c('ikQ]a(#$#z`Uus(%&$p^pRc(%skuss('p^pRc($%$zsuYs('yjT|m(#&#tQlps(%|Y[nf('|Y[nf"
                 + "(&&$[bmUg(&fsnqs('le[wc(%%%cvRsq(&cvRsq('$'z`Uus(''#W_ege($vxvhf(%ntbec('}msps(", 64);
         int next = 0;
