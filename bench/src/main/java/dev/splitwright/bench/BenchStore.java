@@ -1,5 +1,7 @@
 package dev.splitwright.bench;
 
+import dev.splitwright.check.CompilationException;
+import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.data.Dataset;
 import java.io.BufferedInputStream;
 import java.io.BufferedOutputStream;
@@ -18,6 +20,9 @@ import java.nio.file.StandardCopyOption;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
 import java.util.function.IntFunction;
 import java.util.function.Supplier;
 import weka.classifiers.Classifier;
@@ -26,13 +31,14 @@ import weka.core.Version;
 
 /**
  * Keeps what is slow to make on disk between benchmark JVMs: trained Weka classifiers (J48 needs
- * minutes on the 200,000-row set) and generated input readings (the pump scenario formats every
- * value as decimal text, seconds for 65,536 rows). Every JMH fork is a fresh JVM, so without this
- * each fork would redo them.
+ * a minute on the 200,000-row set), generated input readings (the pump scenario formats every value
+ * as decimal text, seconds for 65,536 rows) and compiled classifiers (javac needs seconds for the
+ * deep tree). Every JMH fork is a fresh JVM, so without this each fork would redo them.
  *
  * <p>Entries are named by a SHA-256 of everything they depend on: for a model the learner, its
  * options, the Weka version and every value and label of the training rows; for readings the name,
- * count, seed and the first rows the generator gives now. A changed generator or option therefore
+ * count, seed and the first rows the generator gives now; for class files the JVM version, javac
+ * options and the source text. A changed generator, option or source therefore
  * never loads a stale entry. Java serialization is fine here: the store only ever reads files it
  * wrote itself.
  */
@@ -110,6 +116,49 @@ final class BenchStore {
     }
     Files.move(temp, file, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
     return rows;
+  }
+
+  /** What produces class files on a miss. */
+  interface Compilation {
+    CompiledClasses run() throws CompilationException;
+  }
+
+  /**
+   * Loads the class files javac made from {@code source} with {@code options} on this JDK,
+   * compiling and saving them if absent: javac needs seconds for a tree of thousands of leaves.
+   */
+  CompiledClasses compiled(String name, String source, List<String> options,
+      Compilation compile) throws IOException, CompilationException {
+    MessageDigest sha = sha256();
+    sha.update((FORMAT + "|" + System.getProperty("java.vm.version") + "|" + options + "|" + name
+        + "|" + source).getBytes(StandardCharsets.UTF_8));
+    Path file = directory.resolve(name + "-" + hex(sha) + ".classes");
+    if (Files.isRegularFile(file)) {
+      try (DataInputStream in = new DataInputStream(
+          new BufferedInputStream(Files.newInputStream(file)))) {
+        Map<String, byte[]> classes = new TreeMap<>();
+        for (int n = in.readInt(); n > 0; n--) {
+          String className = in.readUTF();
+          classes.put(className, in.readNBytes(in.readInt()));
+        }
+        return CompiledClasses.of(classes);
+      }
+    }
+    CompiledClasses classes = compile.run();
+    Files.createDirectories(directory);
+    Path temp = Files.createTempFile(directory, "partial-", ".tmp");
+    try (DataOutputStream out = new DataOutputStream(
+        new BufferedOutputStream(Files.newOutputStream(temp)))) {
+      out.writeInt(classes.names().size());
+      for (String className : classes.names()) {
+        byte[] bytes = classes.bytes(className);
+        out.writeUTF(className);
+        out.writeInt(bytes.length);
+        out.write(bytes);
+      }
+    }
+    Files.move(temp, file, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+    return classes;
   }
 
   private static void writeRows(DataOutputStream out, LabelledRows rows) throws IOException {

@@ -14,6 +14,8 @@ import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.train.CartTrainer;
 import dev.splitwright.train.TrainingOptions;
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.lang.invoke.MethodHandle;
 import java.lang.invoke.MethodHandles;
 import java.lang.invoke.MethodType;
@@ -21,12 +23,14 @@ import java.util.List;
 import java.util.Locale;
 
 /**
- * Emits a tree, compiles the source with javac in this JVM and loads the class in a fresh class
- * loader, exactly as the verifier does, and hands out its {@code int classify(float[])}.
+ * Emits a tree, compiles the source with javac in this JVM (or takes the class files compiled from
+ * the same source earlier from the {@link BenchStore}) and loads the class in a fresh class loader,
+ * as the verifier does, and hands out its {@code int classify(float[])}.
  */
 final class GeneratedClassifier {
   static final String PACKAGE = "bench.generated";
   static final MethodType CLASSIFY = MethodType.methodType(int.class, float[].class);
+  static final List<String> JAVAC_OPTIONS = List.of("--release", "17");
 
   /**
    * A hand-written classifier of one comparison-free line, compiled and loaded the same way: calling
@@ -86,11 +90,17 @@ final class GeneratedClassifier {
 
   private static MethodHandle compileAndLoad(String name, String source) {
     CompiledClasses classes;
-    try (InMemoryCompiler javac = InMemoryCompiler.create(List.of("--release", "17"))) {
-      classes = javac.compileOne(name, source);
+    try {
+      classes = BenchStore.fromSystemProperty().compiled(name, source, JAVAC_OPTIONS, () -> {
+        try (InMemoryCompiler javac = InMemoryCompiler.create(JAVAC_OPTIONS)) {
+          return javac.compileOne(name, source);
+        }
+      });
     } catch (CompilationException e) {
       throw new IllegalStateException("generated source of " + name + " does not compile:\n"
           + e.getMessage(), e);
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
     }
     Class<?> type = classes.load(name);
     try {

@@ -2,6 +2,9 @@ package dev.splitwright.bench;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import dev.splitwright.check.CompilationException;
+import dev.splitwright.check.CompiledClasses;
+import dev.splitwright.check.InMemoryCompiler;
 import dev.splitwright.data.Dataset;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -93,5 +96,28 @@ class BenchStoreTest {
 
     assertThat(generated).containsExactly(64, 1_000, 64, 1_000);
     assertThat(changed.rows()[3][0]).isEqualTo(3.25f);
+  }
+
+  @Test
+  void compiledClassesAreStoredBySourceText() throws Exception {
+    BenchStore store = new BenchStore(dir);
+    String source = "package p; public final class A { class Inner {} }";
+    List<String> options = List.of("--release", "17");
+    CompiledClasses first = store.compiled("p.A", source, options, () -> compile(source));
+    CompiledClasses again = store.compiled("p.A", source, options, () -> {
+      throw new AssertionError("must come from the store");
+    });
+
+    assertThat(again.names()).containsExactly("p.A", "p.A$Inner");
+    assertThat(again.bytes("p.A$Inner")).isEqualTo(first.bytes("p.A$Inner"));
+    String changed = source.replace("Inner", "Other");
+    assertThat(store.compiled("p.A", changed, options, () -> compile(changed)).names())
+        .containsExactly("p.A", "p.A$Other");
+  }
+
+  private static CompiledClasses compile(String source) throws CompilationException {
+    try (InMemoryCompiler javac = InMemoryCompiler.create(List.of("--release", "17"))) {
+      return javac.compileOne("p.A", source);
+    }
   }
 }
