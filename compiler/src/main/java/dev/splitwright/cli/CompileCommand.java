@@ -230,7 +230,7 @@ final class CompileCommand implements Callable<Integer> {
               "must be branches, table or smallest, but it is '" + layout + "'")))
           .inputKind(InputKind.parse(input).orElseThrow(() -> bad("--input",
               "must be float, double or int, but it is '" + input + "'")))
-          .maxMethodBytes(maxMethodBytes)
+          .maxMethodBytes(methodCap())
           .namedArgs(namedArgs)
           .probabilities(probabilities)
           .bare(bare)
@@ -256,6 +256,15 @@ final class CompileCommand implements Callable<Integer> {
       throw new ParameterException(spec.commandLine(),
           "option '--class-weight': " + e.getMessage());
     }
+  }
+
+  /** The JVM's own limit is 65,535 bytes of code (JVM Specification §4.7.3). */
+  private int methodCap() {
+    if (maxMethodBytes < 256 || maxMethodBytes > EmitOptions.JVM_MAX_METHOD_BYTES) {
+      throw bad("--max-method-bytes", "must be between 256 and "
+          + EmitOptions.JVM_MAX_METHOD_BYTES + ", but it is " + maxMethodBytes);
+    }
+    return maxMethodBytes;
   }
 
   private static String optionFor(String message) {

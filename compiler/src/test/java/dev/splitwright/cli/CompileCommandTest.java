@@ -132,6 +132,13 @@ class CompileCommandTest {
   }
 
   @Test
+  void methodCapOutsideTheJvmLimitIsAnOptionError() {
+    CliRun run = CliRun.of(compileArgs(temp.resolve("out"), "--max-method-bytes", "70000"));
+    assertOneLineError(run, "--max-method-bytes");
+    assertThat(run.err()).contains("between 256 and 65535").doesNotContain("maxMethodBytes");
+  }
+
+  @Test
   void splitFractionsMustSumToOne() {
     CliRun run = CliRun.of(compileArgs(temp.resolve("out"), "--split", "0.5,0.2,0.2"));
     assertOneLineError(run, "--split");
