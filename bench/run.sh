@@ -27,7 +27,7 @@ if [[ "${SKIP_BUILD:-0}" != 1 ]]; then
   mvn -B -q -pl bench -am package -DskipTests
 fi
 out=bench/results
-mkdir -p "$out"
+mkdir -p "$out" bench/target
 # Weka models trained once are kept here for the other JVMs (see BenchStore).
 store="-Dsplitwright.bench.store=bench/target/bench-store"
 load_start=$(cut -d' ' -f1-3 /proc/loadavg)
@@ -44,7 +44,7 @@ java -jar "$jar" 'TrainingBenchmark\.wekaJ48$' \
   -rf json -rff "$out/$profile-j48.json"
 java -jar "$jar" 'PredictionBenchmark' "${predict[@]}" -jvmArgsPrepend "$store" \
   -rf json -rff "$out/$profile-prediction.json"
-java "$store" -cp "$jar" dev.splitwright.bench.ModelSummary "$out/$profile-models.md"
+java "$store" -cp "$jar" dev.splitwright.bench.ModelSummary "bench/target/$profile-models.md"
 
 settings="prediction: $predict_text; training: JMH single-shot, one cold run per fresh JVM"
 settings+=" (-Xmx2g), $train_forks runs each ($j48_forks for J48), median reported; peak heap"
@@ -52,6 +52,6 @@ settings+=" by PeakHeapProfiler (heap in use before each GC), allocation by JMH 
 settings+=" whole run $(( $(date +%s) - started )) s"
 java -cp "$jar" dev.splitwright.bench.ResultTable --profile "$profile" \
   --out "$out/$profile.md" --load-start "$load_start" --settings "$settings" \
-  --models "$out/$profile-models.md" \
+  --models "bench/target/$profile-models.md" \
   "$out/$profile-training.json" "$out/$profile-j48.json" "$out/$profile-prediction.json"
 echo "wrote $out/$profile.md"

@@ -85,6 +85,11 @@ public final class PeakHeapProfiler implements InternalProfiler {
     return List.of(new ScalarResult("heap.peak", peakBytes / MIB, "MiB", AggregationPolicy.MAX));
   }
 
+  /** The peak so far, in bytes. */
+  long peakBytes() {
+    return peakBytes;
+  }
+
   private void onCollection(Notification notification, Object handback) {
     if (!GarbageCollectionNotificationInfo.GARBAGE_COLLECTION_NOTIFICATION
         .equals(notification.getType())) {
