@@ -1,6 +1,5 @@
 package dev.splitwright.verify;
 
-import dev.splitwright.data.Feature;
 import dev.splitwright.data.Schema;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
@@ -85,14 +84,7 @@ final class BoundaryProbes {
       float[] high = new float[n];
       Arrays.fill(low, Float.NEGATIVE_INFINITY);
       Arrays.fill(high, Float.POSITIVE_INFINITY);
-      boolean[][] allowed = new boolean[n][];
-      for (int f = 0; f < n; f++) {
-        Feature feature = schema.feature(f);
-        if (feature.isCategorical()) {
-          allowed[f] = new boolean[feature.categories().size()];
-          Arrays.fill(allowed[f], true);
-        }
-      }
+      boolean[][] allowed = CategoryPath.allAllowed(schema);
       boolean[] missing = new boolean[n];
       Arrays.fill(missing, true);
       return new PathState(schema, low, high, allowed, missing);
@@ -113,15 +105,7 @@ final class BoundaryProbes {
           newLow[f] = Math.max(low[f], numeric.threshold());
         }
       } else {
-        CategoricalSplit categorical = (CategoricalSplit) split;
-        newAllowed = allowed.clone();
-        boolean[] codes = allowed[f].clone();
-        for (int code = 0; code < codes.length; code++) {
-          if (categorical.leftCodes().contains(code) != left) {
-            codes[code] = false;
-          }
-        }
-        newAllowed[f] = codes;
+        newAllowed = CategoryPath.narrow(allowed, (CategoricalSplit) split, left);
       }
       boolean[] newMissing = missingAllowed;
       if (split.missingLeft() != left && missingAllowed[f]) {

@@ -1,6 +1,5 @@
 package dev.splitwright.verify;
 
-import dev.splitwright.data.Feature;
 import dev.splitwright.data.Schema;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
@@ -105,14 +104,7 @@ final class IntProbes {
       long[] high = new long[n];
       Arrays.fill(low, NONE);
       Arrays.fill(high, Integer.MAX_VALUE);
-      boolean[][] allowed = new boolean[n][];
-      for (int f = 0; f < n; f++) {
-        Feature feature = schema.feature(f);
-        if (feature.isCategorical()) {
-          allowed[f] = new boolean[feature.categories().size()];
-          Arrays.fill(allowed[f], true);
-        }
-      }
+      boolean[][] allowed = CategoryPath.allAllowed(schema);
       boolean[] missing = new boolean[n];
       Arrays.fill(missing, true);
       return new PathState(low, high, allowed, missing);
@@ -134,15 +126,7 @@ final class IntProbes {
           newLow[f] = Math.max(low[f], n);
         }
       } else {
-        CategoricalSplit categorical = (CategoricalSplit) split;
-        newAllowed = allowed.clone();
-        boolean[] codes = allowed[f].clone();
-        for (int code = 0; code < codes.length; code++) {
-          if (categorical.leftCodes().contains(code) != left) {
-            codes[code] = false;
-          }
-        }
-        newAllowed[f] = codes;
+        newAllowed = CategoryPath.narrow(allowed, (CategoricalSplit) split, left);
         if (split.missingLeft() != left) {
           newMissing = missingAllowed.clone();
           newMissing[f] = false;
