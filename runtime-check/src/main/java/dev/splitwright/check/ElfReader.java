@@ -1,0 +1,96 @@
+package dev.splitwright.check;
+
+import java.nio.ByteOrder;
+import java.nio.charset.StandardCharsets;
+import java.util.Locale;
+
+/**
+ * Reads the fixed-size items of an ELF file in the file's own byte order and checks every access
+ * against the file's length, so a truncated or corrupt file fails with the offset of the bad item
+ * instead of an index exception.
+ */
+final class ElfReader {
+
+  private final byte[] bytes;
+  private final ByteOrder order;
+
+  ElfReader(byte[] bytes, ByteOrder order) {
+    this.bytes = bytes;
+    this.order = order;
+  }
+
+  int length() {
+    return bytes.length;
+  }
+
+  int u8(long offset, String item) {
+    need(offset, 1, item);
+    return bytes[(int) offset] & 0xFF;
+  }
+
+  int u16(long offset, String item) {
+    need(offset, 2, item);
+    return (int) unsigned(offset, 2);
+  }
+
+  long u32(long offset, String item) {
+    need(offset, 4, item);
+    return unsigned(offset, 4);
+  }
+
+  /** A 64-bit field; values of 2^63 and above make no sense for offsets or sizes, so they fail. */
+  long u64(long offset, String item) {
+    need(offset, 8, item);
+    long value = unsigned(offset, 8);
+    if (value < 0) {
+      throw error(offset, item + " is " + Long.toUnsignedString(value) + ", beyond 2^63 - 1");
+    }
+    return value;
+  }
+
+  /** An address-sized field: 4 bytes in ELF32, 8 in ELF64. */
+  long word(long offset, boolean is64, String item) {
+    return is64 ? u64(offset, item) : u32(offset, item);
+  }
+
+  /** A NUL-terminated string starting at {@code start} that must end before {@code end}. */
+  String string(long start, long end, String item) {
+    need(start, 0, item);
+    for (long i = start; i < end; i++) {
+      need(i, 1, item);
+      if (bytes[(int) i] == 0) {
+        return new String(bytes, (int) start, (int) (i - start), StandardCharsets.UTF_8);
+      }
+    }
+    throw error(start, item + " has no terminating NUL before offset " + end);
+  }
+
+  /** Fails unless {@code length} bytes starting at {@code offset} lie inside the file. */
+  void need(long offset, long length, String item) {
+    if (offset < 0 || length < 0 || offset > bytes.length || length > bytes.length - offset) {
+      throw error(
+          offset,
+          String.format(
+              Locale.ROOT,
+              "truncated: %s needs %d bytes at offset %d but the file has %d bytes",
+              item,
+              length,
+              offset,
+              bytes.length));
+    }
+  }
+
+  static IllegalArgumentException error(long offset, String message) {
+    return new IllegalArgumentException("malformed ELF file at offset " + offset + ": " + message);
+  }
+
+  private long unsigned(long offset, int size) {
+    int at = (int) offset;
+    long value = 0;
+    for (int i = 0; i < size; i++) {
+      int index = order == ByteOrder.LITTLE_ENDIAN ? at + size - 1 - i : at + i;
+      value = (value << 8) | (bytes[index] & 0xFF);
+    }
+    return value;
+  }
+}
