@@ -1,9 +1,19 @@
 /**
- * Checks generated Java source from inside the JVM: compiles it in memory ({@link
- * dev.splitwright.check.InMemoryCompiler}), loads the classes in a fresh class loader ({@link
- * dev.splitwright.check.CompiledClasses}), measures the class files ({@link
- * dev.splitwright.check.ClassFileInfo}) and compares a candidate function with an oracle ({@link
- * dev.splitwright.check.OracleComparison}).
+ * Checks generated code outside the compiler that generated it.
+ *
+ * <p>Java: compiles source in memory ({@link dev.splitwright.check.InMemoryCompiler}), loads the
+ * classes in a fresh class loader ({@link dev.splitwright.check.CompiledClasses}), measures the
+ * class files ({@link dev.splitwright.check.ClassFileInfo}) and compares a candidate function with
+ * an oracle ({@link dev.splitwright.check.OracleComparison}).
+ *
+ * <p>C: runs a C compiler such as {@code cc} or {@code arm-none-eabi-gcc} as a process under a
+ * time limit ({@link dev.splitwright.check.CCompiler}), either to object files, many translation
+ * units in one run ({@link dev.splitwright.check.ObjectFiles}), or to a program ({@link
+ * dev.splitwright.check.NativeExecutable}) that is run on binary input ({@link
+ * dev.splitwright.check.NativeRun}, {@link dev.splitwright.check.LittleEndian}).
+ *
+ * <p>ELF: reads the sections and symbols of ELF32 and ELF64 objects of either byte order ({@link
+ * dev.splitwright.check.ElfFile}) to tell how many bytes of flash the code and tables take.
  *
  * <p>Depends on the JDK only, so it knows nothing about trees or data sets.
  */
