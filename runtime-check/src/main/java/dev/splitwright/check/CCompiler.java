@@ -113,8 +113,10 @@ public final class CCompiler {
 
   /**
    * Compiles each {@code .c} file to an object file in one compiler run ({@code cc flags -c a.c
-   * b.c ...}), which costs far less than one run per file. {@code .h} files are written next to
-   * them for {@code #include "..."}.
+   * b.c ...}). gcc still runs its compiler proper once per file, so this saves only the driver's
+   * start-up and the temporary directory per file: 40 small files at -Os took 12-16 s in one run
+   * and 17-21 s in 40 runs (measured on a shared 2-core machine under load average 22; flash
+   * bytes were identical). {@code .h} files are written next to them for {@code #include "..."}.
    *
    * @param sources file name (plain, ending in {@code .c} or {@code .h}) to text; at least one
    *     {@code .c}

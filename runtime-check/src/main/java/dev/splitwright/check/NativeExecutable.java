@@ -12,6 +12,8 @@ import java.util.Objects;
 /**
  * A program built by {@link CCompiler#buildExecutable}, living in its own temporary directory
  * until {@link #close()} deletes it.
+ *
+ * <p>Runs may happen from several threads at once; {@link #close()} must come after all of them.
  */
 public final class NativeExecutable implements AutoCloseable {
 

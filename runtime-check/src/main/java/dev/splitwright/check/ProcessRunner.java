@@ -152,9 +152,7 @@ final class ProcessRunner {
     }
 
     byte[] bytes() {
-      synchronized (buffer) {
-        return buffer.toByteArray();
-      }
+      return buffer.toByteArray();
     }
   }
 }

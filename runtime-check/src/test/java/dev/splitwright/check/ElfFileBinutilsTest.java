@@ -121,21 +121,23 @@ class ElfFileBinutilsTest {
   }
 
   private ElfFile compileForArm(List<String> target) throws Exception {
-    CCompiler cc;
-    try {
-      List<String> flags = new ArrayList<>(target);
-      flags.addAll(List.of("-std=c99", "-Os", "-ffunction-sections", "-fdata-sections"));
-      cc = CCompiler.find("arm-none-eabi-gcc", flags, LIMIT);
-    } catch (CCompilerNotFoundException e) {
-      Assumptions.abort(
-          "arm-none-eabi-gcc is not on PATH; install gcc-arm-none-eabi, libnewlib-arm-none-eabi"
-              + " and binutils-arm-none-eabi to run this check");
-      throw new AssertionError(e);
-    }
+    List<String> flags = new ArrayList<>(target);
+    flags.addAll(List.of("-std=c99", "-Os", "-ffunction-sections", "-fdata-sections"));
+    CCompiler cc = armCompiler(flags);
     ObjectFiles objects = cc.compileObjects(Map.of("tables.c", TABLES, "switch.c", SWITCH));
     compareWithBinutils(objects.bytes("switch.c"), "arm-none-eabi-size", "arm-none-eabi-nm");
     return compareWithBinutils(
         objects.bytes("tables.c"), "arm-none-eabi-size", "arm-none-eabi-nm");
+  }
+
+  private static CCompiler armCompiler(List<String> flags) {
+    try {
+      return CCompiler.find("arm-none-eabi-gcc", flags, LIMIT);
+    } catch (CCompilerNotFoundException e) {
+      return Assumptions.abort(
+          "arm-none-eabi-gcc is not on PATH; install gcc-arm-none-eabi, libnewlib-arm-none-eabi"
+              + " and binutils-arm-none-eabi to run this check");
+    }
   }
 
   private ElfFile compareWithBinutils(byte[] object, String size, String nm) throws Exception {
