@@ -63,7 +63,7 @@ record OutputTargets(
     }
   }
 
-  private static void checkFile(String option, Path file) throws InputException {
+  static void checkFile(String option, Path file) throws InputException {
     if (Files.isDirectory(file)) {
       throw new InputException(option, "cannot write " + file + ": a directory of that name exists",
           "remove or rename that directory, or write elsewhere");
