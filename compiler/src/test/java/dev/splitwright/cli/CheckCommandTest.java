@@ -13,6 +13,7 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.persist.ModelFile;
+import dev.splitwright.report.TreeSvg;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -169,7 +170,7 @@ class CheckCommandTest {
   }
 
   @Test
-  void agreesExactlyWithTheCompileCommandsTestFigures() throws IOException {
+  void agreesExactlyWithTheCompileCommandsTestFigures() throws Exception {
     Path field = temp.resolve("field.csv");
     assertThat(CliRun.of("demo", "--scenario", "pump-vibration", "--rows", "900", "--seed", "99",
         "--out", field.toString()).exitCode()).isZero();
@@ -190,6 +191,9 @@ class CheckCommandTest {
     JsonNode checked = JSON.readTree(report.toFile()).get("scores");
     assertThat(checked).isEqualTo(compiled);
     assertThat(checked.get("rows").asInt()).isEqualTo(900);
+    // The compile also drew the saved tree, through the same atomic output.
+    assertThat(Files.readString(out.resolve("Pump.tree.svg")))
+        .isEqualTo(TreeSvg.render(ModelFile.read(model), "Pump"));
   }
 
   @Test
