@@ -67,4 +67,20 @@ public final class CsvLoader {
     Objects.requireNonNull(options, "options");
     return SchemaLoad.load(file, schema, options);
   }
+
+  /**
+   * Loads a field log to score a model on, exactly as {@link #loadWithSchema} does, and also counts
+   * the rows holding a category the model never saw and the rows holding a missing cell.
+   *
+   * @throws InputException if the file cannot be read, does not match the schema, or is malformed
+   */
+  public static FieldLog loadFieldLog(Path file, Schema schema, LoadOptions options)
+      throws InputException {
+    Objects.requireNonNull(file, "file");
+    Objects.requireNonNull(schema, "schema");
+    Objects.requireNonNull(options, "options");
+    SchemaLoad.RowTally tally = new SchemaLoad.RowTally();
+    LoadedData loaded = SchemaLoad.load(file, schema, options, tally);
+    return new FieldLog(loaded, tally.unseenCategoryRows, tally.missingValueRows);
+  }
 }

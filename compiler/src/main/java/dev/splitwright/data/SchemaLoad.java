@@ -15,6 +15,20 @@ final class SchemaLoad {
   private SchemaLoad() {}
 
   static LoadedData load(Path file, Schema schema, LoadOptions options) throws InputException {
+    return load(file, schema, options, new RowTally());
+  }
+
+  /**
+   * Counts rows that hold a category the schema does not know and rows that hold a missing cell;
+   * both load as NaN, so only the loader can still tell them apart.
+   */
+  static final class RowTally {
+    long unseenCategoryRows;
+    long missingValueRows;
+  }
+
+  static LoadedData load(Path file, Schema schema, LoadOptions options, RowTally tally)
+      throws InputException {
     checkAgainstSchema(schema, options);
     MessageDigest digest = LoadRules.sha256();
     try (CsvRows rows = CsvRows.open(file, digest)) {
@@ -43,6 +57,8 @@ final class SchemaLoad {
         if (++count > LoadRules.MAX_ROWS) {
           throw LoadRules.tooManyRows(rows);
         }
+        boolean unseen = false;
+        boolean missing = false;
         for (int c = 0; c < header.size(); c++) {
           String text = record.get(c).trim();
           if (c == target) {
@@ -59,9 +75,11 @@ final class SchemaLoad {
           }
           int f = featureOf[c];
           if (options.isMissing(text)) {
+            missing = true;
             columns[f].add(Float.NaN);
           } else if (schema.feature(f).isCategorical()) {
             Integer code = categoryCodes.get(f).get(text);
+            unseen |= code == null;
             columns[f].add(code == null ? Float.NaN : code);
           } else {
             CellText.Kind kind = CellText.classify(text);
@@ -71,6 +89,8 @@ final class SchemaLoad {
             columns[f].add(CellText.parse(text));
           }
         }
+        tally.unseenCategoryRows += unseen ? 1 : 0;
+        tally.missingValueRows += missing ? 1 : 0;
       }
       rows.finish();
       if (count == 0) {

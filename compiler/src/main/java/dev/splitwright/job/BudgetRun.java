@@ -8,6 +8,7 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
+import dev.splitwright.report.TreeSvg;
 import dev.splitwright.select.BudgetSelection;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
@@ -48,6 +49,7 @@ final class BudgetRun {
     OutputFiles out = new OutputFiles();
     out.add(request.outDir().resolve(outcome.source().relativePath()), outcome.source().source());
     out.add(request.outDir().resolve(name + ".report.json"), ReportJson.render(report));
+    out.add(OutputTargets.treeFile(request.outDir(), name), TreeSvg.render(tree, name));
     out.add(request.outDir().resolve(name + ".frontier.svg"), outcome.frontierSvg());
     if (request.saveModel().isPresent()) {
       out.add(request.saveModel().get(), ModelFile.toJson(tree, options));

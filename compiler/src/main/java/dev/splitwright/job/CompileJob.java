@@ -16,6 +16,7 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
+import dev.splitwright.report.TreeSvg;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.train.CartTrainer;
@@ -114,6 +115,7 @@ public final class CompileJob {
     OutputFiles out = new OutputFiles();
     out.add(targets.source(), source.source());
     out.add(targets.report(), ReportJson.render(report));
+    out.add(targets.tree(), TreeSvg.render(tree, request.emit().className()));
     if (targets.model().isPresent()) {
       out.add(targets.model().get(), ModelFile.toJson(tree, optionsMap(request)));
     }

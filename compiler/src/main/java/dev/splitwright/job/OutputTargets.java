@@ -14,11 +14,13 @@ import java.util.Optional;
  * @param outDir the {@code --out} directory
  * @param source {@code <out>/<package path>/<Class>.java}
  * @param report {@code <out>/<Class>.report.json}
+ * @param tree {@code <out>/<Class>.tree.svg}, the picture of the tree
  * @param frontier {@code <out>/<Class>.frontier.svg}, written by a budget search
  * @param model the {@code --save-model} file, if any
  */
 record OutputTargets(
-    Path outDir, Path source, Path report, Optional<Path> frontier, Optional<Path> model) {
+    Path outDir, Path source, Path report, Path tree, Optional<Path> frontier,
+    Optional<Path> model) {
 
   static final String OPTION_OUT = "out";
   static final String OPTION_SAVE_MODEL = "save-model";
@@ -27,6 +29,7 @@ record OutputTargets(
     Objects.requireNonNull(outDir, "outDir");
     Objects.requireNonNull(source, "source");
     Objects.requireNonNull(report, "report");
+    Objects.requireNonNull(tree, "tree");
     Objects.requireNonNull(frontier, "frontier");
     Objects.requireNonNull(model, "model");
   }
@@ -39,7 +42,13 @@ record OutputTargets(
         ? Optional.of(out.resolve(emit.className() + ".frontier.svg"))
         : Optional.empty();
     return new OutputTargets(out, out.resolve(emit.qualifiedName().replace('.', '/') + ".java"),
-        out.resolve(emit.className() + ".report.json"), frontier, request.saveModel());
+        out.resolve(emit.className() + ".report.json"), treeFile(out, emit.className()), frontier,
+        request.saveModel());
+  }
+
+  /** {@code <out>/<Class>.tree.svg}; one place for the name, used by the budget run too. */
+  static Path treeFile(Path outDir, String className) {
+    return outDir.resolve(className + ".tree.svg");
   }
 
   /**
@@ -55,6 +64,7 @@ record OutputTargets(
     }
     checkFile(OPTION_OUT, source);
     checkFile(OPTION_OUT, report);
+    checkFile(OPTION_OUT, tree);
     if (frontier.isPresent()) {
       checkFile(OPTION_OUT, frontier.get());
     }
@@ -63,7 +73,7 @@ record OutputTargets(
     }
   }
 
-  private static void checkFile(String option, Path file) throws InputException {
+  static void checkFile(String option, Path file) throws InputException {
     if (Files.isDirectory(file)) {
       throw new InputException(option, "cannot write " + file + ": a directory of that name exists",
           "remove or rename that directory, or write elsewhere");

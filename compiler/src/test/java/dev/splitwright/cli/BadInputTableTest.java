@@ -51,7 +51,7 @@ class BadInputTableTest {
     CliRun run = CliRun.of("compile", "--data", csv.toString(), "--package", "p", "--class", "C",
         "--out", out.toString(), "--max-depth", "3");
     assertThat(run.exitCode()).as(run.err()).isZero();
-    assertThat(snapshot(out)).containsOnlyKeys("p/", "p/C.java", "C.report.json");
+    assertThat(snapshot(out)).containsOnlyKeys("p/", "p/C.java", "C.report.json", "C.tree.svg");
     goodOutput = out;
   }
 
@@ -363,6 +363,7 @@ class BadInputTableTest {
     Map<String, String> kept = new TreeMap<>(after);
     assertThat(kept.remove("out/p/Accepted.java")).isNotNull();
     assertThat(kept.remove("out/Accepted.report.json")).isNotNull();
+    assertThat(kept.remove("out/Accepted.tree.svg")).isNotNull();
     assertSameFiles(kept, before);
     assertThat(Files.readString(dir.resolve("out/p/Accepted.java")))
         .contains("public final class Accepted");
@@ -473,7 +474,7 @@ class BadInputTableTest {
   }
 
   private static void restore(Path out, Path from) throws IOException {
-    for (String name : List.of("p/C.java", "C.report.json")) {
+    for (String name : List.of("p/C.java", "C.report.json", "C.tree.svg")) {
       Files.createDirectories(out.resolve(name).getParent());
       Files.copy(from.resolve(name), out.resolve(name));
     }

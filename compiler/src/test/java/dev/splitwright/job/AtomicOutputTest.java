@@ -44,7 +44,8 @@ class AtomicOutputTest {
   void failedVerificationLeavesThePreviousOutputsByteIdentical() throws Exception {
     CompileResult good = new CompileJob(VERIFIER).run(request(3));
     assertThat(good.verification().passed()).isTrue();
-    assertThat(good.written()).hasSize(3);
+    // Source, report, tree picture and model file.
+    assertThat(good.written()).hasSize(4);
     Map<String, String> before = snapshot(out);
 
     // A deeper tree would change every output, so a write of any of them would show.

@@ -19,7 +19,7 @@ import org.junit.jupiter.params.provider.ValueSource;
 
 /**
  * Regenerates each committed sample from its CSV with its recorded command line and compares the
- * source, report and frontier SVG byte for byte. Refresh after an intended change with {@value
+ * source, report, frontier SVG and tree SVG byte for byte. Refresh after an intended change with {@value
  * #REFRESH} and review the diff before committing; CI never refreshes.
  */
 class SampleGoldenTest {
@@ -42,7 +42,8 @@ class SampleGoldenTest {
     assertThat(code).as("splitwright %s failed: %s", String.join(" ", args), err).isZero();
 
     List<Path> produced = files(temp);
-    assertThat(produced).as("files written for %s", sample).hasSize(3);
+    // Source, report, frontier chart and tree picture.
+    assertThat(produced).as("files written for %s", sample).hasSize(4);
     StringBuilder diffs = new StringBuilder();
     for (Path rel : produced) {
       Path committed = committedPlace(rel);
