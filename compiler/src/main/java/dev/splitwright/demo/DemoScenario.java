@@ -10,7 +10,7 @@ import java.util.Objects;
  * What the demo scenarios share: the label-noise setting, generating rows in logged order from
  * one seeded random stream, and writing them as CSV.
  */
-public abstract sealed class DemoScenario permits GestureBandScenario, PumpVibrationScenario {
+abstract sealed class DemoScenario permits GestureBandScenario, PumpVibrationScenario {
   private final List<String> features;
   private final String target;
   /** Share of rows logged with a wrong label, in [0, 1). */
