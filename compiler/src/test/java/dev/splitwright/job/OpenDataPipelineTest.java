@@ -190,11 +190,7 @@ class OpenDataPipelineTest {
     for (int r = 0; r < parts.train().rows(); r++) {
       trainWithMissing += hasMissing(data.schema(), parts.train().row(r)) ? 1 : 0;
     }
-    int correct = 0;
-    for (int r = 0; r < parts.test().rows(); r++) {
-      correct += tree.predict(parts.test().row(r)) == parts.test().label(r) ? 1 : 0;
-    }
-    return new Outcome(parts, tree, (double) correct / parts.test().rows(), v, trainWithMissing,
+    return new Outcome(parts, tree, accuracy(tree, parts.test()), v, trainWithMissing,
         withMissing);
   }
 
