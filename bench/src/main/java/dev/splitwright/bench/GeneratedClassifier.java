@@ -3,17 +3,12 @@ package dev.splitwright.bench;
 import dev.splitwright.check.CompilationException;
 import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.check.InMemoryCompiler;
-import dev.splitwright.data.Dataset;
-import dev.splitwright.data.Feature;
-import dev.splitwright.data.Schema;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
-import dev.splitwright.train.CartTrainer;
-import dev.splitwright.train.TrainingOptions;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.lang.invoke.MethodHandle;
@@ -49,7 +44,7 @@ final class GeneratedClassifier {
   /**
    * Emits {@code tree} in {@code layout}, compiles and loads it.
    *
-   * @throws UnsupportedOperationException if this build's emitter cannot write {@code layout}
+   * @throws IllegalArgumentException for {@link Layout#SMALLEST}, which is a choice, not a layout
    */
   static MethodHandle emitAndLoad(DecisionTree tree, Layout layout) {
     EmittedSource source = emit(tree, layout);
@@ -62,25 +57,7 @@ final class GeneratedClassifier {
                 + layout.optionName().substring(1))
         .layout(layout)
         .build();
-    try {
-      return JavaEmitter.emit(tree, options, HeaderInfo.none());
-    } catch (IllegalArgumentException e) {
-      throw new UnsupportedOperationException(
-          "the emitter of this build cannot write layout '" + layout.optionName() + "': "
-              + e.getMessage(), e);
-    }
-  }
-
-  /**
-   * Fails at once, before any expensive setup, if this build's emitter cannot write {@code layout}:
-   * emits a two-leaf tree in it.
-   *
-   * @throws UnsupportedOperationException if it cannot
-   */
-  static void requireLayout(Layout layout) {
-    Schema schema = new Schema(List.of(Feature.numeric("x")), "y", List.of("a", "b"));
-    Dataset two = Dataset.ofRows(schema, new float[][] {{0f}, {1f}}, new int[] {0, 1});
-    emit(CartTrainer.train(two, TrainingOptions.defaults()), layout);
+    return JavaEmitter.emit(tree, options, HeaderInfo.none());
   }
 
   /** Loads the hand-written {@link #TRIVIAL_SOURCE}. */

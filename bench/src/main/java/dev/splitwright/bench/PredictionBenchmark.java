@@ -66,9 +66,6 @@ public class PredictionBenchmark {
   @Setup
   public void setUp(BenchmarkParams params) throws Throwable {
     String method = params.getBenchmark().substring(params.getBenchmark().lastIndexOf('.') + 1);
-    if (method.equals("generatedTable")) {
-      GeneratedClassifier.requireLayout(Layout.TABLE);
-    }
     BenchModel bench = BenchModel.ofParam(model);
     // The baselines need only the inputs; the synthetic inputs need no training set.
     boolean needsTraining = !method.endsWith("aseline") || bench == BenchModel.PUMP;

@@ -1,10 +1,7 @@
 package dev.splitwright.demo;
 
-import java.io.IOException;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Objects;
 
 /**
  * An invented log of a wrist-worn gesture band: each row summarises a one-second window of 50
@@ -17,7 +14,7 @@ import java.util.Objects;
  * and their range limits (±8 g, ±2000 °/s). The 24 features are, per axis, the mean, the variance,
  * the peak-to-peak range and the number of crossings of the window mean.
  */
-public final class GestureBandScenario {
+public final class GestureBandScenario extends DemoScenario {
 
   /** Name used by {@link DemoData}. */
   public static final String NAME = "gesture-band";
@@ -54,8 +51,6 @@ public final class GestureBandScenario {
   private static final double ACCEL_NOISE_G = 0.015;
   private static final double GYRO_NOISE_DPS = 1.5;
 
-  private final double labelNoise;
-
   /** A scenario with {@link #DEFAULT_LABEL_NOISE}. */
   public GestureBandScenario() {
     this(DEFAULT_LABEL_NOISE);
@@ -65,10 +60,7 @@ public final class GestureBandScenario {
    * @param labelNoise share of windows logged with a wrong gesture, in [0, 1)
    */
   public GestureBandScenario(double labelNoise) {
-    if (!(labelNoise >= 0 && labelNoise < 1)) {
-      throw new IllegalArgumentException("labelNoise must be in [0, 1), but it is " + labelNoise);
-    }
-    this.labelNoise = labelNoise;
+    super(FEATURES, TARGET, labelNoise);
   }
 
   private static List<String> featureNames() {
@@ -81,31 +73,13 @@ public final class GestureBandScenario {
     return List.copyOf(names);
   }
 
-  /** Generates {@code rows} windows in logged order; the same seed gives the same rows. */
-  public List<DemoRow> generate(int rows, long seed) {
-    if (rows < 1) {
-      throw new IllegalArgumentException("rows must be positive, but it is " + rows);
-    }
-    DemoRandom random = new DemoRandom(seed);
-    List<DemoRow> out = new ArrayList<>(rows);
-    for (int i = 0; i < rows; i++) {
-      int gesture = random.pick(GESTURE_FREQUENCIES);
-      double[][] window = simulate(gesture, random);
-      int logged = random.noisyLabel(gesture, GESTURES.size(), labelNoise);
-      out.add(new DemoRow(features(window), GESTURES.get(gesture), GESTURES.get(logged)));
-    }
-    return out;
-  }
-
-  /** Generates the rows as CSV text: header row, then one line per window, {@code \n} endings. */
-  public String csv(int rows, long seed) {
-    return DemoCsv.csv(FEATURES, TARGET, generate(rows, seed));
-  }
-
-  /** Writes {@link #csv} to {@code out} in UTF-8. */
-  public void writeCsv(Path out, int rows, long seed) throws IOException {
-    Objects.requireNonNull(out, "out");
-    DemoCsv.write(out, csv(rows, seed));
+  /** One window: a gesture, its simulated samples and the logged label. */
+  @Override
+  DemoRow row(DemoRandom random, int index) {
+    int gesture = random.pick(GESTURE_FREQUENCIES);
+    double[][] window = simulate(gesture, random);
+    int logged = random.noisyLabel(gesture, GESTURES.size(), labelNoise);
+    return new DemoRow(features(window), GESTURES.get(gesture), GESTURES.get(logged));
   }
 
   /**

@@ -1,10 +1,6 @@
 package dev.splitwright.demo;
 
-import java.io.IOException;
-import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
-import java.util.Objects;
 
 /**
  * An invented field log of a centrifugal pump's vibration monitor: one row every 10 minutes, in
@@ -19,7 +15,7 @@ import java.util.Objects;
  * and an unsteady, lower motor current. The distributions overlap, a few labels are wrong, and
  * about 0.4% of temperature readings are missing (thermocouple dropouts).
  */
-public final class PumpVibrationScenario {
+public final class PumpVibrationScenario extends DemoScenario {
 
   /** Name used by {@link DemoData}. */
   public static final String NAME = "pump-vibration";
@@ -57,8 +53,6 @@ public final class PumpVibrationScenario {
 
   private static final double MINUTES_PER_ROW = 10;
 
-  private final double labelNoise;
-
   /** A scenario with {@link #DEFAULT_LABEL_NOISE}. */
   public PumpVibrationScenario() {
     this(DEFAULT_LABEL_NOISE);
@@ -68,37 +62,12 @@ public final class PumpVibrationScenario {
    * @param labelNoise share of rows logged with a wrong state, in [0, 1)
    */
   public PumpVibrationScenario(double labelNoise) {
-    if (!(labelNoise >= 0 && labelNoise < 1)) {
-      throw new IllegalArgumentException("labelNoise must be in [0, 1), but it is " + labelNoise);
-    }
-    this.labelNoise = labelNoise;
+    super(FEATURES, TARGET, labelNoise);
   }
 
-  /** Generates {@code rows} rows in logged order; the same seed gives the same rows. */
-  public List<DemoRow> generate(int rows, long seed) {
-    if (rows < 1) {
-      throw new IllegalArgumentException("rows must be positive, but it is " + rows);
-    }
-    DemoRandom random = new DemoRandom(seed);
-    List<DemoRow> out = new ArrayList<>(rows);
-    for (int i = 0; i < rows; i++) {
-      out.add(row(random, i));
-    }
-    return out;
-  }
 
-  /** Generates the rows as CSV text: header row, then one line per row, {@code \n} endings. */
-  public String csv(int rows, long seed) {
-    return DemoCsv.csv(FEATURES, TARGET, generate(rows, seed));
-  }
-
-  /** Writes {@link #csv} to {@code out} in UTF-8. */
-  public void writeCsv(Path out, int rows, long seed) throws IOException {
-    Objects.requireNonNull(out, "out");
-    DemoCsv.write(out, csv(rows, seed));
-  }
-
-  private DemoRow row(DemoRandom random, int index) {
+  @Override
+  DemoRow row(DemoRandom random, int index) {
     double hourOfDay = (index * MINUTES_PER_ROW / 60.0) % 24.0;
     // Warmest mid-afternoon, coolest before dawn.
     double ambient =
@@ -155,7 +124,8 @@ public final class PumpVibrationScenario {
       }
       default -> throw new IllegalStateException("state " + state);
     }
-    // A sine wave has crest factor sqrt(2) and kurtosis 1.5; no real signal goes below.
+    // Floors at about a pure sine's values (crest factor sqrt(2), kurtosis 1.5), the least peaky
+    // a pump's vibration gets; only stranger signals go lower, down to 1 for both (a square wave).
     crest = Math.max(crest, 1.45);
     kurtosis = Math.max(kurtosis, 1.6);
     double peakAccel = crest * accelRms;

@@ -101,11 +101,7 @@ final class LeafTable {
       for (int c = 0; c < p.length; c++) {
         if (p[c] != 0f) {
           data.add(c);
-          if (words) {
-            shares.addFloat(p[c]);
-          } else {
-            data.addFloat(p[c]);
-          }
+          (words ? shares : data).addFloat(p[c]);
         }
       }
     }

@@ -23,12 +23,27 @@ import javax.lang.model.element.Modifier;
  * decoded once at class initialisation into three arrays, and a loop that walks them. The code
  * does not grow with the tree, so neither method sizes nor the constant pool limit the tree.
  *
- * <p>Arrays, one entry per node: {@code NODE[i]} is {@code ~result} for a leaf, else {@code
- * (feature << 2) | missingLeft} for a numeric split or {@code (setOffset << 2) | 2 | missingLeft}
- * for a categorical one; {@code THRESHOLD[i]} is the comparison operand; {@code RIGHT[i]} the right
- * child. The left child is always {@code i + 1}.
+ * <p>Arrays, one entry per node: {@code NODE[i]} (layout with the constants below), {@code
+ * THRESHOLD[i]} the comparison operand, {@code RIGHT[i]} the right child. The left child is
+ * always {@code i + 1}.
  */
 final class TableWriter {
+  /*
+   * The node layout, described once; the emitted comments, encoder and decoder are all built from
+   * these constants. Packed, per node in pre-order: a leaf is (result << 1) | LEAF; a split is
+   * (feature or set offset) << SPLIT_SHIFT | CATEGORICAL if categorical | MISSING_LEFT if missing
+   * values go left, followed by its threshold if numeric. Decoding drops the leaf bit: NODE[i] is
+   * ~result for a leaf (negative), else the split's word >>> 1, so each flag sits one bit lower.
+   */
+  /** Marks a leaf in the packed word. */
+  private static final int LEAF = 1;
+  /** In the packed word of a split: missing values go left. */
+  private static final int MISSING_LEFT = 2;
+  /** In the packed word of a split: the split is categorical. */
+  private static final int CATEGORICAL = 4;
+  /** Where the feature (numeric) or the offset in SETS (categorical) starts in the packed word. */
+  private static final int SPLIT_SHIFT = 3;
+
   private final DecisionTree tree;
   private final InputAccess input;
   private final TypeSpec.Builder type;
@@ -90,39 +105,29 @@ final class TableWriter {
     for (int i = 0; i < nodes.size(); i++) {
       Node node = nodes.get(i);
       if (node instanceof Leaf leaf) {
-        data.add((leaves.payload(leaf) << 1) | 1);
+        data.add((leaves.payload(leaf) << 1) | LEAF);
         continue;
       }
       Split split = (Split) node;
-      int missing = split.missingLeft() ? 2 : 0;
+      int missing = split.missingLeft() ? MISSING_LEFT : 0;
       if (split instanceof NumericSplit numeric) {
-        data.add((split.feature() << 3) | missing);
+        data.add((split.feature() << SPLIT_SHIFT) | missing);
         float t = numeric.threshold();
+        PackedText bits = words ? thresholds : data;
         switch (input.kind()) {
-          case FLOAT -> {
-            if (words) {
-              thresholds.addFloat(t);
-            } else {
-              data.addFloat(t);
-            }
-          }
-          case DOUBLE -> {
-            if (words) {
-              thresholds.addDouble(Thresholds.forDouble(t));
-            } else {
-              data.addDouble(Thresholds.forDouble(t));
-            }
-          }
+          case FLOAT -> bits.addFloat(t);
+          case DOUBLE -> bits.addDouble(Thresholds.forDouble(t));
           case INT -> data.addSigned((int) Thresholds.forInt(t));
         }
       } else {
-        data.add((setOffset((CategoricalSplit) split) << 3) | 4 | missing);
+        data.add((setOffset((CategoricalSplit) split) << SPLIT_SHIFT) | CATEGORICAL | missing);
       }
     }
     int n = nodes.size();
     type.addField(array("NODE", TypeName.INT, n,
         "Per node: ~result for a leaf; for a split, the feature (or the offset of its\n"
-            + "set in SETS) shifted left by 2, | 2 if categorical, | 1 if missing goes left."));
+            + "set in SETS) shifted left by " + (SPLIT_SHIFT - 1) + ", | " + (CATEGORICAL >>> 1)
+            + " if categorical, | " + (MISSING_LEFT >>> 1) + " if missing goes left."));
     type.addField(array("THRESHOLD", input.elementType(), n,
         "Per numeric split: go left when the value is at most this."));
     type.addField(array("RIGHT", TypeName.INT, n,
@@ -164,11 +169,11 @@ final class TableWriter {
    */
   private CodeBlock decoder(PackedInts data, PackedWords thresholds) {
     CodeBlock.Builder code = CodeBlock.builder()
-        .add("// Per node in pre-order: a leaf is (result << 1) | 1; a split is (feature or\n")
-        .add(thresholds.count() > 0
-            ? "// set offset) << 3 | 4 if categorical | 2 if missing goes left.\n"
-            : "// set offset) << 3 | 4 if categorical | 2 if missing goes left, then its\n"
-                + "// threshold if numeric.\n")
+        .add("// Per node in pre-order: a leaf is (result << 1) | $L; a split is (feature or\n",
+            LEAF)
+        .add("// set offset) << $L | $L if categorical | $L if missing goes left$L",
+            SPLIT_SHIFT, CATEGORICAL, MISSING_LEFT, thresholds.count() > 0
+                ? ".\n" : ", then its\n// threshold if numeric.\n")
         .add("// After a leaf comes the right child of the latest split still open.\n")
         .addStatement("int[] tree = $L", StringTable.unpack(data));
     if (thresholds.count() > 0) {
@@ -185,13 +190,13 @@ final class TableWriter {
         .addStatement("RIGHT[open[--top]] = i")
         .endControlFlow()
         .addStatement("int head = tree[at++]")
-        .beginControlFlow("if ((head & 1) != 0)")
+        .beginControlFlow("if ((head & $L) != 0)", LEAF)
         .addStatement("NODE[i] = ~(head >>> 1)")
         .nextControlFlow("else")
         .addStatement("NODE[i] = head >>> 1");
     boolean categorical = hasCategorical();
     if (categorical) {
-      code.beginControlFlow("if ((head & 4) == 0)");
+      code.beginControlFlow("if ((head & $L) == 0)", CATEGORICAL);
     }
     String next = thresholds.count() > 0 ? "bits[word++]" : "tree[at++]";
     switch (input.kind()) {
@@ -245,21 +250,23 @@ final class TableWriter {
         .addStatement("boolean left");
     boolean categorical = hasCategorical();
     if (categorical) {
-      code.beginControlFlow("if ((node & 2) == 0)");
+      code.beginControlFlow("if ((node & $L) == 0)", CATEGORICAL >>> 1);
     }
     if (input.kind() == InputKind.INT) {
       // An int is never missing.
-      code.addStatement("left = x[node >>> 2] <= THRESHOLD[i]");
+      code.addStatement("left = x[node >>> $L] <= THRESHOLD[i]", SPLIT_SHIFT - 1);
     } else {
       // NaN fails every comparison, so "<=" sends it right and "!(>)" sends it left.
-      code.addStatement("$T v = x[node >>> 2]", input.elementType())
-          .addStatement("left = (node & 1) == 0 ? v <= THRESHOLD[i] : !(v > THRESHOLD[i])");
+      code.addStatement("$T v = x[node >>> $L]", input.elementType(), SPLIT_SHIFT - 1)
+          .addStatement("left = (node & $L) == 0 ? v <= THRESHOLD[i] : !(v > THRESHOLD[i])",
+              MISSING_LEFT >>> 1);
     }
     if (categorical) {
       String cast = input.kind() == InputKind.DOUBLE ? "(float) " : "";
       code.nextControlFlow("else")
-          .addStatement("int at = node >>> 2")
-          .addStatement("left = inSet($Lx[SETS[at]], at + 1, (node & 1) != 0)", cast)
+          .addStatement("int at = node >>> $L", SPLIT_SHIFT - 1)
+          .addStatement("left = inSet($Lx[SETS[at]], at + 1, (node & $L) != 0)", cast,
+              MISSING_LEFT >>> 1)
           .endControlFlow();
     }
     code.addStatement("i = left ? i + 1 : RIGHT[i]")

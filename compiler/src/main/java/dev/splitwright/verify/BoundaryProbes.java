@@ -3,11 +3,9 @@ package dev.splitwright.verify;
 import dev.splitwright.data.Schema;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
-import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.function.BiConsumer;
 
@@ -42,16 +40,7 @@ final class BoundaryProbes {
    * comparison on the path is satisfied, present values preferred.
    */
   static void forEachSplit(DecisionTree tree, BiConsumer<Split, float[]> action) {
-    visit(tree.root(), PathState.initial(tree.schema()), action);
-  }
-
-  private static void visit(Node node, PathState state, BiConsumer<Split, float[]> action) {
-    if (!(node instanceof Split split)) {
-      return;
-    }
-    action.accept(split, state.witness());
-    visit(split.left(), state.then(split, true), action);
-    visit(split.right(), state.then(split, false), action);
+    PathState.forEachSplit(tree, (split, state) -> action.accept(split, witness(state)));
   }
 
   private float[] valuesAround(Split split) {
@@ -74,74 +63,28 @@ final class BoundaryProbes {
     return new float[] {firstInside, firstOutside, Float.NaN, -1f, k, 0.5f, -0.0f};
   }
 
-  /** What the path so far demands of each feature; immutable, copied on each step. */
-  private record PathState(Schema schema, float[] low, float[] high, boolean[][] allowed,
-      boolean[] missingAllowed) {
-
-    static PathState initial(Schema schema) {
-      int n = schema.featureCount();
-      float[] low = new float[n];
-      float[] high = new float[n];
-      Arrays.fill(low, Float.NEGATIVE_INFINITY);
-      Arrays.fill(high, Float.POSITIVE_INFINITY);
-      boolean[][] allowed = CategoryPath.allAllowed(schema);
-      boolean[] missing = new boolean[n];
-      Arrays.fill(missing, true);
-      return new PathState(schema, low, high, allowed, missing);
-    }
-
-    /** The state after taking {@code split} to the left or right. */
-    PathState then(Split split, boolean left) {
-      int f = split.feature();
-      float[] newLow = low;
-      float[] newHigh = high;
-      boolean[][] newAllowed = allowed;
-      if (split instanceof NumericSplit numeric) {
-        if (left) {
-          newHigh = high.clone();
-          newHigh[f] = Math.min(high[f], numeric.threshold());
-        } else {
-          newLow = low.clone();
-          newLow[f] = Math.max(low[f], numeric.threshold());
-        }
+  /** An input that satisfies every comparison on the path, preferring present values. */
+  private static float[] witness(PathState state) {
+    float[] x = new float[state.low().length];
+    for (int f = 0; f < x.length; f++) {
+      if (state.isCategorical(f)) {
+        int code = state.firstAllowedCode(f);
+        x[f] = code < 0 ? Float.NaN : code;
       } else {
-        newAllowed = CategoryPath.narrow(allowed, (CategoricalSplit) split, left);
+        x[f] = numeric(state.low()[f], state.high()[f]);
       }
-      boolean[] newMissing = missingAllowed;
-      if (split.missingLeft() != left && missingAllowed[f]) {
-        newMissing = missingAllowed.clone();
-        newMissing[f] = false;
-      }
-      return new PathState(schema, newLow, newHigh, newAllowed, newMissing);
     }
+    return x;
+  }
 
-    /** An input that satisfies every comparison on the path, preferring present values. */
-    float[] witness() {
-      float[] x = new float[low.length];
-      for (int f = 0; f < x.length; f++) {
-        x[f] = allowed[f] == null ? numeric(f) : category(f);
+  /** A value v with {@code low < v <= high}, or NaN if there is none. */
+  private static float numeric(float low, float high) {
+    if (low < high) {
+      if (high != Float.POSITIVE_INFINITY) {
+        return high;
       }
-      return x;
+      return low == Float.NEGATIVE_INFINITY ? 0f : Math.nextUp(low);
     }
-
-    private float numeric(int f) {
-      // The path allows values v with low < v <= high.
-      if (low[f] < high[f]) {
-        if (high[f] != Float.POSITIVE_INFINITY) {
-          return high[f];
-        }
-        return low[f] == Float.NEGATIVE_INFINITY ? 0f : Math.nextUp(low[f]);
-      }
-      return Float.NaN;
-    }
-
-    private float category(int f) {
-      for (int code = 0; code < allowed[f].length; code++) {
-        if (allowed[f][code]) {
-          return code;
-        }
-      }
-      return Float.NaN;
-    }
+    return Float.NaN;
   }
 }

@@ -3,11 +3,9 @@ package dev.splitwright.verify;
 import dev.splitwright.data.Schema;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
-import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 
 /**
@@ -32,7 +30,14 @@ final class IntProbes {
 
   static List<int[]> of(DecisionTree tree) {
     IntProbes probes = new IntProbes(tree.schema());
-    probes.visit(tree.root(), PathState.initial(tree.schema()));
+    PathState.forEachSplit(tree, (split, state) -> {
+      int[] base = witness(state);
+      for (int v : probes.valuesAround(split)) {
+        int[] probe = base.clone();
+        probe[split.feature()] = v;
+        probes.out.add(probe);
+      }
+    });
     return probes.out;
   }
 
@@ -52,20 +57,6 @@ final class IntProbes {
       }
     }
     return lo;
-  }
-
-  private void visit(Node node, PathState state) {
-    if (!(node instanceof Split split)) {
-      return;
-    }
-    int[] base = state.witness();
-    for (int v : valuesAround(split)) {
-      int[] probe = base.clone();
-      probe[split.feature()] = v;
-      out.add(probe);
-    }
-    visit(split.left(), state.then(split, true));
-    visit(split.right(), state.then(split, false));
   }
 
   private int[] valuesAround(Split split) {
@@ -93,71 +84,29 @@ final class IntProbes {
   }
 
   /**
-   * What the path so far demands, in ints: numeric feature f needs {@code low[f] < x <= high[f]};
-   * a categorical one a code still allowed, or, if missing values may still pass, code -1.
+   * An int input satisfying the path where one exists, any value where none does. The float
+   * bound {@code low < x <= high} becomes {@code n(low) < x <= n(high)} with n as in {@link
+   * #largestIntAtOrBelow}; a categorical feature with no code left takes -1 (missing) if missing
+   * values may still pass.
    */
-  private record PathState(long[] low, long[] high, boolean[][] allowed, boolean[] missingAllowed) {
-
-    static PathState initial(Schema schema) {
-      int n = schema.featureCount();
-      long[] low = new long[n];
-      long[] high = new long[n];
-      Arrays.fill(low, NONE);
-      Arrays.fill(high, Integer.MAX_VALUE);
-      boolean[][] allowed = CategoryPath.allAllowed(schema);
-      boolean[] missing = new boolean[n];
-      Arrays.fill(missing, true);
-      return new PathState(low, high, allowed, missing);
-    }
-
-    PathState then(Split split, boolean left) {
-      int f = split.feature();
-      long[] newLow = low;
-      long[] newHigh = high;
-      boolean[][] newAllowed = allowed;
-      boolean[] newMissing = missingAllowed;
-      if (split instanceof NumericSplit numeric) {
-        long n = largestIntAtOrBelow(numeric.threshold());
-        if (left) {
-          newHigh = high.clone();
-          newHigh[f] = Math.min(high[f], n);
-        } else {
-          newLow = low.clone();
-          newLow[f] = Math.max(low[f], n);
-        }
+  private static int[] witness(PathState state) {
+    int[] x = new int[state.low().length];
+    for (int f = 0; f < x.length; f++) {
+      if (state.isCategorical(f)) {
+        int code = state.firstAllowedCode(f);
+        x[f] = code >= 0 ? code : state.missingAllowed()[f] ? -1 : 0;
       } else {
-        newAllowed = CategoryPath.narrow(allowed, (CategoricalSplit) split, left);
-        if (split.missingLeft() != left) {
-          newMissing = missingAllowed.clone();
-          newMissing[f] = false;
-        }
+        x[f] = numeric(largestIntAtOrBelow(state.low()[f]),
+            largestIntAtOrBelow(state.high()[f]));
       }
-      return new PathState(newLow, newHigh, newAllowed, newMissing);
     }
+    return x;
+  }
 
-    /** An int input satisfying the path where one exists; any value where none does. */
-    int[] witness() {
-      int[] x = new int[low.length];
-      for (int f = 0; f < x.length; f++) {
-        x[f] = allowed[f] == null ? numeric(f) : category(f);
-      }
-      return x;
+  private static int numeric(long low, long high) {
+    if (high < Integer.MAX_VALUE) {
+      return clamp(high);
     }
-
-    private int numeric(int f) {
-      if (high[f] < Integer.MAX_VALUE) {
-        return clamp(high[f]);
-      }
-      return low[f] == NONE ? 0 : clamp(low[f] + 1);
-    }
-
-    private int category(int f) {
-      for (int code = 0; code < allowed[f].length; code++) {
-        if (allowed[f][code]) {
-          return code;
-        }
-      }
-      return missingAllowed[f] ? -1 : 0;
-    }
+    return low == NONE ? 0 : clamp(low + 1);
   }
 }

@@ -46,7 +46,7 @@ class BudgetCommandTest {
     Path cancer = Path.of(BudgetCommandTest.class
         .getResource("/datasets/breast-cancer-wisconsin-diagnostic.csv").toURI());
     Path pump = Path.of("../generated-samples/data/pump-vibration.csv");
-    // With --bare (no label and feature tables, no length check) every budget from 400 B fits.
+    // --bare leaves out the label and feature tables and the length check: smaller classes.
     return Stream.of(
         Arguments.of(cancer, List.of()),
         Arguments.of(pump, List.of("--target", "state")),
@@ -60,14 +60,10 @@ class BudgetCommandTest {
       throws IOException {
     double previousScore = Double.NEGATIVE_INFINITY;
     boolean fitted = false;
-    int fits = 0;
+    boolean leastTried = false;
     for (int budget : new int[] {400, 1024, 2048, 4096, 16384}) {
       Path out = dir.resolve("b" + budget);
-      List<String> args = new ArrayList<>(List.of("compile", "--data", data.toString(),
-          "--budget", budget + "B", "--package", "demo.budget", "--class", "Fit", "--out",
-          out.toString(), "--quiet"));
-      args.addAll(extra);
-      Run run = run(args.toArray(new String[0]));
+      Run run = compile(data, extra, budget, out);
 
       if (run.exit() == 2) {
         // Too small: one line naming the least budget, which must exceed this one; once a
@@ -77,14 +73,22 @@ class BudgetCommandTest {
         Matcher m = TOO_SMALL.matcher(run.err().strip());
         assertThat(m.matches()).as(run.err()).isTrue();
         assertThat(Integer.parseInt(m.group(1))).isEqualTo(budget);
-        assertThat(Integer.parseInt(m.group(2))).isGreaterThan(budget)
-            .isEqualTo(Integer.parseInt(m.group(3)));
+        int least = Integer.parseInt(m.group(3));
+        assertThat(Integer.parseInt(m.group(2))).isGreaterThan(budget).isEqualTo(least);
         assertThat(out).doesNotExist();
+        if (!leastTried) {
+          // The least budget named must itself be enough, by an independent javac recompile.
+          leastTried = true;
+          Path leastOut = dir.resolve("least");
+          Run fits = compile(data, extra, least, leastOut);
+          assertThat(fits.exit()).as(fits.err()).isZero();
+          assertThat(classFileOnDisk(leastOut.resolve("demo/budget/Fit.java"),
+              dir.resolve("javac-least"))).isLessThanOrEqualTo(least);
+        }
         continue;
       }
       assertThat(run.exit()).as(run.err()).isZero();
       fitted = true;
-      fits++;
       JsonNode report = JSON.readTree(out.resolve("Fit.report.json").toFile());
       JsonNode selection = report.get("selection");
       int written = classFileOnDisk(out.resolve("demo/budget/Fit.java"), dir.resolve("javac"));
@@ -95,15 +99,48 @@ class BudgetCommandTest {
       assertThat(score).as("budget %d", budget).isGreaterThanOrEqualTo(previousScore)
           .isEqualTo(report.get("scores").get("validation").get("balancedAccuracy").asDouble());
       previousScore = score;
+      checkChosenIsBestOnFrontier(selection, budget);
       assertThat(report.get("scores").get("test").get("rows").asInt()).isPositive();
       assertThat(report.get("scores").get("test").get("balancedAccuracy").asDouble())
           .isBetween(0.0, 1.0);
       assertThat(out.resolve("Fit.frontier.svg")).exists();
     }
     assertThat(fitted).as("some budget up to 16 KiB fits").isTrue();
-    if (extra.contains("--bare")) {
-      assertThat(fits).as("a bare classifier fits every budget from 400 B").isEqualTo(5);
+  }
+
+  private static Run compile(Path data, List<String> extra, int budget, Path out) {
+    List<String> args = new ArrayList<>(List.of("compile", "--data", data.toString(),
+        "--budget", budget + "B", "--package", "demo.budget", "--class", "Fit", "--out",
+        out.toString(), "--quiet"));
+    args.addAll(extra);
+    return run(args.toArray(new String[0]));
+  }
+
+  /**
+   * The frontier grows in size and score, and the chosen point is on it: the best-scoring point
+   * within the budget, which on a frontier sorted that way is the largest that fits.
+   */
+  private static void checkChosenIsBestOnFrontier(JsonNode selection, int budget) {
+    List<JsonNode> frontier = new ArrayList<>();
+    selection.get("frontier").forEach(frontier::add);
+    for (int i = 1; i < frontier.size(); i++) {
+      assertThat(frontier.get(i).get("size").asInt())
+          .isGreaterThan(frontier.get(i - 1).get("size").asInt());
+      assertThat(frontier.get(i).get("validationScore").asDouble())
+          .isGreaterThan(frontier.get(i - 1).get("validationScore").asDouble());
     }
+    JsonNode best = null;
+    for (JsonNode point : frontier) {
+      if (point.get("size").asInt() <= budget) {
+        best = point;
+      }
+    }
+    assertThat(best).as("a frontier point within %d bytes", budget).isNotNull();
+    assertThat(best.get("chosen").asBoolean()).as("budget %d", budget).isTrue();
+    assertThat(frontier).filteredOn(p -> p.get("chosen").asBoolean()).hasSize(1);
+    assertThat(best.get("size").asInt()).isEqualTo(selection.get("chosen").get("size").asInt());
+    assertThat(best.get("validationScore").asDouble())
+        .isEqualTo(selection.get("chosen").get("validationScore").asDouble());
   }
 
   @Test

@@ -14,8 +14,15 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
+import javax.tools.JavaCompiler;
+import javax.tools.ToolProvider;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 
 class VerifierTest {
   private static final Verifier VERIFIER = Verifier.create();
@@ -127,20 +134,38 @@ class VerifierTest {
   }
 
   @Test
-  void classFileSizeWithoutDebugInfoIsSmaller() throws Exception {
+  void classFileSizesAreWhatJavacWritesWithAndWithoutDebugInfo() throws Exception {
     DecisionTree tree = tree(1);
     EmitOptions options = EmitOptions.builder("v", "Sized").build();
-    VerificationResult result = VERIFIER.verify(tree, emit(tree, options), options, List.of(), 1);
-    // javac's default -g:source,lines writes a SourceFile attribute and LineNumberTables (JVMS
-    // §4.7.10, §4.7.12), so the -g:none weight must be strictly smaller.
-    assertThat(result.classFileBytesWithoutDebug()).isPositive()
-        .isLessThan(result.classFileBytes());
+    EmittedSource source = emit(tree, options);
+    VerificationResult result = VERIFIER.verify(tree, source, options, List.of(), 1);
+    // Checked against the JDK's own javac run here on the same source, once with its default
+    // debug setting (-g:source,lines) and once with -g:none (javac documentation).
+    assertThat(result.classFileBytes()).isEqualTo(javacBytes(source, List.of()));
+    assertThat(result.classFileBytesWithoutDebug())
+        .isEqualTo(javacBytes(source, List.of("-g:none")));
+  }
+
+  @TempDir Path dir;
+
+  /** The size of the class file the system javac writes for {@code source}. */
+  private long javacBytes(EmittedSource source, List<String> extra) throws Exception {
+    String simple = source.qualifiedName().substring(source.qualifiedName().lastIndexOf('.') + 1);
+    Path out = Files.createTempDirectory(dir, "javac");
+    Path file = out.resolve(simple + ".java");
+    Files.writeString(file, source.source(), StandardCharsets.UTF_8);
+    List<String> args = new ArrayList<>(List.of("--release", "17", "-d", out.toString()));
+    args.addAll(extra);
+    args.add(file.toString());
+    JavaCompiler javac = ToolProvider.getSystemJavaCompiler();
+    assertThat(javac.run(null, null, null, args.toArray(String[]::new))).isZero();
+    return Files.size(out.resolve(source.qualifiedName().replace('.', '/') + ".class"));
   }
 
   @Test
   void theStaticInitializerIsNotHeldToTheCapButEveryOtherMethodIs() throws Exception {
     // 60 features: a 60-element array initializer, about 7 bytes each (JVMS §6.5), runs once.
-    List<Feature> features = new java.util.ArrayList<>();
+    List<Feature> features = new ArrayList<>();
     for (int f = 0; f < 60; f++) {
       features.add(Feature.numeric("feature" + f));
     }

@@ -6,12 +6,13 @@ import java.util.List;
 import java.util.Random;
 
 /**
- * Test-only 60/20/20 stratified split: each class's rows are shuffled with a seeded {@link Random}
- * and dealt out in those proportions, so every part keeps the class mix (stratified sampling,
- * common practice). Each part lists row indices in ascending order.
+ * The Weka comparison's 60/20/20 stratified split, kept apart from {@code eval.StratifiedSplit}
+ * so that the comparison does not rest on code under test: each class's rows are shuffled with a
+ * seeded {@link Random} and dealt out in those proportions, so every part keeps the class mix
+ * (stratified sampling, common practice). Each part lists row indices in ascending order.
  */
-final class StratifiedSplit {
-  private StratifiedSplit() {}
+final class ComparisonSplit {
+  private ComparisonSplit() {}
 
   /** Returns {train, validation, test} row indices. */
   static int[][] of(int[] labels, long seed) {
