@@ -36,9 +36,9 @@ import picocli.CommandLine.Spec;
     name = "compile",
     mixinStandardHelpOptions = true,
     sortOptions = false,
-    description = "Trains a CART tree on the CSV (or reads a saved model), emits it as Java, checks "
-        + "the compiled code against the model on every row and every threshold boundary, and "
-        + "writes <out>/<package path>/<Class>.java and <out>/<Class>.report.json only if the "
+    description = "Trains a CART tree on the CSV (or reads a saved model), emits it as Java, "
+        + "checks the compiled code against the model on every row and every threshold boundary, "
+        + "and writes <out>/<package path>/<Class>.java and <out>/<Class>.report.json only if the "
         + "check passed.")
 final class CompileCommand implements Callable<Integer> {
   @Spec CommandSpec spec;

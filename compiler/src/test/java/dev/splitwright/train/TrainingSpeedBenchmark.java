@@ -8,9 +8,10 @@ import weka.core.Instances;
 
 /**
  * Times training on seeded synthetic data; not part of the test run. Run each case in a fresh JVM
- * with the test class path and {@code -Xmx2g}, naming the case as the argument; cases: {@code medium} (200,000 x 16, depth 8), {@code weka} (Weka REPTree on the same
- * rows), {@code large} (1,000,000 x 20, depth 10). The first run includes JIT warm-up, as a
- * command-line user would see it; later runs show the steady state.
+ * with the test class path and {@code -Xmx2g}, naming the case as the argument; cases:
+ * {@code medium} (200,000 x 16, depth 8), {@code weka} (Weka REPTree on the same rows),
+ * {@code large} (1,000,000 x 20, depth 10). The first run includes JIT warm-up, as a command-line
+ * user would see it; later runs show the steady state.
  */
 public final class TrainingSpeedBenchmark {
   private TrainingSpeedBenchmark() {}
