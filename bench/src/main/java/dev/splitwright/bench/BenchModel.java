@@ -35,7 +35,7 @@ enum BenchModel {
 
   /** The system property that overrides where the pump demo CSV is read from. */
   static final String PUMP_CSV_PROPERTY = "splitwright.bench.pumpCsv";
-  static final String PUMP_CSV_DEFAULT = "generated-samples/data/pump-vibration.csv";
+  static final String PUMP_CSV_DEFAULT = "compiler/demo-data/pump-vibration.csv";
 
   /** Seeds of the fresh readings; the committed pump CSV uses seed 7. */
   private static final long PUMP_READINGS_SEED = 8;

@@ -8,7 +8,9 @@ final class Cells {
 
   private Cells() {}
 
-  /** A time with three significant digits or at least one decimal, e.g. {@code 38.5}, {@code 1.23}. */
+  /**
+   * A time with three significant digits or at least one decimal, e.g. {@code 38.5}, {@code 1.23}.
+   */
   static String number(double value) {
     if (Double.isNaN(value)) {
       return NONE;

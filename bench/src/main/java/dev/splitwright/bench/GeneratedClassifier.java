@@ -28,8 +28,8 @@ final class GeneratedClassifier {
   static final List<String> JAVAC_OPTIONS = List.of("--release", "17");
 
   /**
-   * A hand-written classifier of one comparison-free line, compiled and loaded the same way: calling
-   * it measures what the call path adds to a generated classifier's own cost.
+   * A hand-written classifier of one comparison-free line, compiled and loaded the same way:
+   * calling it measures what the call path adds to a generated classifier's own cost.
    */
   static final String TRIVIAL_SOURCE = "package " + PACKAGE + ";\n"
       + "public final class Trivial {\n"

@@ -34,8 +34,8 @@ import org.openjdk.jmh.results.ScalarResult;
  * the garbage of setup. Summing each pool's own peak would overstate, since pools peak at different
  * times.
  *
- * <p>The figure includes garbage not yet collected, so it depends on {@code -Xmx} and the collector;
- * it is the heap the run actually occupied, not the least it could run in.
+ * <p>The figure includes garbage not yet collected, so it depends on {@code -Xmx} and the
+ * collector; it is the heap the run actually occupied, not the least it could run in.
  */
 public final class PeakHeapProfiler implements InternalProfiler {
   private static final double MIB = 1024.0 * 1024.0;

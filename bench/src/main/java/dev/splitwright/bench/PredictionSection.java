@@ -53,7 +53,8 @@ final class PredictionSection {
         + " \"timeOrdered\" sweeps between consecutive readings in ")
         .append(InputOrder.STEPS_PER_READING).append(" steps. Depth: pump ")
         .append(BenchModel.PUMP.depth()).append(", synthetic ").append(BenchModel.SYNTHETIC.depth())
-        .append(". — = not measured (for `table`: the emitter of this build lacks that layout).\n\n");
+        .append(". — = not measured (for `table`: the emitter of this build lacks that layout).")
+        .append("\n\n");
 
     md.append("### Ratios (other form's time / generated `branches` time; higher = generated"
         + " faster)\n\n");

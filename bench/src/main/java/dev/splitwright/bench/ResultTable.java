@@ -50,7 +50,8 @@ public final class ResultTable {
         results.addAll(BenchResult.allOf(json.readTree(input.toFile())));
       }
     }
-    String models = options.containsKey("models") && Files.isRegularFile(Path.of(options.get("models")))
+    String models = options.containsKey("models")
+        && Files.isRegularFile(Path.of(options.get("models")))
         ? Files.readString(Path.of(options.get("models")), StandardCharsets.UTF_8) : "";
     String date = ZonedDateTime.now(ZoneOffset.UTC)
         .format(DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm 'UTC'", Locale.ROOT));

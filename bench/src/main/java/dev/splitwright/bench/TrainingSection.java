@@ -42,7 +42,8 @@ final class TrainingSection {
       row(md, "Weka J48 (defaults)", small, "none", anyJ48());
     }
     row(md, "Splitwright CART", TrainingBenchmark.Synthetic1M.ROWS + " × "
-        + TrainingBenchmark.Synthetic1M.FEATURES, Integer.toString(TrainingBenchmark.Synthetic1M.DEPTH),
+        + TrainingBenchmark.Synthetic1M.FEATURES,
+        Integer.toString(TrainingBenchmark.Synthetic1M.DEPTH),
         find("splitwrightLarge", -1));
 
     md.append("\n### Training ratios and targets\n\n| comparison | measured | target |\n"

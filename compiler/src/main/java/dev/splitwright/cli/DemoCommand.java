@@ -4,17 +4,17 @@ import dev.splitwright.demo.DemoData;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code splitwright demo}: writes a seeded demo data set of our own scenarios. */
 @Command(
     name = "demo",
     mixinStandardHelpOptions = true,
-    description = "Writes a seeded, invented demo data set as CSV: 'pump-vibration' (field pump vibration "
-        + "monitor) or 'gesture-band' (wrist-worn gesture band).")
+    description = "Writes a seeded, invented demo data set as CSV: 'pump-vibration' (field pump "
+        + "vibration monitor) or 'gesture-band' (wrist-worn gesture band).")
 final class DemoCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 

@@ -13,7 +13,8 @@ final class Fractions {
   static double[] parse(CommandLine cli, String option, String text) {
     String[] parts = text.split(",", -1);
     if (parts.length != 3) {
-      throw bad(cli, option, "needs three fractions TRAIN,VALIDATION,TEST, but it is '" + text + "'");
+      throw bad(cli, option,
+          "needs three fractions TRAIN,VALIDATION,TEST, but it is '" + text + "'");
     }
     double[] f = new double[3];
     double sum = 0;
@@ -33,7 +34,8 @@ final class Fractions {
           "fractions must sum to 1, but '%s' sums to %s", text, sum));
     }
     if (f[0] == 0) {
-      throw bad(cli, option, "gives the train part 0 in '" + text + "', so nothing could be trained");
+      throw bad(cli, option,
+          "gives the train part 0 in '" + text + "', so nothing could be trained");
     }
     return f;
   }

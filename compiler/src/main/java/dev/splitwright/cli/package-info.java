@@ -1,4 +1,5 @@
 /**
- * The {@code splitwright} command line (picocli): parses options, runs the job, maps every failure to one line and an exit code.
+ * The {@code splitwright} command line (picocli): parses options, runs the job, maps every failure
+ * to one line and an exit code.
  */
 package dev.splitwright.cli;

@@ -137,8 +137,8 @@ final class ClassScaffold {
     doc.add("\n<p>Data: $L, SHA-256 $L.\n", JavaText.javadoc(header.dataName()),
         JavaText.javadoc(header.dataSha256()));
     doc.add("<br>Options: $L\n", JavaText.javadoc(header.command()));
-    doc.add("\n<p>Outputs are statistical: validate them on your own data. They do not replace the\n"
-        + "safety analysis and standards that apply to your product.\n");
+    doc.add("\n<p>Outputs are statistical: validate them on your own data. They do not "
+        + "replace the\nsafety analysis and standards that apply to your product.\n");
     return doc.build();
   }
 

@@ -8,7 +8,8 @@ import java.util.Objects;
  * SHA-256, the options that reproduce it and one line per score. Nothing here may vary between two
  * runs on the same input, so no time, host or user.
  */
-public record HeaderInfo(String dataName, String dataSha256, String command, List<String> scoreLines) {
+public record HeaderInfo(
+    String dataName, String dataSha256, String command, List<String> scoreLines) {
 
   public HeaderInfo {
     Objects.requireNonNull(dataName, "dataName");

@@ -8,9 +8,9 @@ final class JavaText {
 
   /**
    * Makes text safe inside a Java comment: backslashes are doubled so that no {@code \}{@code u}
-   * escape survives (javac decodes unicode escapes before it sees comments, JLS §3.3), {@code *}{@code /}
-   * cannot close the comment, control characters cannot end a line comment, and lone surrogates
-   * are spelled out.
+   * escape survives (javac decodes unicode escapes before it sees comments, JLS §3.3),
+   * {@code *}{@code /} cannot close the comment, control characters cannot end a line comment, and
+   * lone surrogates are spelled out.
    */
   static String comment(String text) {
     StringBuilder out = new StringBuilder(text.length() + 8);

@@ -18,7 +18,10 @@ import java.util.Map;
 final class MethodPlan {
   /** {@code aload/fload, index push (<=3), xaload, ldc_w (3), xcmp, if (3)}. */
   private static final int NUMERIC_SPLIT_BYTES = 12;
-  /** Value load (<=5), k push (3), mask ldc2_w/getstatic (3), iconst, invokestatic (3), ifeq (3). */
+  /**
+   * Value load ({@code <=5}), k push (3), mask ldc2_w/getstatic (3), iconst, invokestatic (3),
+   * ifeq (3).
+   */
   private static final int CATEGORICAL_SPLIT_BYTES = 20;
   /** {@code ldc_w (3), ireturn}. */
   private static final int LEAF_BYTES = 4;

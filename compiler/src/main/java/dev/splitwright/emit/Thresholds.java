@@ -28,8 +28,8 @@ final class Thresholds {
   }
 
   /**
-   * Returns the largest int {@code n} with {@code (float) n <= t}, or {@code Long.MIN_VALUE} when no
-   * int qualifies. A long because the answer may be below {@link Integer#MIN_VALUE}.
+   * Returns the largest int {@code n} with {@code (float) n <= t}, or {@code Long.MIN_VALUE} when
+   * no int qualifies. A long because the answer may be below {@link Integer#MIN_VALUE}.
    */
   static long forInt(float t) {
     if (t >= 0x1p31f) {

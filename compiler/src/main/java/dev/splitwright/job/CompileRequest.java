@@ -9,7 +9,8 @@ import java.util.Optional;
 
 /**
  * Everything one compile run needs. Paths are used to read and write only; what is recorded in the
- * outputs is {@link #optionsText}, which names no path, so outputs do not depend on where files are.
+ * outputs is {@link #optionsText}, which names no path, so outputs do not depend on where files
+ * are.
  *
  * @param data the labelled CSV; with {@code model} set, only used to report scores and verify
  * @param testData a separate test CSV with the same header, replacing the test fraction

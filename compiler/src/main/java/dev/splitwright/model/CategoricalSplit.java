@@ -40,7 +40,8 @@ public record CategoricalSplit(
       Arrays.sort(sorted);
       for (int i = 0; i < sorted.length; i++) {
         if (sorted[i] < 0 || (i > 0 && sorted[i] == sorted[i - 1])) {
-          throw new IllegalArgumentException("codes must be distinct and non-negative: " + Arrays.toString(codes));
+          throw new IllegalArgumentException(
+              "codes must be distinct and non-negative: " + Arrays.toString(codes));
         }
       }
       return new CodeSet(sorted);

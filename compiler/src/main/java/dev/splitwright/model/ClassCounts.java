@@ -14,7 +14,8 @@ public final class ClassCounts {
   public static ClassCounts of(int... counts) {
     for (int c : counts) {
       if (c < 0) {
-        throw new IllegalArgumentException("class counts must be non-negative: " + Arrays.toString(counts));
+        throw new IllegalArgumentException(
+            "class counts must be non-negative: " + Arrays.toString(counts));
       }
     }
     return new ClassCounts(counts.clone());

@@ -126,7 +126,8 @@ public final class DecisionTree {
 
   @Override
   public boolean equals(Object o) {
-    return o instanceof DecisionTree other && schema.equals(other.schema) && root.equals(other.root);
+    return o instanceof DecisionTree other
+        && schema.equals(other.schema) && root.equals(other.root);
   }
 
   @Override

@@ -1,4 +1,5 @@
 /**
- * The immutable decision tree and its nodes; {@code DecisionTree.predict} is the oracle emitted code is checked against.
+ * The immutable decision tree and its nodes; {@code DecisionTree.predict} is the oracle emitted
+ * code is checked against.
  */
 package dev.splitwright.model;

@@ -118,7 +118,8 @@ public final class ModelFile {
 
   private static DecisionTree fromJson(ModelJson json) {
     if (!FORMAT.equals(json.format())) {
-      throw new IllegalArgumentException("format is '" + json.format() + "', expected '" + FORMAT + "'");
+      throw new IllegalArgumentException(
+          "format is '" + json.format() + "', expected '" + FORMAT + "'");
     }
     if (json.version() != VERSION) {
       throw new IllegalArgumentException("version " + json.version() + " is not supported; this "

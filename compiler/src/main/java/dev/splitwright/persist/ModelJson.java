@@ -23,7 +23,9 @@ record ModelJson(
     }
   }
 
-  /** A leaf has {@code predict}; a split has feature, threshold or leftCodes, missing and children. */
+  /**
+   * A leaf has {@code predict}; a split has feature, threshold or leftCodes, missing and children.
+   */
   @JsonInclude(JsonInclude.Include.NON_NULL)
   record NodeJson(
       Integer feature,

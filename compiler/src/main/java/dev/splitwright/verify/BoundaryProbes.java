@@ -12,8 +12,8 @@ import java.util.function.BiConsumer;
 /**
  * Builds, for every split, inputs that reach it (each comparison on its path satisfied) and then
  * put the split's own feature on and around its threshold: t, nextUp(t), nextDown(t), NaN, ±0 and
- * ±Infinity (IEEE 754 neighbours), or, for a categorical split, codes inside and outside its set and
- * invalid codes. Every comparison of the emitted code is thus taken both ways.
+ * ±Infinity (IEEE 754 neighbours), or, for a categorical split, codes inside and outside its set
+ * and invalid codes. Every comparison of the emitted code is thus taken both ways.
  */
 final class BoundaryProbes {
   private final Schema schema;

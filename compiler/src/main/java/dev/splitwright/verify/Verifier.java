@@ -1,9 +1,9 @@
 package dev.splitwright.verify;
 
 import dev.splitwright.check.ClassFileInfo;
+import dev.splitwright.check.ComparisonResult;
 import dev.splitwright.check.CompilationException;
 import dev.splitwright.check.CompiledClasses;
-import dev.splitwright.check.ComparisonResult;
 import dev.splitwright.check.InMemoryCompiler;
 import dev.splitwright.check.MethodSize;
 import dev.splitwright.check.Mismatch;

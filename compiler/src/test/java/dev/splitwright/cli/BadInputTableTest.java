@@ -204,7 +204,8 @@ class BadInputTableTest {
         accepted("NaN text declared missing with --missing",
             csv("a,b,label\n1,2,x\n3,4,y\nNaN,5,x\n6,NaN,y\n", "--missing", "NaN")),
         fails("hexadecimal number", csv("a,b,label\n0x1p3,2,x\n3,4,y\n"), "t.csv:2:1",
-            "'0x1p3' is not a plain decimal number (column 'a')", "write numbers as plain decimals"),
+            "'0x1p3' is not a plain decimal number (column 'a')",
+            "write numbers as plain decimals"),
         fails("number beyond float32 range", csv("a,b,label\n1,2,x\n3,-1e39,y\n"), "t.csv:3:2",
             "'-1e39' is too large for a 32-bit float", "rescale the column or fix the cell",
             "not clamped"),
@@ -247,7 +248,8 @@ class BadInputTableTest {
         fails("--model file that is not JSON", (dir, args) -> {
           csv(VALID).apply(dir, args);
           args.set("--model", Files.writeString(dir.resolve("m.json"), "{\"format\":").toString());
-        }, "m.json:1:", "not a valid Splitwright model file", "pass a file written by --save-model"),
+        }, "m.json:1:", "not a valid Splitwright model file",
+            "pass a file written by --save-model"),
         fails("--model file of another format", (dir, args) -> {
           csv(VALID).apply(dir, args);
           args.set("--model", Files.writeString(dir.resolve("m.json"), "{}").toString());

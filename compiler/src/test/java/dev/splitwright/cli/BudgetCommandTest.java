@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.splitwright.demo.DemoFiles;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -45,7 +46,7 @@ class BudgetCommandTest {
     // provenance in src/test/resources/datasets/README.md) and our own seeded pump demo sample.
     Path cancer = Path.of(BudgetCommandTest.class
         .getResource("/datasets/breast-cancer-wisconsin-diagnostic.csv").toURI());
-    Path pump = Path.of("../generated-samples/data/pump-vibration.csv");
+    Path pump = DemoFiles.pump();
     // --bare leaves out the label and feature tables and the length check: smaller classes.
     return Stream.of(
         Arguments.of(cancer, List.of()),
@@ -145,7 +146,7 @@ class BudgetCommandTest {
 
   @Test
   void reportsFrontierAndChoiceOnTheDemo(@TempDir Path dir) throws IOException {
-    Run run = run("compile", "--data", "../generated-samples/data/pump-vibration.csv", "--target",
+    Run run = run("compile", "--data", CompileCommandTest.PUMP.toString(), "--target",
         "state", "--budget", "2KiB", "--class", "Pump", "--out", dir.toString());
 
     assertThat(run.exit()).as(run.err()).isZero();
@@ -178,7 +179,7 @@ class BudgetCommandTest {
   @ParameterizedTest
   @ValueSource(strings = {"abc", "-1", "4 XB", "0", "99999999999KiB", "1e3"})
   void malformedBudgetExitsTwoWithOneLineNamingTheOption(String size, @TempDir Path dir) {
-    Run run = run("compile", "--data", "../generated-samples/data/pump-vibration.csv", "--budget",
+    Run run = run("compile", "--data", CompileCommandTest.PUMP.toString(), "--budget",
         size, "--class", "Pump", "--out", dir.toString());
 
     assertThat(run.exit()).isEqualTo(2);
@@ -193,7 +194,7 @@ class BudgetCommandTest {
     for (String[] option : new String[][] {{"--folds", "5"}, {"--refit-all"},
         {"--budget-unit", "source"}, {"--metric", "accuracy"}}) {
       List<String> args = new ArrayList<>(List.of("compile", "--data",
-          "../generated-samples/data/pump-vibration.csv", "--class", "Pump", "--out",
+          CompileCommandTest.PUMP.toString(), "--class", "Pump", "--out",
           dir.toString()));
       args.addAll(List.of(option));
       Run run = run(args.toArray(new String[0]));
@@ -212,7 +213,7 @@ class BudgetCommandTest {
         {"--metric", "f2", "option '--metric' must be accuracy, balanced-accuracy or macro-f1, but "
             + "it is 'f2'"}};
     for (String[] c : cases) {
-      Run run = run("compile", "--data", "../generated-samples/data/pump-vibration.csv",
+      Run run = run("compile", "--data", CompileCommandTest.PUMP.toString(),
           "--budget", "4KiB", c[0], c[1], "--class", "Pump", "--out", dir.toString());
       assertThat(run.exit()).isEqualTo(2);
       assertThat(run.err().strip())

@@ -2,6 +2,7 @@ package dev.splitwright.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import dev.splitwright.demo.DemoFiles;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -14,7 +15,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 class CompileCommandTest {
-  static final Path PUMP = Path.of("../generated-samples/data/pump-vibration.csv");
+  static final Path PUMP = DemoFiles.pump();
 
   @TempDir Path temp;
 

@@ -339,7 +339,8 @@ class CsvFuzzTest {
       List<int[]> cells = cells(0, end < 0 ? bytes.length : end);
       int[] cell = cells.get(random.nextInt(cells.size()));
       if (duplicate) {
-        byte[] copy = Arrays.copyOfRange(bytes, cell[0], cell[1] + (cell[1] < bytes.length ? 1 : 0));
+        byte[] copy =
+            Arrays.copyOfRange(bytes, cell[0], cell[1] + (cell[1] < bytes.length ? 1 : 0));
         splice(cell[0], cell[0], copy.length > 0 && copy[copy.length - 1] == ',' ? copy
             : concat(copy, new byte[] {','}));
         done.add("duplicate header cell at " + cell[0]);
@@ -430,7 +431,8 @@ class CsvFuzzTest {
   /**
    * The valid files: our pump demo's first 200 rows; the same rows with two columns turned into
    * categories (temperature bands and a pump site), so categorical splits are fuzzed too; and the
-   * UCI Congressional Voting Records (categorical y/n with empty cells, target in the first column).
+   * UCI Congressional Voting Records (categorical y/n with empty cells, target in the first
+   * column).
    */
   static List<Sample> samples() throws IOException {
     List<String> pump = Files.readAllLines(CompileCommandTest.PUMP, StandardCharsets.UTF_8)

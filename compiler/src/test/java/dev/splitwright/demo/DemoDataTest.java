@@ -22,8 +22,7 @@ class DemoDataTest {
   @ParameterizedTest
   @CsvSource({"pump-vibration, 3000, 7", "gesture-band, 2500, 11"})
   void committedSampleMatchesTheGenerator(String scenario, int rows, long seed) throws IOException {
-    // Surefire runs in the module directory; the samples live in the sibling module.
-    Path committed = Path.of("..", "generated-samples", "data", scenario + ".csv");
+    Path committed = DemoFiles.of(scenario);
     Path fresh = dir.resolve(scenario + ".csv");
     DemoData.write(scenario, fresh, rows, seed);
     if (UPDATE) {

@@ -59,11 +59,13 @@ class PumpVibrationScenarioTest {
     String[] lines = csv.split("\n");
     assertThat(lines[0])
         .isEqualTo(
-            "vibration_rms_mm_s,peak_accel_g,crest_factor,kurtosis,bearing_temp_c,motor_current_a,state");
+            "vibration_rms_mm_s,peak_accel_g,crest_factor,kurtosis,bearing_temp_c,"
+                + "motor_current_a,state");
     for (String line : List.of(lines).subList(1, lines.length)) {
       assertThat(line)
           .matches(
-              "\\d+\\.\\d{2},\\d+\\.\\d{3},\\d+\\.\\d{2},\\d+\\.\\d{2},(\\d+\\.\\d)?,\\d+\\.\\d{2},[a-z_]+");
+              "\\d+\\.\\d{2},\\d+\\.\\d{3},\\d+\\.\\d{2},\\d+\\.\\d{2},"
+                  + "(\\d+\\.\\d)?,\\d+\\.\\d{2},[a-z_]+");
     }
   }
 

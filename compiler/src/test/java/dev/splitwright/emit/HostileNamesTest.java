@@ -9,7 +9,6 @@ import com.sun.source.util.JavacTask;
 import com.sun.source.util.TreeScanner;
 import dev.splitwright.check.ClassFileInfo;
 import dev.splitwright.check.CompiledClasses;
-import dev.splitwright.check.InMemoryCompiler;
 import dev.splitwright.check.SourceFile;
 import dev.splitwright.data.Feature;
 import dev.splitwright.data.Schema;

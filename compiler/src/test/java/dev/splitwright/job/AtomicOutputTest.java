@@ -3,6 +3,7 @@ package dev.splitwright.job;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.splitwright.data.LoadOptions;
+import dev.splitwright.demo.DemoFiles;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
@@ -27,7 +28,7 @@ import org.junit.jupiter.api.io.TempDir;
  * through the job's test seam, which emits code from a tree with one leaf changed.
  */
 class AtomicOutputTest {
-  private static final Path PUMP = Path.of("../generated-samples/data/pump-vibration.csv");
+  private static final Path PUMP = DemoFiles.pump();
   private static final Verifier VERIFIER = Verifier.create();
 
   @TempDir Path out;

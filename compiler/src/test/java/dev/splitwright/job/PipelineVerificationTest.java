@@ -3,6 +3,7 @@ package dev.splitwright.job;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.splitwright.data.LoadOptions;
+import dev.splitwright.demo.DemoFiles;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.train.TrainingOptions;
 import dev.splitwright.verify.VerificationResult;
@@ -28,8 +29,8 @@ class PipelineVerificationTest {
   static Stream<Arguments> dataSets() {
     return Stream.of(
         // Our own seeded demo scenarios.
-        Arguments.of("../generated-samples/data/pump-vibration.csv", "state", 8),
-        Arguments.of("../generated-samples/data/gesture-band.csv", "gesture", 8),
+        Arguments.of(DemoFiles.pump().toString(), "state", 8),
+        Arguments.of(DemoFiles.of("gesture-band").toString(), "gesture", 8),
         // UCI Breast Cancer Wisconsin (Diagnostic), 569 rows, no missing values.
         Arguments.of("src/test/resources/datasets/breast-cancer-wisconsin-diagnostic.csv",
             "diagnosis", 6),

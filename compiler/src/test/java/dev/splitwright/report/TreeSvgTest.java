@@ -3,6 +3,7 @@ package dev.splitwright.report;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.splitwright.data.CsvLoader;
+import dev.splitwright.demo.DemoFiles;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.Feature;
 import dev.splitwright.data.LoadOptions;
@@ -132,7 +133,7 @@ class TreeSvgTest {
 
   @Test
   void aTrainedTreeIsDrawnNodeForNode() throws Exception {
-    Dataset data = CsvLoader.load(Path.of("../generated-samples/data/pump-vibration.csv"),
+    Dataset data = CsvLoader.load(DemoFiles.pump(),
         LoadOptions.builder().target("state").build()).dataset();
     DecisionTree tree = CartTrainer.train(data,
         TrainingOptions.builder().maxDepth(9).minLeaf(5).build());

@@ -20,9 +20,9 @@ import dev.splitwright.model.NumericSplit;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.EnumSource;
-import org.junit.jupiter.api.Test;
 
 /**
  * With {@code double[]} input the class must be the float model's class on {@code (float) x}. The

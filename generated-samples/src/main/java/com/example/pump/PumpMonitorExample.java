@@ -18,7 +18,8 @@ public final class PumpMonitorExample {
     };
     for (float[] reading : readings) {
       int state = PumpStateClassifier.classify(reading);
-      String action = state == PumpStateClassifier.CLASS_NORMAL ? "keep running" : "flag for service";
+      String action =
+          state == PumpStateClassifier.CLASS_NORMAL ? "keep running" : "flag for service";
       System.out.println(PumpStateClassifier.label(state) + ": " + action);
     }
   }

@@ -27,6 +27,7 @@ class SampleGoldenTest {
       + "-Dsurefire.failIfNoSpecifiedTests=false -Dgolden.update=true";
 
   private static final boolean UPDATE = Boolean.getBoolean("golden.update");
+  private static final String DEMO_DATA = "${splitwright.demoData}";
 
   @TempDir Path temp;
 
@@ -65,10 +66,17 @@ class SampleGoldenTest {
     }
   }
 
-  /** The sample's command line: one argument a line, '#' comments; paths are module-relative. */
+  /**
+   * The sample's command line: one argument a line, '#' comments; {@value #DEMO_DATA} stands for
+   * the demo data directory the build declares (system property {@code splitwright.demoData}).
+   */
   private static List<String> recordedArgs(String sample) throws IOException {
+    String demoData = System.getProperty("splitwright.demoData");
+    assertThat(demoData).as("system property splitwright.demoData (set by the parent pom)")
+        .isNotBlank();
     return Files.readAllLines(Path.of("commands", sample + ".args"), StandardCharsets.UTF_8)
-        .stream().map(String::strip).filter(l -> !l.isEmpty() && !l.startsWith("#")).toList();
+        .stream().map(String::strip).filter(l -> !l.isEmpty() && !l.startsWith("#"))
+        .map(l -> l.replace(DEMO_DATA, demoData)).toList();
   }
 
   /** Sources live in the module's source tree; reports and pictures in {@code reports/}. */

@@ -38,13 +38,12 @@ public record CompileDiagnostic(
 
   /** Renders {@code demo/Pump.java:3:12: error: message} in javac's own layout. */
   public String headline() {
-    String label =
-        switch (kind) {
-          case ERROR -> "error";
-          case WARNING, MANDATORY_WARNING -> "warning";
-          case NOTE -> "note";
-          case OTHER -> "message";
-        };
+    String label = switch (kind) {
+      case ERROR -> "error";
+      case WARNING, MANDATORY_WARNING -> "warning";
+      case NOTE -> "note";
+      case OTHER -> "message";
+    };
     if (className.isEmpty()) {
       return label + ": " + message;
     }
