@@ -36,8 +36,8 @@ import picocli.CommandLine.Spec;
     name = "compile",
     mixinStandardHelpOptions = true,
     sortOptions = false,
-    description = "Trains a CART tree on the CSV (or reads a saved model), emits it as Java, checks "
-        + "the compiled code against the model on every row and every threshold boundary, and "
+    description = "Trains a CART tree on the CSV (or reads a saved model), emits it as Java, "
+        + "checks the compiled code against the model on every row and every threshold boundary, and "
         + "writes <out>/<package path>/<Class>.java, <out>/<Class>.report.json and "
         + "<out>/<Class>.tree.svg only if the check passed.")
 final class CompileCommand implements Callable<Integer> {

@@ -5,7 +5,8 @@ import picocli.CommandLine;
 
 /**
  * The {@code splitwright} command. Exit codes: 0 success, 1 verification failed, 2 bad input or
- * options, 3 internal error, 4 a {@code check} score fell below its floor. No stack trace is printed unless {@code --debug} is given.
+ * options, 3 internal error, 4 a {@code check} score fell below its floor. No stack trace is
+ * printed unless {@code --debug} is given.
  */
 public final class Main {
   private Main() {}

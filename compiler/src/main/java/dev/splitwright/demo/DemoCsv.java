@@ -27,7 +27,8 @@ final class DemoCsv {
   }
 
   /** Quotes only where CSV needs it; {@code \n} line endings on every platform. */
-  private static final CSVFormat FORMAT = CSVFormat.DEFAULT.builder().setRecordSeparator('\n').get();
+  private static final CSVFormat FORMAT =
+      CSVFormat.DEFAULT.builder().setRecordSeparator('\n').get();
 
   static String csv(List<String> features, String target, List<DemoRow> rows) {
     StringBuilder out = new StringBuilder(rows.size() * 64);

@@ -65,7 +65,6 @@ public final class PumpVibrationScenario extends DemoScenario {
     super(FEATURES, TARGET, labelNoise);
   }
 
-
   @Override
   DemoRow row(DemoRandom random, int index) {
     double hourOfDay = (index * MINUTES_PER_ROW / 60.0) % 24.0;

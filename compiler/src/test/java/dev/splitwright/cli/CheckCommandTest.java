@@ -138,8 +138,10 @@ class CheckCommandTest {
     Path reportDir = Files.createDirectory(temp.resolve("taken"));
     Object[][] cases = {
         {new String[] {"--floor", "precision=0.5"}, "option '--floor' names no metric"},
-        {new String[] {"--floor", "accuracy=1.5"}, "option '--floor' needs a number between 0 and 1"},
-        {new String[] {"--floor", "accuracy=NaN"}, "option '--floor' needs a number between 0 and 1"},
+        {new String[] {"--floor", "accuracy=1.5"},
+            "option '--floor' needs a number between 0 and 1"},
+        {new String[] {"--floor", "accuracy=NaN"},
+            "option '--floor' needs a number between 0 and 1"},
         {new String[] {"--floor", "accuracy"}, "option '--floor' must be METRIC=VALUE"},
         {new String[] {"--report", reportDir.toString()}, "a directory of that name exists"},
     };

@@ -1,6 +1,5 @@
 package dev.splitwright.train;
 
-import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.splitwright.data.Dataset;
 import dev.splitwright.model.DecisionTree;

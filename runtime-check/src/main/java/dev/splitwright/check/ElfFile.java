@@ -57,18 +57,16 @@ public final class ElfFile {
         || bytes[0] != 0x7f || bytes[1] != 'E' || bytes[2] != 'L' || bytes[3] != 'F') {
       throw ElfReader.error(0, "not an ELF file: it does not start with 0x7f 'E' 'L' 'F'");
     }
-    boolean is64 =
-        switch (bytes[4]) {
-          case 1 -> false;
-          case 2 -> true;
-          default -> throw ElfReader.error(4, "EI_CLASS is " + bytes[4] + ", expected 1 or 2");
-        };
-    ByteOrder order =
-        switch (bytes[5]) {
-          case 1 -> ByteOrder.LITTLE_ENDIAN;
-          case 2 -> ByteOrder.BIG_ENDIAN;
-          default -> throw ElfReader.error(5, "EI_DATA is " + bytes[5] + ", expected 1 or 2");
-        };
+    boolean is64 = switch (bytes[4]) {
+      case 1 -> false;
+      case 2 -> true;
+      default -> throw ElfReader.error(4, "EI_CLASS is " + bytes[4] + ", expected 1 or 2");
+    };
+    ByteOrder order = switch (bytes[5]) {
+      case 1 -> ByteOrder.LITTLE_ENDIAN;
+      case 2 -> ByteOrder.BIG_ENDIAN;
+      default -> throw ElfReader.error(5, "EI_DATA is " + bytes[5] + ", expected 1 or 2");
+    };
     if (bytes[6] != 1) {
       throw ElfReader.error(6, "EI_VERSION is " + bytes[6] + ", expected 1");
     }

@@ -14,7 +14,8 @@ import java.util.Objects;
  * @param sectionIndex {@code st_shndx}, already resolved through {@code SHT_SYMTAB_SHNDX} when it
  *     was {@code SHN_XINDEX}; {@link #SHN_UNDEF} for undefined symbols
  */
-public record ElfSymbol(String name, long value, long size, int type, int binding, int sectionIndex) {
+public record ElfSymbol(
+    String name, long value, long size, int type, int binding, int sectionIndex) {
 
   /** A data object such as a variable or array (gABI). */
   public static final int STT_OBJECT = 1;

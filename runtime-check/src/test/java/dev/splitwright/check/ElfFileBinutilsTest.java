@@ -82,7 +82,8 @@ class ElfFileBinutilsTest {
   void hostObjectsMatchSizeAndNm(String optimization) throws Exception {
     CCompiler cc =
         CCompiler.find(
-            "cc", List.of("-std=c99", optimization, "-ffunction-sections", "-fdata-sections"), LIMIT);
+            "cc", List.of("-std=c99", optimization, "-ffunction-sections", "-fdata-sections"),
+            LIMIT);
 
     ObjectFiles objects = cc.compileObjects(Map.of("tables.c", TABLES, "switch.c", SWITCH));
 

@@ -64,7 +64,8 @@ class ElfFileTest {
   @CsvSource({"false, BIG_ENDIAN", "false, LITTLE_ENDIAN", "true, BIG_ENDIAN",
       "true, LITTLE_ENDIAN"})
   void readsHandBuiltFileOfEveryClassAndByteOrder(boolean is64, String orderName) {
-    ByteOrder order = orderName.equals("BIG_ENDIAN") ? ByteOrder.BIG_ENDIAN : ByteOrder.LITTLE_ENDIAN;
+    ByteOrder order =
+        orderName.equals("BIG_ENDIAN") ? ByteOrder.BIG_ENDIAN : ByteOrder.LITTLE_ENDIAN;
 
     ElfFile elf = ElfFile.parse(sample(is64, order));
 
@@ -126,7 +127,8 @@ class ElfFileTest {
   @Test
   void fileWithoutSectionTableHasNoSections() {
     byte[] bytes = sample(true, ByteOrder.LITTLE_ENDIAN);
-    ByteBuffer.wrap(bytes).order(ByteOrder.LITTLE_ENDIAN).putLong(HandBuiltElf.shoffOffset(true), 0);
+    ByteBuffer.wrap(bytes).order(ByteOrder.LITTLE_ENDIAN)
+        .putLong(HandBuiltElf.shoffOffset(true), 0);
 
     ElfFile elf = ElfFile.parse(bytes);
 
