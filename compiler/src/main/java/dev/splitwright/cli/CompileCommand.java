@@ -362,7 +362,7 @@ final class CompileCommand implements Callable<Integer> {
       RecallLine.of(result).ifPresent(out::println);
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
           + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
-          v.classFileBytes(), v.classFileBytesWithoutDebug(), v.maxMethodBytes());
+          v.classFileBytes(), result.report().classFileBytesNoDebug(), v.maxMethodBytes());
       Object choice = result.report().options().get("layoutChoice");
       if (choice != null) {
         out.println("layout: " + choice);

@@ -127,17 +127,6 @@ class VerifierTest {
   }
 
   @Test
-  void classFileSizeWithoutDebugInfoIsSmaller() throws Exception {
-    DecisionTree tree = tree(1);
-    EmitOptions options = EmitOptions.builder("v", "Sized").build();
-    VerificationResult result = VERIFIER.verify(tree, emit(tree, options), options, List.of(), 1);
-    // javac's default -g:source,lines writes a SourceFile attribute and LineNumberTables (JVMS
-    // §4.7.10, §4.7.12), so the -g:none weight must be strictly smaller.
-    assertThat(result.classFileBytesWithoutDebug()).isPositive()
-        .isLessThan(result.classFileBytes());
-  }
-
-  @Test
   void theStaticInitializerIsNotHeldToTheCapButEveryOtherMethodIs() throws Exception {
     // 60 features: a 60-element array initializer, about 7 bytes each (JVMS §6.5), runs once.
     List<Feature> features = new java.util.ArrayList<>();
