@@ -14,14 +14,17 @@ import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
 import java.nio.file.attribute.PosixFileAttributeView;
+import java.nio.file.attribute.PosixFilePermission;
 import java.security.SecureRandom;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.Deque;
+import java.util.EnumSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Set;
 
 /**
  * Collects output files and writes them all or none. Each file is first written to a temporary
@@ -111,9 +114,15 @@ public final class OutputFiles {
         Path dir = current.target.getParent();
         createDirectories(dir, createdDirs);
         current.temp = createTemp(dir, tempPrefix(current.target));
+        boolean replacing = Files.exists(current.target);
+        if (replacing) {
+          // Before the content goes in, so a private file's new text is never more readable;
+          // the owner may write meanwhile even if the old file is read-only.
+          keepPermissions(current.target, current.temp, true);
+        }
         e.getValue().writeTo(current.temp);
-        if (Files.exists(current.target)) {
-          keepPermissions(current.target, current.temp);
+        if (replacing) {
+          keepPermissions(current.target, current.temp, false);
           current.backup = Files.createTempFile(dir, tempPrefix(current.target), TEMP_SUFFIX);
           Files.copy(current.target, current.backup, StandardCopyOption.REPLACE_EXISTING,
               StandardCopyOption.COPY_ATTRIBUTES);
@@ -215,13 +224,23 @@ public final class OutputFiles {
     }
   }
 
-  /** Gives {@code temp} the permissions of the file it will replace. */
-  private static void keepPermissions(Path target, Path temp) throws IOException {
+  /**
+   * Gives {@code temp} the permissions of the file it will replace, with {@code ownerWrites} also
+   * the owner's read and write.
+   */
+  private static void keepPermissions(Path target, Path temp, boolean ownerWrites)
+      throws IOException {
     PosixFileAttributeView old =
         Files.getFileAttributeView(target, PosixFileAttributeView.class);
     PosixFileAttributeView fresh = Files.getFileAttributeView(temp, PosixFileAttributeView.class);
     if (old != null && fresh != null) {
-      fresh.setPermissions(old.readAttributes().permissions());
+      Set<PosixFilePermission> permissions = EnumSet.noneOf(PosixFilePermission.class);
+      permissions.addAll(old.readAttributes().permissions());
+      if (ownerWrites) {
+        permissions.add(PosixFilePermission.OWNER_READ);
+        permissions.add(PosixFilePermission.OWNER_WRITE);
+      }
+      fresh.setPermissions(permissions);
     }
   }
 

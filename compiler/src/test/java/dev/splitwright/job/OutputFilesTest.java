@@ -162,7 +162,7 @@ class OutputFilesTest {
   }
 
   @ParameterizedTest
-  @ValueSource(strings = {"rw-r-----", "rwxr-xr-x", "rw-rw-rw-"})
+  @ValueSource(strings = {"rw-r-----", "rwxr-xr-x", "rw-rw-rw-", "r--r--r--"})
   void aReplacedFileKeepsItsPermissions(String mode) throws IOException {
     assumeTrue(posix(), "POSIX permissions");
     Path target = dir.resolve("out.txt");
