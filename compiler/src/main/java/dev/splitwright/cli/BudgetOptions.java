@@ -24,14 +24,14 @@ final class BudgetOptions {
           + "writes <out>/<Class>.frontier.svg.")
   String budget;
 
-  @Option(names = "--budget-unit", defaultValue = "class", paramLabel = "class|bytecode|source",
+  @Option(names = "--budget-unit", defaultValue = "class", paramLabel = "UNIT",
       description = "What --budget counts: the .class file javac writes with --release 17 and "
           + "its default debug info, the methods' bytecode, or the .java file's UTF-8 bytes "
           + "(default: ${DEFAULT-VALUE}).")
   String unit;
 
   @Option(names = "--metric", defaultValue = "balanced-accuracy",
-      paramLabel = "accuracy|balanced-accuracy|macro-f1",
+      paramLabel = "METRIC",
       description = "Validation score the budget search maximises (default: ${DEFAULT-VALUE}).")
   String metric;
 
@@ -67,9 +67,9 @@ final class BudgetOptions {
       throw bad(cli, "--budget", e.problem() + "; " + e.remedy());
     }
     BudgetUnit budgetUnit = BudgetUnit.parse(unit).orElseThrow(() -> bad(cli, "--budget-unit",
-        "must be class, bytecode or source, but it is '" + unit + "'"));
+        "must be " + Choices.oneOf(Choices.UNITS) + ", but it is '" + unit + "'"));
     Metric score = Metric.parse(metric).orElseThrow(() -> bad(cli, "--metric",
-        "must be accuracy, balanced-accuracy or macro-f1, but it is '" + metric + "'"));
+        "must be " + Choices.oneOf(Choices.METRICS) + ", but it is '" + metric + "'"));
     if (folds != null && folds < 2) {
       throw bad(cli, "--folds", "must be at least 2, but it is " + folds);
     }

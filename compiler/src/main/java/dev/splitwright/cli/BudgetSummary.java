@@ -2,7 +2,7 @@ package dev.splitwright.cli;
 
 import dev.splitwright.select.SearchStats;
 import dev.splitwright.select.SelectionReport;
-import dev.splitwright.select.Setting;
+import dev.splitwright.select.CandidateRecipe;
 import java.io.PrintWriter;
 import java.util.Locale;
 
@@ -14,7 +14,7 @@ final class BudgetSummary {
     SelectionReport.Chosen c = selection.chosen();
     out.printf(Locale.ROOT, "budget: %d bytes (%s); chosen max-depth %d, min-leaf %d, alpha %s "
         + "(depth %d, %d leaves): %d bytes, %s %.4f (%s)%n", selection.budget(),
-        selection.budgetUnit(), c.maxDepth(), c.minLeaf(), Setting.formatAlpha(c.alpha()),
+        selection.budgetUnit(), c.maxDepth(), c.minLeaf(), CandidateRecipe.formatAlpha(c.alpha()),
         c.depth(), c.leaves(), c.size(), selection.metric(), c.validationScore(),
         selection.scoredOn());
     if (selection.budgetUnit().equals("class")) {

@@ -36,9 +36,10 @@ import picocli.CommandLine.Spec;
     name = "compile",
     mixinStandardHelpOptions = true,
     sortOptions = false,
+    modelTransformer = Choices.Labels.class,
     description = "Trains a CART tree on the CSV (or reads a saved model), emits it as Java, "
-        + "checks the compiled code against the model on every row and every threshold boundary, and "
-        + "writes <out>/<package path>/<Class>.java, <out>/<Class>.report.json and "
+        + "checks the compiled code against the model on every row and every threshold boundary, "
+        + "and writes <out>/<package path>/<Class>.java, <out>/<Class>.report.json and "
         + "<out>/<Class>.tree.svg only if the check passed.")
 final class CompileCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
@@ -89,7 +90,7 @@ final class CompileCommand implements Callable<Integer> {
       description = "Fewest training rows in a leaf (default: ${DEFAULT-VALUE}).")
   int minLeaf;
 
-  @Option(names = "--impurity", defaultValue = "gini", paramLabel = "gini|entropy",
+  @Option(names = "--impurity", defaultValue = "gini", paramLabel = "IMPURITY",
       description = "Split criterion (default: ${DEFAULT-VALUE}).")
   String impurity;
 
@@ -120,12 +121,12 @@ final class CompileCommand implements Callable<Integer> {
       description = "Directory for the source tree and the report.")
   Path out;
 
-  @Option(names = "--layout", defaultValue = "branches", paramLabel = "branches|table|smallest",
+  @Option(names = "--layout", defaultValue = "branches", paramLabel = "LAYOUT",
       description = "Code layout: nested ifs, a packed table walked by a loop (smaller for big "
           + "trees), or whichever compiles smaller (default: ${DEFAULT-VALUE}).")
   String layout;
 
-  @Option(names = "--input", defaultValue = "float", paramLabel = "float|double|int",
+  @Option(names = "--input", defaultValue = "float", paramLabel = "TYPE",
       description = "Element type of classify's input (default: ${DEFAULT-VALUE}).")
   String input;
 
@@ -200,11 +201,8 @@ final class CompileCommand implements Callable<Integer> {
     JavaNames.checkPackage(packageName);
     JavaNames.checkClass(className);
     double[] fractions = Fractions.parse(spec.commandLine(), "--split", split);
-    Impurity criterion = switch (impurity.toLowerCase(Locale.ROOT)) {
-      case "gini" -> Impurity.GINI;
-      case "entropy" -> Impurity.ENTROPY;
-      default -> throw bad("--impurity", "must be gini or entropy, but it is '" + impurity + "'");
-    };
+    Impurity criterion = Choices.impurity(impurity).orElseThrow(() -> bad("--impurity",
+        "must be " + Choices.oneOf(Choices.IMPURITIES) + ", but it is '" + impurity + "'"));
     ClassWeights weights = classWeights();
     if (intInputs) {
       if (spec.commandLine().getParseResult().hasMatchedOption("--input")
@@ -213,31 +211,27 @@ final class CompileCommand implements Callable<Integer> {
       }
       input = "int";
     }
-    TrainingOptions training;
-    EmitOptions emit;
-    try {
-      TrainingOptions.Builder t = TrainingOptions.builder()
-          .impurity(criterion)
-          .maxDepth(check("--max-depth", maxDepth, 1, Limits.MAX_DEPTH))
-          .minLeaf(check("--min-leaf", minLeaf, 1))
-          .weights(weights);
-      if (maxLeaves != null) {
-        t.maxLeaves(check("--max-leaves", maxLeaves, 2));
-      }
-      training = t.build();
-      emit = EmitOptions.builder(packageName, className)
-          .layout(Layout.parse(layout).orElseThrow(() -> bad("--layout",
-              "must be branches, table or smallest, but it is '" + layout + "'")))
-          .inputKind(InputKind.parse(input).orElseThrow(() -> bad("--input",
-              "must be float, double or int, but it is '" + input + "'")))
-          .maxMethodBytes(methodCap())
-          .namedArgs(namedArgs)
-          .probabilities(probabilities)
-          .bare(bare)
-          .build();
-    } catch (IllegalArgumentException e) {
-      throw bad(optionFor(e.getMessage()), e.getMessage());
+    // Every value is checked above or here, each failure naming its own option, so the builders
+    // below cannot reject one; if they did, it would be a bug of ours, reported as such.
+    TrainingOptions.Builder t = TrainingOptions.builder()
+        .impurity(criterion)
+        .maxDepth(check("--max-depth", maxDepth, 1, Limits.MAX_DEPTH))
+        .minLeaf(check("--min-leaf", minLeaf, 1))
+        .weights(weights);
+    if (maxLeaves != null) {
+      t.maxLeaves(check("--max-leaves", maxLeaves, 2));
     }
+    TrainingOptions training = t.build();
+    EmitOptions emit = EmitOptions.builder(packageName, className)
+        .layout(Layout.parse(layout).orElseThrow(() -> bad("--layout",
+            "must be " + Choices.oneOf(Choices.LAYOUTS) + ", but it is '" + layout + "'")))
+        .inputKind(InputKind.parse(input).orElseThrow(() -> bad("--input",
+            "must be " + Choices.oneOf(Choices.INPUTS) + ", but it is '" + input + "'")))
+        .maxMethodBytes(methodCap())
+        .namedArgs(namedArgs)
+        .probabilities(probabilities)
+        .bare(bare)
+        .build();
     LoadOptions load = LoadOptions.builder()
         .target(target)
         .missingTokens(missing)
@@ -265,16 +259,6 @@ final class CompileCommand implements Callable<Integer> {
           + EmitOptions.JVM_MAX_METHOD_BYTES + ", but it is " + maxMethodBytes);
     }
     return maxMethodBytes;
-  }
-
-  private static String optionFor(String message) {
-    if (message.contains("package")) {
-      return "--package";
-    }
-    if (message.contains("class name")) {
-      return "--class";
-    }
-    return message.contains("maxMethodBytes") ? "--max-method-bytes" : "options";
   }
 
   private int check(String option, int value, int least) {
@@ -362,7 +346,7 @@ final class CompileCommand implements Callable<Integer> {
       RecallLine.of(result).ifPresent(out::println);
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
           + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
-          v.classFileBytes(), v.classFileBytesWithoutDebug(), v.maxMethodBytes());
+          v.classFileBytes(), result.report().classFileBytesNoDebug(), v.maxMethodBytes());
       Object choice = result.report().options().get("layoutChoice");
       if (choice != null) {
         out.println("layout: " + choice);

@@ -1,6 +1,7 @@
 package dev.splitwright.cli;
 
 import dev.splitwright.demo.DemoData;
+import dev.splitwright.job.OutputFiles;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -43,7 +44,10 @@ final class DemoCommand implements Callable<Integer> {
       throw new ParameterException(spec.commandLine(),
           "option '--rows' must be at least 1, but it is " + rows);
     }
-    DemoData.write(scenario, out, rows, seed);
+    // Written like every other output: all at once, the umask's permissions or the old file's.
+    OutputFiles files = new OutputFiles();
+    files.add(out, temp -> DemoData.write(scenario, temp, rows, seed));
+    files.commit();
     spec.commandLine().getOut().println("wrote " + out);
     return ExitCodes.OK;
   }

@@ -17,11 +17,12 @@ import dev.splitwright.persist.ModelFile;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
 import dev.splitwright.report.TreeSvg;
+import dev.splitwright.select.DebugSizes;
+import dev.splitwright.select.LayoutChoice;
+import dev.splitwright.select.LayoutChooser;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.train.CartTrainer;
-import dev.splitwright.verify.LayoutChoice;
-import dev.splitwright.verify.LayoutChooser;
 import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
 import java.io.IOException;
@@ -82,7 +83,7 @@ public final class CompileJob {
     DataChecks.trainingData(request, loaded);
     Parts parts = split(loaded.dataset(), request);
     if (budget.isPresent()) {
-      return BudgetRun.run(verifier, request, loaded, parts, budget.get(), progress);
+      return BudgetRun.run(verifier, request, targets, loaded, parts, budget.get(), progress);
     }
     DecisionTree tree = request.model().isPresent()
         ? ModelFile.read(request.model().get())
@@ -108,19 +109,40 @@ public final class CompileJob {
       options.put("layoutChoice", layout.describe());
     }
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
-        options, layout.options(), source, verification, scores, null);
+        options, layout.options(), source, verification, DebugSizes.noDebug(source), scores,
+        null);
     if (!verification.passed()) {
       return new CompileResult(tree, source, verification, scores, report, List.of());
+    }
+    List<Path> written = write(targets, request, tree, source, report, Optional.empty());
+    return new CompileResult(tree, source, verification, scores, report, written);
+  }
+
+  /**
+   * Writes the classifier, its report, the frontier chart of a budget search and the model if
+   * asked for to {@code targets}: all of them or, on failure, none.
+   *
+   * @return the files written, in order
+   * @throws OutputException if a file cannot be written; nothing was changed then
+   */
+  static List<Path> write(OutputTargets targets, CompileRequest request, DecisionTree tree,
+      EmittedSource source, CompileReport report, Optional<String> frontierSvg)
+      throws OutputException {
+    if (targets.frontier().isPresent() != frontierSvg.isPresent()) {
+      throw new IllegalArgumentException("a frontier chart goes with a budget search alone");
     }
     OutputFiles out = new OutputFiles();
     out.add(targets.source(), source.source());
     out.add(targets.report(), ReportJson.render(report));
     out.add(targets.tree(), TreeSvg.render(tree, request.emit().className()));
+    if (targets.frontier().isPresent()) {
+      out.add(targets.frontier().get(), frontierSvg.get());
+    }
     if (targets.model().isPresent()) {
       out.add(targets.model().get(), ModelFile.toJson(tree, optionsMap(request)));
     }
     out.commit();
-    return new CompileResult(tree, source, verification, scores, report, out.paths());
+    return out.paths();
   }
 
   /** The rows each part holds; validation and test may be empty. */

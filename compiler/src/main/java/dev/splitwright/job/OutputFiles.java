@@ -12,13 +12,19 @@ import java.nio.file.NoSuchFileException;
 import java.nio.file.NotDirectoryException;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
+import java.nio.file.attribute.PosixFileAttributeView;
+import java.nio.file.attribute.PosixFilePermission;
+import java.security.SecureRandom;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.Deque;
+import java.util.EnumSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Set;
 
 /**
  * Collects output files and writes them all or none. Each file is first written to a temporary
@@ -26,6 +32,9 @@ import java.util.Objects;
  * an existing target is copied aside; then every temporary file is moved into place. If anything
  * fails, moved files are put back from their copies, new ones deleted, temporary files and the
  * directories this commit created removed: previous outputs are unchanged and nothing is left.
+ *
+ * <p>A new file gets the permissions the process's umask gives any new file; a replaced file keeps
+ * the permissions it had, so that another user a later build stage runs as can still read it.
  */
 public final class OutputFiles {
   /** Moves a finished temporary file onto its target; a seam so tests can make a move fail. */
@@ -34,10 +43,17 @@ public final class OutputFiles {
     void move(Path temp, Path target) throws IOException;
   }
 
+  /** Writes one output's content into the (already created, empty) temporary file given. */
+  @FunctionalInterface
+  public interface Content {
+    void writeTo(Path temp) throws IOException;
+  }
+
   // Temporary and backup files end in this, and start with a dot so listings hide them.
   static final String TEMP_SUFFIX = ".tmp";
+  private static final SecureRandom RANDOM = new SecureRandom();
 
-  private final Map<Path, String> pending = new LinkedHashMap<>();
+  private final Map<Path, Content> pending = new LinkedHashMap<>();
   private final Mover mover;
 
   public OutputFiles() {
@@ -50,7 +66,16 @@ public final class OutputFiles {
 
   /** Queues {@code text} for {@code target}; a later call for the same path replaces it. */
   public void add(Path target, String text) {
-    pending.put(target.toAbsolutePath().normalize(), Objects.requireNonNull(text, "text"));
+    Objects.requireNonNull(text, "text");
+    add(target, temp -> Files.writeString(temp, text, StandardCharsets.UTF_8));
+  }
+
+  /**
+   * Queues {@code content}, which writes the file itself (to a temporary path, called during
+   * {@link #commit}); a later call for the same path replaces it.
+   */
+  public void add(Path target, Content content) {
+    pending.put(target.toAbsolutePath().normalize(), Objects.requireNonNull(content, "content"));
   }
 
   /** The queued paths, in the order they were added. */
@@ -80,7 +105,7 @@ public final class OutputFiles {
     List<Path> createdDirs = new ArrayList<>();
     Staged current = null;
     try {
-      for (Map.Entry<Path, String> e : pending.entrySet()) {
+      for (Map.Entry<Path, Content> e : pending.entrySet()) {
         current = new Staged(e.getKey());
         staged.add(current);
         if (Files.isDirectory(current.target)) {
@@ -88,9 +113,16 @@ public final class OutputFiles {
         }
         Path dir = current.target.getParent();
         createDirectories(dir, createdDirs);
-        current.temp = Files.createTempFile(dir, tempPrefix(current.target), TEMP_SUFFIX);
-        Files.writeString(current.temp, e.getValue(), StandardCharsets.UTF_8);
-        if (Files.exists(current.target)) {
+        current.temp = createTemp(dir, tempPrefix(current.target));
+        boolean replacing = Files.exists(current.target);
+        if (replacing) {
+          // Before the content goes in, so a private file's new text is never more readable;
+          // the owner may write meanwhile even if the old file is read-only.
+          keepPermissions(current.target, current.temp, true);
+        }
+        e.getValue().writeTo(current.temp);
+        if (replacing) {
+          keepPermissions(current.target, current.temp, false);
           current.backup = Files.createTempFile(dir, tempPrefix(current.target), TEMP_SUFFIX);
           Files.copy(current.target, current.backup, StandardCopyOption.REPLACE_EXISTING,
               StandardCopyOption.COPY_ATTRIBUTES);
@@ -170,6 +202,45 @@ public final class OutputFiles {
           throw new FileSystemException(p.toString(), null, "is a file, not a directory");
         }
       }
+    }
+  }
+
+  /**
+   * Creates an empty, unused file in {@code dir} the way any new file is created, so that it gets
+   * the umask's permissions ({@link Files#createTempFile} would make it owner-only, 0600).
+   */
+  private static Path createTemp(Path dir, String prefix) throws IOException {
+    for (int attempt = 0; ; attempt++) {
+      Path temp = dir.resolve(prefix + Long.toUnsignedString(RANDOM.nextLong(), 36) + TEMP_SUFFIX);
+      try {
+        Files.newOutputStream(temp, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE)
+            .close();
+        return temp;
+      } catch (FileAlreadyExistsException e) {
+        if (attempt >= 100) {
+          throw e;
+        }
+      }
+    }
+  }
+
+  /**
+   * Gives {@code temp} the permissions of the file it will replace, with {@code ownerWrites} also
+   * the owner's read and write.
+   */
+  private static void keepPermissions(Path target, Path temp, boolean ownerWrites)
+      throws IOException {
+    PosixFileAttributeView old =
+        Files.getFileAttributeView(target, PosixFileAttributeView.class);
+    PosixFileAttributeView fresh = Files.getFileAttributeView(temp, PosixFileAttributeView.class);
+    if (old != null && fresh != null) {
+      Set<PosixFilePermission> permissions = EnumSet.noneOf(PosixFilePermission.class);
+      permissions.addAll(old.readAttributes().permissions());
+      if (ownerWrites) {
+        permissions.add(PosixFilePermission.OWNER_READ);
+        permissions.add(PosixFilePermission.OWNER_WRITE);
+      }
+      fresh.setPermissions(permissions);
     }
   }
 

@@ -22,9 +22,16 @@ final class ReportBuilder {
 
   private ReportBuilder() {}
 
+  /**
+   * The report of a run.
+   *
+   * @param noDebugBytes the class file of {@code source} compiled with {@code -g:none}
+   * @param selection the budget search's section, or null without a budget
+   */
   static CompileReport build(String dataName, String sha256, DecisionTree tree,
       Map<String, Object> options, EmitOptions emit, EmittedSource source,
-      VerificationResult verification, Map<String, Scores> scores, Object selection) {
+      VerificationResult verification, int noDebugBytes, Map<String, Scores> scores,
+      Object selection) {
     Schema schema = tree.schema();
     Map<String, CompileReport.PartScores> parts = new LinkedHashMap<>();
     scores.forEach((part, s) -> parts.put(part, partScores(schema, s)));
@@ -35,7 +42,7 @@ final class ReportBuilder {
         schema.featureNames(), options, emit.layout().optionName(),
         emit.inputKind().optionName(), tree.depth(), tree.leafCount(), tree.internalNodeCount(),
         root(tree), source.sourceBytes(), verification.classFileBytes(),
-        verification.classFileBytesWithoutDebug(), verification.maxMethodBytes(),
+        noDebugBytes, verification.maxMethodBytes(),
         verification.methodByteCap(), verification.constantPoolCount(), methods, parts,
         new CompileReport.Verification(verification.passed(), verification.inputsChecked(),
             verification.mismatches(), verification.branchCoverage(),

@@ -10,12 +10,14 @@ import java.util.Map;
  * fixed so two runs on the same input give byte-identical files.
  *
  * @param scores "train", "validation" and "test" as present, in that order
+ * @param classFileBytes the class file javac writes with its default debug information
+ * @param classFileBytesNoDebug the same source compiled with {@code -g:none}
  * @param selection the budget search's record, absent when no budget was given
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 @JsonPropertyOrder({"tool", "data", "dataSha256", "target", "classes", "features", "options",
     "layout", "input", "depth", "leaves", "internalNodes", "root", "sourceBytes", "classFileBytes",
-    "classFileBytesWithoutDebug", "maxMethodBytecodeBytes", "methodByteCap", "constantPoolCount",
+    "classFileBytesNoDebug", "maxMethodBytecodeBytes", "methodByteCap", "constantPoolCount",
     "methods", "scores", "verification", "selection"})
 public record CompileReport(
     String tool,
@@ -33,7 +35,7 @@ public record CompileReport(
     RootSplit root,
     int sourceBytes,
     int classFileBytes,
-    int classFileBytesWithoutDebug,
+    int classFileBytesNoDebug,
     int maxMethodBytecodeBytes,
     int methodByteCap,
     int constantPoolCount,

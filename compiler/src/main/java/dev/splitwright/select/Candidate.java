@@ -11,11 +11,11 @@ import java.util.Objects;
  * @param score validation score, or the mean over folds with cross-validation
  * @param layout the layout measured (the smallest in the budget's unit with {@code smallest})
  */
-public record Candidate(int index, Setting setting, DecisionTree tree, double score,
+public record Candidate(int index, CandidateRecipe recipe, DecisionTree tree, double score,
     Sizes sizes, Layout layout) {
 
   public Candidate {
-    Objects.requireNonNull(setting, "setting");
+    Objects.requireNonNull(recipe, "recipe");
     Objects.requireNonNull(tree, "tree");
     if (!(score >= 0 && score <= 1)) {
       throw new IllegalArgumentException("score must be in [0, 1], but it is " + score);

@@ -18,7 +18,7 @@ final class CandidateGenerator {
   private CandidateGenerator() {}
 
   /** Settings tried and the distinct trees they gave. */
-  record Result(int settingsTried, List<Generated> trees) {
+  record Result(int settingsTried, List<DistinctTree> trees) {
     Result {
       trees = List.copyOf(trees);
     }
@@ -27,7 +27,7 @@ final class CandidateGenerator {
   static Result generate(Dataset fitData, SearchSettings settings, SearchProgress progress) {
     Grower grower = new Grower(fitData, settings);
     double[] weights = grower.weights();
-    Map<DecisionTree, Generated> distinct = new LinkedHashMap<>();
+    Map<DecisionTree, DistinctTree> distinct = new LinkedHashMap<>();
     int tried = 0;
     int grids = settings.maxDepth() * settings.minLeafs().size();
     int grown = 0;
@@ -36,10 +36,10 @@ final class CandidateGenerator {
         List<PrunedTree> path = PruningPath.of(grower.grow(depth, minLeaf), weights);
         for (int k = 0; k < path.size(); k++) {
           double next = k + 1 < path.size() ? path.get(k + 1).alpha() : Double.POSITIVE_INFINITY;
-          Setting setting = new Setting(depth, minLeaf, path.get(k).alpha(), next);
+          CandidateRecipe recipe = new CandidateRecipe(depth, minLeaf, path.get(k).alpha(), next);
           DecisionTree tree = path.get(k).tree();
           if (!distinct.containsKey(tree)) {
-            distinct.put(tree, new Generated(distinct.size(), setting, tree));
+            distinct.put(tree, new DistinctTree(distinct.size(), recipe, tree));
           }
           tried++;
         }
@@ -49,10 +49,10 @@ final class CandidateGenerator {
     return new Result(tried, new ArrayList<>(distinct.values()));
   }
 
-  /** Refits {@code setting} on {@code data}: grows with its limits, prunes at its alpha. */
-  static DecisionTree refit(Dataset data, SearchSettings settings, Setting setting) {
+  /** Refits {@code recipe} on {@code data}: grows with its limits, prunes at its alpha. */
+  static DecisionTree refit(Dataset data, SearchSettings settings, CandidateRecipe recipe) {
     Grower grower = new Grower(data, settings);
-    return PruningPath.prune(grower.grow(setting.maxDepth(), setting.minLeaf()),
-        grower.weights(), setting.representativeAlpha());
+    return PruningPath.prune(grower.grow(recipe.maxDepth(), recipe.minLeaf()),
+        grower.weights(), recipe.representativeAlpha());
   }
 }

@@ -21,7 +21,7 @@ final class CandidateScorer {
   private CandidateScorer() {}
 
   /** The metric of each candidate's own tree on {@code validation}, in candidate order. */
-  static double[] onValidation(List<Generated> candidates, Dataset validation,
+  static double[] onValidation(List<DistinctTree> candidates, Dataset validation,
       SearchSettings settings) {
     double[] scores = new double[candidates.size()];
     for (int i = 0; i < scores.length; i++) {
@@ -33,13 +33,13 @@ final class CandidateScorer {
   /**
    * The mean over k stratified folds of {@code pool} of the metric of each candidate's settings
    * refitted on the fold's training rows: grown with the candidate's depth and leaf-size limits,
-   * pruned at its {@link Setting#representativeAlpha()}, scored on the held-out rows.
+   * pruned at its {@link CandidateRecipe#representativeAlpha()}, scored on the held-out rows.
    */
-  static double[] crossValidated(List<Generated> candidates, Dataset pool,
+  static double[] crossValidated(List<DistinctTree> candidates, Dataset pool,
       SearchSettings settings, SearchProgress progress) {
     Map<List<Integer>, List<Integer>> byLimits = new LinkedHashMap<>();
     for (int i = 0; i < candidates.size(); i++) {
-      Setting s = candidates.get(i).setting();
+      CandidateRecipe s = candidates.get(i).recipe();
       byLimits.computeIfAbsent(List.of(s.maxDepth(), s.minLeaf()), key -> new ArrayList<>())
           .add(i);
     }
@@ -56,7 +56,7 @@ final class CandidateScorer {
         List<PrunedTree> path = PruningPath.of(full, weights);
         Map<DecisionTree, Double> scored = new HashMap<>();
         for (int i : e.getValue()) {
-          DecisionTree pruned = at(path, candidates.get(i).setting().representativeAlpha());
+          DecisionTree pruned = at(path, candidates.get(i).recipe().representativeAlpha());
           sums[i] += scored.computeIfAbsent(pruned,
               t -> Evaluator.score(t, held).get(settings.metric()));
         }

@@ -14,7 +14,7 @@ import java.util.Objects;
  * Measures emitted sources by compiling them, many per javac run: each run costs a fixed 20 ms or
  * so with {@code --release 17} and about a millisecond per small class (see {@link
  * InMemoryCompiler}), so batches of a hundred make the fixed cost negligible. Sources are renamed
- * by {@link Aliases} to share a run; should a batch fail to compile anyway, its sources are
+ * by {@link BatchRenamer} to share a run; should a batch fail to compile anyway, its sources are
  * compiled one by one under their own names.
  */
 final class SizeMeter {
@@ -45,8 +45,8 @@ final class SizeMeter {
     if (sources.isEmpty()) {
       return sizes;
     }
-    Aliases aliases = new Aliases(sources.get(0).qualifiedName());
-    int limit = Math.min(BATCH_SOURCES, aliases.capacity());
+    BatchRenamer renamer = new BatchRenamer(sources.get(0).qualifiedName());
+    int limit = Math.min(BATCH_SOURCES, renamer.capacity());
     int start = 0;
     while (start < sources.size()) {
       int end = start;
@@ -56,16 +56,16 @@ final class SizeMeter {
         chars += sources.get(end).source().length();
         end++;
       }
-      sizes.addAll(measureBatch(sources.subList(start, end), aliases));
+      sizes.addAll(measureBatch(sources.subList(start, end), renamer));
       start = end;
     }
     return sizes;
   }
 
-  private List<Sizes> measureBatch(List<EmittedSource> batch, Aliases aliases) {
+  private List<Sizes> measureBatch(List<EmittedSource> batch, BatchRenamer renamer) {
     List<SourceFile> files = new ArrayList<>(batch.size());
     for (int i = 0; i < batch.size(); i++) {
-      files.add(aliases.alias(batch.get(i), i));
+      files.add(renamer.alias(batch.get(i), i));
     }
     CompiledClasses classes;
     try {
@@ -108,7 +108,6 @@ final class SizeMeter {
   /** Adds up the class {@code binaryName} and its nested classes. */
   static Sizes sizesOf(CompiledClasses classes, String binaryName, int sourceBytes) {
     int bytes = 0;
-    int debug = 0;
     int code = 0;
     int largest = 0;
     for (String name : classes.names()) {
@@ -116,7 +115,6 @@ final class SizeMeter {
         byte[] file = classes.bytes(name);
         ClassFileInfo info = ClassFileInfo.parse(file);
         bytes += file.length;
-        debug += info.debugAttributeBytes();
         code += info.totalCodeLength();
         largest = Math.max(largest, info.maxCodeLength());
       }
@@ -124,6 +122,6 @@ final class SizeMeter {
     if (bytes == 0) {
       throw new IllegalStateException("no class " + binaryName + " in " + classes);
     }
-    return new Sizes(bytes, bytes - debug, code, sourceBytes, largest);
+    return new Sizes(bytes, code, sourceBytes, largest);
   }
 }

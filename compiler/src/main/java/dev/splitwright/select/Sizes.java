@@ -5,19 +5,17 @@ package dev.splitwright.select;
  * declares.
  *
  * @param classFileBytes what javac writes with its default debug information
- * @param classFileBytesWithoutDebug the same less the attributes {@code -g:none} leaves out
  * @param bytecodeBytes the sum of all methods' code lengths
  * @param sourceBytes UTF-8 bytes of the source
  * @param maxMethodBytes the largest method's code length
  */
-public record Sizes(int classFileBytes, int classFileBytesWithoutDebug, int bytecodeBytes,
-    int sourceBytes, int maxMethodBytes) {
+public record Sizes(int classFileBytes, int bytecodeBytes, int sourceBytes,
+    int maxMethodBytes) {
 
   public Sizes {
-    if (classFileBytes <= 0 || classFileBytesWithoutDebug <= 0 || bytecodeBytes < 0
-        || sourceBytes <= 0 || maxMethodBytes < 0) {
+    if (classFileBytes <= 0 || bytecodeBytes < 0 || sourceBytes <= 0 || maxMethodBytes < 0) {
       throw new IllegalArgumentException("sizes must be positive: " + classFileBytes + ", "
-          + classFileBytesWithoutDebug + ", " + bytecodeBytes + ", " + sourceBytes);
+          + bytecodeBytes + ", " + sourceBytes + ", " + maxMethodBytes);
     }
   }
 

@@ -19,7 +19,6 @@ public record VerificationResult(
     int splits,
     int coveredSplits,
     int classFileBytes,
-    int debugAttributeBytes,
     int maxMethodBytes,
     int methodByteCap,
     List<MethodSize> methods,
@@ -35,11 +34,6 @@ public record VerificationResult(
   /** Splits taken both ways over all splits; 1.0 for a single leaf. */
   public double branchCoverage() {
     return splits == 0 ? 1.0 : (double) coveredSplits / splits;
-  }
-
-  /** The bytes of the class file without line numbers and source name, as {@code -g:none} makes. */
-  public int classFileBytesWithoutDebug() {
-    return classFileBytes - debugAttributeBytes;
   }
 
   /**

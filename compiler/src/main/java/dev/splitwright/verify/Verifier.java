@@ -129,9 +129,8 @@ public final class Verifier {
         .filter(name -> !name.equals(self) && !isJavaLang(name))
         .toList();
     return new VerificationResult(inputsChecked, tally.mismatches, tally.first,
-        coverage.splits(), coverage.covered(), bytes.length, info.debugAttributeBytes(),
-        largestPerCallMethod(info), options.maxMethodBytes(), info.methods(),
-        info.constantPoolCount(), foreign);
+        coverage.splits(), coverage.covered(), bytes.length, largestPerCallMethod(info),
+        options.maxMethodBytes(), info.methods(), info.constantPoolCount(), foreign);
   }
 
   /**

@@ -144,6 +144,43 @@ class BudgetCommandTest {
         .isEqualTo(selection.get("chosen").get("validationScore").asDouble());
   }
 
+  @ParameterizedTest(name = "budget \"{0}\"")
+  @ValueSource(strings = {"", "2KiB"})
+  void everyNoDebugFigureIsTheWrittenSourceCompiledWithGNone(String budget, @TempDir Path dir)
+      throws IOException {
+    Path out = dir.resolve("out");
+    List<String> args = new ArrayList<>(List.of("compile", "--data",
+        "../generated-samples/data/pump-vibration.csv", "--target", "state", "--package",
+        "demo.size", "--class", "Pump", "--out", out.toString()));
+    if (!budget.isEmpty()) {
+      args.addAll(List.of("--budget", budget));
+    }
+    Run run = run(args.toArray(new String[0]));
+    assertThat(run.exit()).as(run.err()).isZero();
+
+    // Outside reference: the JDK's own javac run on the file written, with -g:none (no
+    // LineNumberTable, LocalVariableTable or SourceFile attributes; javac documentation).
+    Path source = out.resolve("demo/size/Pump.java");
+    int javacNoDebug = classFileOnDisk(source, dir.resolve("none"), "-g:none");
+    int javacDefault = classFileOnDisk(source, dir.resolve("default"));
+    Matcher summary = Pattern.compile("class file (\\d+) bytes \\((\\d+) without debug info\\)")
+        .matcher(run.out());
+    assertThat(summary.find()).as(run.out()).isTrue();
+    JsonNode report = JSON.readTree(out.resolve("Pump.report.json").toFile());
+    assertThat(Integer.parseInt(summary.group(1))).isEqualTo(javacDefault)
+        .isEqualTo(report.get("classFileBytes").asInt());
+    assertThat(Integer.parseInt(summary.group(2))).isEqualTo(javacNoDebug)
+        .isEqualTo(report.get("classFileBytesNoDebug").asInt());
+    assertThat(report.has("classFileBytesWithoutDebug")).isFalse();
+    if (!budget.isEmpty()) {
+      Matcher line = Pattern.compile("weighs (\\d+) bytes with javac -g:none").matcher(run.out());
+      assertThat(line.find()).as(run.out()).isTrue();
+      assertThat(Integer.parseInt(line.group(1))).isEqualTo(javacNoDebug);
+      assertThat(report.get("selection").get("chosen").get("classFileBytesNoDebug").asInt())
+          .isEqualTo(javacNoDebug);
+    }
+  }
+
   @Test
   void reportsFrontierAndChoiceOnTheDemo(@TempDir Path dir) throws IOException {
     Run run = run("compile", "--data", CompileCommandTest.PUMP.toString(), "--target",
@@ -222,10 +259,13 @@ class BudgetCommandTest {
   }
 
   /** Compiles {@code source} with the system javac as a user's build would; returns the size. */
-  static int classFileOnDisk(Path source, Path out) throws IOException {
+  static int classFileOnDisk(Path source, Path out, String... flags) throws IOException {
     Files.createDirectories(out);
-    int status = ToolProvider.getSystemJavaCompiler().run(null, null, null, "--release", "17",
-        "-encoding", "UTF-8", "-d", out.toString(), source.toString());
+    List<String> args = new ArrayList<>(List.of("--release", "17", "-encoding", "UTF-8"));
+    args.addAll(List.of(flags));
+    args.addAll(List.of("-d", out.toString(), source.toString()));
+    int status = ToolProvider.getSystemJavaCompiler().run(null, null, null,
+        args.toArray(new String[0]));
     assertThat(status).isZero();
     String name = source.getFileName().toString().replace(".java", ".class");
     try (Stream<Path> files = Files.walk(out)) {

@@ -2,15 +2,22 @@ package dev.splitwright.job;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.attribute.PosixFileAttributeView;
+import java.nio.file.attribute.PosixFilePermission;
+import java.nio.file.attribute.PosixFilePermissions;
 import java.util.Map;
+import java.util.Set;
 import java.util.concurrent.atomic.AtomicInteger;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
 
 /** All or nothing: whichever step fails, the directory ends exactly as it started. */
 class OutputFilesTest {
@@ -134,5 +141,55 @@ class OutputFilesTest {
     files.commit();
 
     assertThat(Files.readString(dir.resolve(name))).isEqualTo("long");
+  }
+
+  @Test
+  void aNewFileGetsThePermissionsTheUmaskGives() throws IOException {
+    assumeTrue(posix(), "POSIX permissions");
+    // Outside reference: a file the JVM creates the ordinary way gets 0666 less the process's
+    // umask (POSIX open(2) with O_CREAT); an output must get the same, not owner-only 0600.
+    Path reference = Files.createFile(dir.resolve("reference.txt"));
+    OutputFiles files = new OutputFiles();
+    files.add(dir.resolve("new.txt"), "new");
+    files.add(dir.resolve("sub/new.txt"), "new in a new directory");
+
+    files.commit();
+
+    assertThat(Files.getPosixFilePermissions(dir.resolve("new.txt")))
+        .isEqualTo(Files.getPosixFilePermissions(reference));
+    assertThat(Files.getPosixFilePermissions(dir.resolve("sub/new.txt")))
+        .isEqualTo(Files.getPosixFilePermissions(reference));
+  }
+
+  @ParameterizedTest
+  @ValueSource(strings = {"rw-r-----", "rwxr-xr-x", "rw-rw-rw-", "r--r--r--"})
+  void aReplacedFileKeepsItsPermissions(String mode) throws IOException {
+    assumeTrue(posix(), "POSIX permissions");
+    Path target = dir.resolve("out.txt");
+    Files.writeString(target, "old");
+    Set<PosixFilePermission> before = PosixFilePermissions.fromString(mode);
+    Files.setPosixFilePermissions(target, before);
+    OutputFiles files = new OutputFiles();
+    files.add(target, "new");
+
+    files.commit();
+
+    assertThat(Files.readString(target)).isEqualTo("new");
+    assertThat(Files.getPosixFilePermissions(target)).isEqualTo(before);
+  }
+
+  @Test
+  void contentCanBeWrittenByItsOwnWriter() throws IOException {
+    Files.writeString(dir.resolve("data.csv"), "old");
+    OutputFiles files = new OutputFiles();
+    files.add(dir.resolve("data.csv"), temp -> Files.writeString(temp, "a,b\n1,2\n"));
+
+    files.commit();
+
+    assertThat(AtomicOutputTest.snapshot(dir)).isEqualTo(Map.of("data.csv", "a,b\n1,2\n"));
+  }
+
+  private boolean posix() throws IOException {
+    return Files.getFileStore(dir).supportsFileAttributeView(PosixFileAttributeView.class);
   }
 }

@@ -39,7 +39,7 @@ class BudgetSelectionTest {
   static void setUp() throws InputException {
     verifier = Verifier.create();
     pump = TestData.split(TestData.pump());
-    data = new BudgetSelection.Data("pump-vibration.csv", pump.train(), pump.validation(),
+    data = new BudgetSelection.Data(pump.train(), pump.validation(),
         List.of(pump.train(), pump.validation(), pump.test()), 1);
   }
 
@@ -52,6 +52,11 @@ class BudgetSelectionTest {
     return new BudgetSelection(settings, EMIT, verifier, SearchProgress.none());
   }
 
+  private static CandidateSearch.Result search(SearchSettings settings) throws InputException {
+    return new CandidateSearch(settings, EMIT, SearchProgress.none())
+        .run(data, HeaderInfo.none(), new SizeMeter(verifier.compiler()));
+  }
+
   private static BudgetSelection.Outcome run(SearchSettings settings) throws InputException {
     return selection(settings).run(data, HeaderInfo.none(), tree -> HeaderInfo.none());
   }
@@ -59,15 +64,14 @@ class BudgetSelectionTest {
   @Test
   void frontierHasNoDominatedCandidateAndHoldsTheChoice() throws InputException {
     SearchSettings settings = SearchSettings.builder(1700).maxDepth(6).build();
-    BudgetSelection.Search search =
-        selection(settings).search(data, HeaderInfo.none(), new SizeMeter(verifier.compiler()));
+    CandidateSearch.Result search = search(settings);
 
     for (Candidate p : search.frontier()) {
       for (Candidate q : search.candidates()) {
         boolean dominates = q.size(settings.unit()) <= p.size(settings.unit())
             && q.score() >= p.score()
             && (q.size(settings.unit()) < p.size(settings.unit()) || q.score() > p.score());
-        assertThat(dominates).as("%s dominates %s", q.setting(), p.setting()).isFalse();
+        assertThat(dominates).as("%s dominates %s", q.recipe(), p.recipe()).isFalse();
       }
     }
     Candidate chosen = search.ranked().get(0);
@@ -109,7 +113,8 @@ class BudgetSelectionTest {
     BudgetSelection.Outcome second = run(settings);
 
     assertThat(ReportJson.render(second.report())).isEqualTo(ReportJson.render(first.report()));
-    assertThat(second.frontierSvg()).isEqualTo(first.frontierSvg());
+    assertThat(second.candidates()).isEqualTo(first.candidates());
+    assertThat(second.frontier()).isEqualTo(first.frontier());
     assertThat(second.source().source()).isEqualTo(first.source().source());
   }
 
@@ -135,10 +140,9 @@ class BudgetSelectionTest {
   void crossValidationScoresEachSettingRefittedPerFold() throws InputException {
     SearchSettings settings = SearchSettings.builder(1700).maxDepth(4).minLeafs(List.of(1, 10))
         .folds(4).seed(3).build();
-    BudgetSelection.Search search =
-        selection(settings).search(data, HeaderInfo.none(), new SizeMeter(verifier.compiler()));
+    CandidateSearch.Result search = search(settings);
 
-    // Recomputed directly: for each fold, grow with the setting's limits on the fold's training
+    // Recomputed directly: for each fold, grow with the recipe's limits on the fold's training
     // rows, prune at the geometric mean of its alpha interval, score the held-out rows; average.
     Dataset pool = pump.train().concat(pump.validation());
     List<Fold> folds = StratifiedSplit.kFold(pool, 4, 3);
@@ -147,12 +151,12 @@ class BudgetSelectionTest {
       for (Fold fold : folds) {
         Dataset train = fold.train();
         DecisionTree grown = CartTrainer.train(train, TrainingOptions.builder()
-            .maxDepth(c.setting().maxDepth()).minLeaf(c.setting().minLeaf()).build());
+            .maxDepth(c.recipe().maxDepth()).minLeaf(c.recipe().minLeaf()).build());
         DecisionTree pruned = PruningPath.prune(grown, ClassWeights.none().resolve(train),
-            c.setting().representativeAlpha());
+            c.recipe().representativeAlpha());
         sum += Evaluator.score(pruned, fold.validation()).balancedAccuracy();
       }
-      assertThat(c.score()).as("%s", c.setting()).isCloseTo(sum / 4, within(1e-12));
+      assertThat(c.score()).as("%s", c.recipe()).isCloseTo(sum / 4, within(1e-12));
     }
   }
 
@@ -160,8 +164,7 @@ class BudgetSelectionTest {
   void refitOnTrainAndValidationStaysWithinTheBudget() throws InputException {
     SearchSettings probe = SearchSettings.builder(4096).maxDepth(6).build();
     List<Integer> budgets = new ArrayList<>();
-    for (Candidate c : selection(probe).search(data, HeaderInfo.none(),
-        new SizeMeter(verifier.compiler())).frontier()) {
+    for (Candidate c : search(probe).frontier()) {
       budgets.add(c.size(BudgetUnit.CLASS));
     }
     int fallbacks = 0;
@@ -213,8 +216,7 @@ class BudgetSelectionTest {
 
   @Test
   void needsValidationRowsWithoutFolds() {
-    BudgetSelection.Data noValidation = new BudgetSelection.Data("pump-vibration.csv",
-        pump.train(), pump.validation().subset(new int[0]), List.of(pump.train()), 1);
+    BudgetSelection.Data noValidation = new BudgetSelection.Data(pump.train(), pump.validation().subset(new int[0]), List.of(pump.train()), 1);
     assertThatThrownBy(() -> selection(SearchSettings.builder(4096).build())
         .run(noValidation, HeaderInfo.none(), tree -> HeaderInfo.none()))
         .isInstanceOf(InputException.class)

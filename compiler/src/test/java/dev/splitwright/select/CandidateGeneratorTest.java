@@ -44,13 +44,13 @@ class CandidateGeneratorTest {
     CandidateGenerator.Result result =
         CandidateGenerator.generate(handTable(), settings, SearchProgress.none());
 
-    List<Generated> trees = result.trees();
+    List<DistinctTree> trees = result.trees();
     assertThat(trees).extracting(g -> g.tree().leafCount()).containsExactly(2, 1, 4);
     // First met at depth limit 1 (its path: the root split at 0, the leaf at 5/13), then the full
     // tree at depth limit 3 (its path starts at 0 and is next pruned at 1/26).
-    assertSetting(trees.get(0).setting(), 1, 1, 0, 5.0 / 13);
-    assertSetting(trees.get(1).setting(), 1, 1, 5.0 / 13, Double.POSITIVE_INFINITY);
-    assertSetting(trees.get(2).setting(), 3, 1, 0, 1.0 / 26);
+    assertRecipe(trees.get(0).recipe(), 1, 1, 0, 5.0 / 13);
+    assertRecipe(trees.get(1).recipe(), 1, 1, 5.0 / 13, Double.POSITIVE_INFINITY);
+    assertRecipe(trees.get(2).recipe(), 3, 1, 0, 1.0 / 26);
     assertThat(predictions(trees.get(2).tree())).isEqualTo("AAAAABBBABBBB");
     assertThat(predictions(trees.get(0).tree())).isEqualTo("AAAAABBBBBBBB");
     assertThat(predictions(trees.get(1).tree())).isEqualTo("BBBBBBBBBBBBB");
@@ -64,11 +64,11 @@ class CandidateGeneratorTest {
   @Test
   void keepsEveryTreeOnce() throws InputException {
     Dataset train = TestData.split(TestData.pump()).train();
-    List<Generated> trees = CandidateGenerator.generate(train,
+    List<DistinctTree> trees = CandidateGenerator.generate(train,
         SearchSettings.builder(1000).maxDepth(6).build(), SearchProgress.none()).trees();
 
-    assertThat(new HashSet<>(trees.stream().map(Generated::tree).toList())).hasSameSizeAs(trees);
-    assertThat(trees).extracting(Generated::index)
+    assertThat(new HashSet<>(trees.stream().map(DistinctTree::tree).toList())).hasSameSizeAs(trees);
+    assertThat(trees).extracting(DistinctTree::index)
         .isEqualTo(java.util.stream.IntStream.range(0, trees.size()).boxed().toList());
   }
 
@@ -77,7 +77,7 @@ class CandidateGeneratorTest {
     Dataset train = TestData.split(TestData.pump()).train();
     SearchSettings settings = SearchSettings.builder(1000).maxDepth(5).build();
     List<DecisionTree> trees = CandidateGenerator.generate(train, settings, SearchProgress.none())
-        .trees().stream().map(Generated::tree).toList();
+        .trees().stream().map(DistinctTree::tree).toList();
 
     // Each tree the trainer grows for a grid point, pruned of splits that do not lower the
     // training cost (the first entry of its pruning path), is a candidate.
@@ -92,7 +92,7 @@ class CandidateGeneratorTest {
     }
   }
 
-  private static void assertSetting(Setting s, int depth, int minLeaf, double alpha,
+  private static void assertRecipe(CandidateRecipe s, int depth, int minLeaf, double alpha,
       double next) {
     assertThat(s.maxDepth()).isEqualTo(depth);
     assertThat(s.minLeaf()).isEqualTo(minLeaf);

@@ -23,7 +23,7 @@ import org.junit.jupiter.params.provider.CsvSource;
 
 class SizeMeterTest {
   private static InMemoryCompiler compiler;
-  private static List<Generated> candidates;
+  private static List<DistinctTree> candidates;
 
   @BeforeAll
   static void setUp() throws Exception {

@@ -1,6 +1,5 @@
 package dev.splitwright.train;
 
-
 import dev.splitwright.data.Dataset;
 import dev.splitwright.model.DecisionTree;
 import java.io.InputStream;

@@ -41,7 +41,7 @@ import org.junit.jupiter.api.io.TempDir;
  * unless {@code -XX:-DontCompileHugeMethods} is given, while the split depth-14 tree is compiled
  * method by method and the same kind of tree as one big method is not.
  */
-class HotSpotJitTest {
+public class HotSpotJitTest {
   private static final InMemoryCompiler JAVAC = InMemoryCompiler.create(Verifier.JAVAC_OPTIONS);
   private static final Pattern COMPILED = Pattern.compile("\\s(\\S+)::(\\S+) \\(\\d+ bytes\\)");
   private static final int DEPTH = 14;
@@ -116,12 +116,11 @@ class HotSpotJitTest {
         .check(deep, classes, tableSource, tableOptions, List.of(), 14);
     assertThat(table.passed()).as(table.verdict()).isTrue();
     assertThat(table.classFileBytes()).isLessThan(verified.classFileBytes());
-    System.out.printf(Locale.ROOT, "depth-14 tree: branches %d bytes (%d without debug), %d "
-        + "methods, largest %d bytes, %d constants; table %d bytes (%d without debug), largest "
-        + "%d bytes, static initializer %d bytes, %d constants%n",
-        verified.classFileBytes(), verified.classFileBytesWithoutDebug(), methods.size(),
-        verified.maxMethodBytes(), verified.constantPoolCount(), table.classFileBytes(),
-        table.classFileBytesWithoutDebug(), table.maxMethodBytes(),
+    System.out.printf(Locale.ROOT, "depth-14 tree: branches %d bytes, %d methods, largest %d "
+        + "bytes, %d constants; table %d bytes, largest %d bytes, static initializer %d bytes, "
+        + "%d constants%n",
+        verified.classFileBytes(), methods.size(), verified.maxMethodBytes(),
+        verified.constantPoolCount(), table.classFileBytes(), table.maxMethodBytes(),
         codeLength(classes, "jit.DeepTable", "<clinit>"), table.constantPoolCount());
 
     TreeSet<String> compiled = compiledMethods(write(classes), "jit.Driver", List.of());
@@ -135,7 +134,7 @@ class HotSpotJitTest {
    * A full tree testing feature {@code level} at each level, so every leaf is reachable and the
    * driver's uniform inputs reach every subtree; thresholds differ a little around 0.
    */
-  static DecisionTree levelTree(int depth, long seed) {
+  public static DecisionTree levelTree(int depth, long seed) {
     List<Feature> features = new ArrayList<>();
     for (int f = 0; f < FEATURES; f++) {
       features.add(Feature.numeric("f" + f));

@@ -15,7 +15,7 @@ import java.util.regex.Pattern;
  * takes bytes there; every length, and so the class file's size, stays the same. The alias starts
  * with an upper-case letter, which neither a Java keyword nor a JDK package does.
  */
-final class Aliases {
+final class BatchRenamer {
   private static final String DIGITS =
       "0123456789ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz";
   private static final String LETTERS = "ABCDEFGHIJKLMNOPQRSTUVWXYZ";
@@ -26,13 +26,13 @@ final class Aliases {
   private final String packageName;
   private final String className;
 
-  Aliases(String qualifiedName) {
+  BatchRenamer(String qualifiedName) {
     int dot = qualifiedName.lastIndexOf('.');
     this.packageName = dot < 0 ? "" : qualifiedName.substring(0, dot);
     this.className = dot < 0 ? qualifiedName : qualifiedName.substring(dot + 1);
   }
 
-  /** How many distinct aliases there are: enough for any batch unless the name is very short. */
+  /** How many distinct renamer there are: enough for any batch unless the name is very short. */
   int capacity() {
     int length = byteLength();
     if (length == 1) {

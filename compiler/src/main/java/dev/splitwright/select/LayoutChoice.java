@@ -1,4 +1,4 @@
-package dev.splitwright.verify;
+package dev.splitwright.select;
 
 import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.emit.EmitOptions;

@@ -1,4 +1,4 @@
-package dev.splitwright.verify;
+package dev.splitwright.select;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
@@ -11,6 +11,8 @@ import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.emit.RandomTrees;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.verify.HotSpotJitTest;
+import dev.splitwright.verify.Verifier;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 

@@ -3,13 +3,14 @@ package dev.splitwright.select;
 import java.util.Locale;
 
 /**
- * Training settings that reproduce one candidate: grow with {@code maxDepth} and {@code minLeaf},
- * then prune by cost complexity. The candidate is the pruning-path subtree for every alpha in
- * {@code [alpha, nextAlpha)}; {@code nextAlpha} is infinite for the single leaf that ends the path.
+ * How to reproduce one candidate (as opposed to {@link SearchSettings}, which say what the whole
+ * search sweeps): grow with {@code maxDepth} and {@code minLeaf}, then prune by cost complexity.
+ * The candidate is the pruning-path subtree for every alpha in {@code [alpha, nextAlpha)}; {@code
+ * nextAlpha} is infinite for the single leaf that ends the path.
  */
-public record Setting(int maxDepth, int minLeaf, double alpha, double nextAlpha) {
+public record CandidateRecipe(int maxDepth, int minLeaf, double alpha, double nextAlpha) {
 
-  public Setting {
+  public CandidateRecipe {
     if (maxDepth < 1 || minLeaf < 1) {
       throw new IllegalArgumentException(
           "maxDepth and minLeaf must be positive: " + maxDepth + ", " + minLeaf);

@@ -1,0 +1,31 @@
+package dev.splitwright.job;
+
+import dev.splitwright.report.FrontierSvg;
+import dev.splitwright.select.BudgetSelection;
+import dev.splitwright.select.SearchSettings;
+import java.util.List;
+
+/** Labels and points of the frontier chart of a budget search. */
+final class FrontierChartBuilder {
+  private FrontierChartBuilder() {}
+
+  /** The chart of {@code outcome}, searched with {@code settings} on the data named {@code name}. */
+  static FrontierSvg.Chart build(String name, SearchSettings settings,
+      BudgetSelection.Outcome outcome) {
+    String metric = settings.metric().optionName().replace('-', ' ');
+    String scored = settings.folds() == 0 ? "validation " + metric
+        : metric + ", mean of " + settings.folds() + " folds";
+    String xLabel = switch (settings.unit()) {
+      case CLASS -> "class file size (bytes; javac --release 17, default debug info)";
+      case BYTECODE -> "bytecode size (bytes, sum of method code lengths)";
+      case SOURCE -> "source size (bytes, UTF-8)";
+    };
+    List<FrontierSvg.Dot> all = outcome.candidates().stream()
+        .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();
+    List<FrontierSvg.Dot> frontier = outcome.frontier().stream()
+        .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();
+    return new FrontierSvg.Chart(name, scored + " vs " + settings.unit().description(),
+        xLabel, scored, settings.budget(), all, frontier,
+        new FrontierSvg.Dot(outcome.chosenSize(), outcome.chosen().score()));
+  }
+}

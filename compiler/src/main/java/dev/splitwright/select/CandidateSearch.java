@@ -1,0 +1,124 @@
+package dev.splitwright.select;
+
+import dev.splitwright.data.Dataset;
+import dev.splitwright.data.InputException;
+import dev.splitwright.emit.EmitOptions;
+import dev.splitwright.emit.EmittedSource;
+import dev.splitwright.emit.HeaderInfo;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+import java.util.Objects;
+
+/**
+ * The search part of a budget selection: generates the candidates, scores them, measures each one
+ * compiled and ranks those within the budget. Test rows are never looked at.
+ */
+final class CandidateSearch {
+  private final SearchSettings settings;
+  private final EmitOptions emit;
+  private final SearchProgress progress;
+  private final CandidateEmitter emitter;
+
+  CandidateSearch(SearchSettings settings, EmitOptions emit, SearchProgress progress) {
+    this.settings = Objects.requireNonNull(settings, "settings");
+    this.emit = Objects.requireNonNull(emit, "emit");
+    this.progress = Objects.requireNonNull(progress, "progress");
+    this.emitter = CandidateEmitter.of(emit);
+  }
+
+  /** Every candidate scored and measured, the ones within the budget ranked, and the frontier. */
+  record Result(int settingsTried, List<Candidate> candidates, List<Candidate> ranked,
+      List<Candidate> frontier) {
+
+    Result {
+      candidates = List.copyOf(candidates);
+      ranked = List.copyOf(ranked);
+      frontier = List.copyOf(frontier);
+    }
+  }
+
+  /**
+   * Generates, scores and measures the candidates and ranks those within the budget.
+   *
+   * @throws InputException if there are no rows to score on, the folds do not fit the rows, or
+   *     not even the smallest candidate fits the budget
+   */
+  Result run(BudgetSelection.Data data, HeaderInfo candidateHeader, SizeMeter meter)
+      throws InputException {
+    Dataset pool = data.train().concat(data.validation());
+    if (settings.folds() == 0 && data.validation().rows() == 0) {
+      throw new InputException("budget", "the split leaves no validation rows to choose a "
+          + "candidate by", "give --split a validation fraction, e.g. 0.6,0.2,0.2, or use --folds");
+    }
+    if (settings.folds() > pool.rows()) {
+      throw new InputException("folds", settings.folds() + " folds need at least as many rows, "
+          + "but train and validation hold " + pool.rows(), "use fewer folds");
+    }
+    Dataset fitRows = settings.folds() > 0 && settings.refitAll() ? pool : data.train();
+    CandidateGenerator.Result generated =
+        CandidateGenerator.generate(fitRows, settings, progress);
+    List<DistinctTree> trees = generated.trees();
+    double[] scores = settings.folds() == 0
+        ? CandidateScorer.onValidation(trees, data.validation(), settings)
+        : CandidateScorer.crossValidated(trees, pool, settings, progress);
+    List<Candidate> candidates = measure(trees, scores, candidateHeader, meter);
+    List<Candidate> usable = candidates.stream()
+        .filter(c -> c.sizes().maxMethodBytes() <= emit.maxMethodBytes())
+        .toList();
+    List<Candidate> ranked = Ranking.withinBudget(usable, settings.unit(), settings.budget());
+    if (ranked.isEmpty()) {
+      throw tooSmall(usable.isEmpty() ? candidates : usable);
+    }
+    return new Result(generated.settingsTried(), candidates, ranked,
+        Ranking.frontier(usable, settings.unit()));
+  }
+
+  private List<Candidate> measure(List<DistinctTree> trees, double[] scores,
+      HeaderInfo candidateHeader, SizeMeter meter) {
+    List<Candidate> candidates = new ArrayList<>(trees.size());
+    progress.update("measuring", 0, trees.size());
+    for (int start = 0; start < trees.size(); start += SizeMeter.BATCH_SOURCES) {
+      List<DistinctTree> chunk = trees.subList(start, Math.min(trees.size(),
+          start + SizeMeter.BATCH_SOURCES));
+      List<EmittedSource> sources = new ArrayList<>();
+      List<Integer> variants = new ArrayList<>();
+      for (DistinctTree g : chunk) {
+        List<EmittedSource> emitted = emitter.emit(g.tree(), candidateHeader);
+        sources.addAll(emitted);
+        variants.add(emitted.size());
+      }
+      List<Sizes> sizes = meter.measure(sources);
+      int at = 0;
+      for (int i = 0; i < chunk.size(); i++) {
+        int pick = at;
+        for (int v = at + 1; v < at + variants.get(i); v++) {
+          if (sizes.get(v).in(settings.unit()) < sizes.get(pick).in(settings.unit())) {
+            pick = v;
+          }
+        }
+        DistinctTree g = chunk.get(i);
+        candidates.add(new Candidate(g.index(), g.recipe(), g.tree(), scores[g.index()],
+            sizes.get(pick), sources.get(pick).layout()));
+        at += variants.get(i);
+      }
+      progress.update("measuring", start + chunk.size(), trees.size());
+    }
+    return candidates;
+  }
+
+  private InputException tooSmall(List<Candidate> candidates) {
+    Candidate smallest = candidates.stream()
+        .min(Comparator.comparingInt((Candidate c) -> c.size(settings.unit()))
+            .thenComparingInt(c -> c.tree().leafCount())
+            .thenComparingInt(Candidate::index))
+        .orElseThrow();
+    int least = smallest.size(settings.unit());
+    int leaves = smallest.tree().leafCount();
+    return new InputException("budget", String.format(Locale.ROOT,
+        "%d bytes is too small: the smallest classifier for this data (%d %s) has a %s of %d "
+            + "bytes", settings.budget(), leaves, leaves == 1 ? "leaf" : "leaves",
+        settings.unit().description(), least), "give --budget " + least + " or more");
+  }
+}

@@ -1,0 +1,37 @@
+package dev.splitwright.select;
+
+import dev.splitwright.check.CompiledClasses;
+import dev.splitwright.check.InMemoryCompiler;
+import dev.splitwright.emit.EmittedSource;
+import java.util.List;
+import java.util.Objects;
+
+/**
+ * What an emitted classifier weighs when built with other debug settings than javac's default:
+ * {@code -g:none} (no line numbers, no source file name) and {@code -g} (also local variable
+ * tables, which a default Maven build adds: maven-compiler-plugin's {@code debug} is true and
+ * passes a bare {@code -g}). Compiled, not estimated: subtracting the debug attributes alone would
+ * still count the constant-pool entries that name them.
+ */
+public final class DebugSizes {
+  private DebugSizes() {}
+
+  /** Class-file bytes of {@code source} compiled with {@code javac --release 17 -g:none}. */
+  public static int noDebug(EmittedSource source) {
+    return compiled(source, "-g:none");
+  }
+
+  /** Class-file bytes of {@code source} compiled with {@code javac --release 17 -g}. */
+  public static int fullDebug(EmittedSource source) {
+    return compiled(source, "-g");
+  }
+
+  private static int compiled(EmittedSource source, String flag) {
+    Objects.requireNonNull(source, "source");
+    try (InMemoryCompiler compiler = InMemoryCompiler.create(List.of("--release", "17", flag))) {
+      CompiledClasses classes = new SizeMeter(compiler).compileAlone(source);
+      return SizeMeter.sizesOf(classes, source.qualifiedName(), source.sourceBytes())
+          .classFileBytes();
+    }
+  }
+}
