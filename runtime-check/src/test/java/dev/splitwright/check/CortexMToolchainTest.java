@@ -158,8 +158,8 @@ class CortexMToolchainTest {
     String program =
         """
         #include "sw_io.h"
-        static int initialised = 40;
-        static int zeroed;
+        static volatile int initialised = 40;
+        static volatile int zeroed;
         int main(void) {
           sw_log("from the board");
           return initialised + zeroed + 2;
@@ -167,6 +167,11 @@ class CortexMToolchainTest {
         """;
     try (BareMetalImage image =
         toolchain().build(CortexMProfile.CORTEX_M3, STRICT, Map.of("status.c", program))) {
+      // volatile keeps the 40 in .data, whose initial value the start-up copies from flash.
+      assertThat(image.elf().sectionSizes()).containsEntry(".data", 4L);
+      assertThat(image.elf().objects())
+          .extracting(ElfSymbol::name)
+          .contains("initialised", "zeroed");
       BareMetalRun run = image.run(new byte[0], RUN_LIMIT);
 
       assertThat(run.exitStatus()).isEqualTo(42);
@@ -291,7 +296,8 @@ class CortexMToolchainTest {
     CortexMToolchain arm = toolchain();
     long m4Base = arm.linkedFlashBytes(CortexMProfile.CORTEX_M4F, STRICT, Map.of("a.c", base));
     long m0Base;
-    try (BareMetalImage bare = arm.build(CortexMProfile.CORTEX_M0PLUS, STRICT, Map.of("a.c", base))) {
+    try (BareMetalImage bare =
+        arm.build(CortexMProfile.CORTEX_M0PLUS, STRICT, Map.of("a.c", base))) {
       // The harness alone needs no libgcc helper, so every helper in a bigger image is the
       // caller's.
       assertThat(bare.elf().functions()).noneMatch(f -> f.name().startsWith("__aeabi_"));
