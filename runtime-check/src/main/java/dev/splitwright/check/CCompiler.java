@@ -1,6 +1,5 @@
 package dev.splitwright.check;
 
-import java.io.File;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
@@ -12,7 +11,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
-import java.util.Optional;
 import java.util.Set;
 
 /**
@@ -150,8 +148,9 @@ public final class CCompiler {
    * Compiles and links the sources into one program ({@code cc flags -o program a.c b.c ...
    * linkFlags}).
    *
-   * @param sources file name (plain, ending in {@code .c} or {@code .h}) to text; at least one
-   *     {@code .c}, exactly one of them defining {@code main}
+   * @param sources file name (plain, ending in {@code .c}, {@code .h} or {@code .ld}) to text; at
+   *     least one {@code .c}, exactly one of them defining {@code main}; a linker script is
+   *     written next to the sources for a link option such as {@code -T image.ld}
    * @param linkFlags options placed after the sources, where libraries must go, e.g. {@code -lm}
    * @throws CCompileException if the compiler or the linker rejects the sources
    * @throws ProcessTimeoutException if the build runs longer than the time limit
@@ -210,21 +209,8 @@ public final class CCompiler {
   }
 
   private static Path resolve(String command) throws CCompilerNotFoundException {
-    if (command.contains(File.separator)) {
-      Path path = Path.of(command);
-      if (Files.isRegularFile(path) && Files.isExecutable(path)) {
-        return path.toAbsolutePath();
-      }
-      throw new CCompilerNotFoundException(command, "no executable file at that path");
-    }
-    String searchPath = Optional.ofNullable(System.getenv("PATH")).orElse("");
-    for (String entry : searchPath.split(File.pathSeparator, -1)) {
-      // An empty PATH entry means the current directory (POSIX).
-      Path candidate = Path.of(entry.isEmpty() ? "." : entry).resolve(command);
-      if (Files.isRegularFile(candidate) && Files.isExecutable(candidate)) {
-        return candidate.toAbsolutePath();
-      }
-    }
-    throw new CCompilerNotFoundException(command, "no executable of that name on PATH");
+    return ExecutableLookup.find(command)
+        .orElseThrow(
+            () -> new CCompilerNotFoundException(command, ExecutableLookup.whereNotFound(command)));
   }
 }

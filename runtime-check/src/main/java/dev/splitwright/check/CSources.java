@@ -14,13 +14,14 @@ import java.util.regex.Pattern;
 
 /**
  * C sources and headers by file name, sorted by name so that command lines and outputs do not
- * depend on the caller's map order.
+ * depend on the caller's map order. Linker scripts ({@code .ld}) may come along; like headers they
+ * are written next to the sources but not compiled.
  */
 final class CSources {
 
   // Plain names only: no directories, nothing that could escape the temporary directory or be
   // taken for a compiler option.
-  private static final Pattern NAME = Pattern.compile("[A-Za-z0-9_][A-Za-z0-9_.+-]*\\.[ch]");
+  private static final Pattern NAME = Pattern.compile("[A-Za-z0-9_][A-Za-z0-9_.+-]*\\.(c|h|ld)");
 
   private final SortedMap<String, String> files;
 
@@ -33,7 +34,7 @@ final class CSources {
           Objects.requireNonNull(text, "text of " + name);
           if (!NAME.matcher(name).matches()) {
             throw new IllegalArgumentException(
-                "source file name \"" + name + "\" must be a plain name ending in .c or .h");
+                "source file name \"" + name + "\" must be a plain name ending in .c, .h or .ld");
           }
           this.files.put(name, text);
         });

@@ -12,6 +12,12 @@
  * dev.splitwright.check.NativeExecutable}) that is run on binary input ({@link
  * dev.splitwright.check.NativeRun}, {@link dev.splitwright.check.LittleEndian}).
  *
+ * <p>Cortex-M: builds C sources with a small start-up harness and no C library into bare-metal
+ * images for Arm Cortex-M cores ({@link dev.splitwright.check.CortexMProfile}, {@link
+ * dev.splitwright.check.CortexMToolchain}) and runs them on qemu's emulated MPS2 boards, feeding
+ * input and collecting output over Arm semihosting ({@link dev.splitwright.check.BareMetalImage},
+ * {@link dev.splitwright.check.BareMetalRun}).
+ *
  * <p>ELF: reads the sections and symbols of ELF32 and ELF64 objects of either byte order ({@link
  * dev.splitwright.check.ElfFile}) to tell how many bytes of flash the code and tables take.
  *

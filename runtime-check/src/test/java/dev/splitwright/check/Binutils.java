@@ -10,9 +10,9 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
 /**
- * Runs GNU binutils' {@code size -A} and {@code nm -S} (or their {@code arm-none-eabi-} twins) on
- * an object file and parses their text output: the outside reference the ELF reader is checked
- * against.
+ * Runs GNU binutils' {@code size -A}, {@code nm -S} and {@code readelf -A} (or their {@code
+ * arm-none-eabi-} twins) on an object file and parses their text output: the outside reference the
+ * ELF reader and the Cortex-M images are checked against.
  */
 final class Binutils {
 
@@ -55,6 +55,12 @@ final class Binutils {
       }
     }
     return rows;
+  }
+
+  /** The lines of {@code readelf -A}: the ARM build attributes, e.g. {@code Tag_CPU_arch: v7}. */
+  static List<String> readelfAttributes(String tool, Path file)
+      throws IOException, InterruptedException {
+    return run(List.of(tool, "-A", file.toString())).stream().map(String::strip).toList();
   }
 
   private static List<String> run(List<String> command) throws IOException, InterruptedException {

@@ -121,7 +121,8 @@ class CCompilerTest {
     for (String name : List.of("../a.c", "sub/a.c", "-o.c", "a.cpp", "a")) {
       assertThatIllegalArgumentException()
           .isThrownBy(() -> cc.compileObjects(Map.of(name, "int a;\n")))
-          .withMessage("source file name \"" + name + "\" must be a plain name ending in .c or .h");
+          .withMessage(
+              "source file name \"" + name + "\" must be a plain name ending in .c, .h or .ld");
     }
     assertThatIllegalArgumentException()
         .isThrownBy(() -> cc.compileObjects(Map.of("only.h", "int a;\n")))
