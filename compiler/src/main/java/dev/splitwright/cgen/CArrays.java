@@ -6,7 +6,7 @@ import java.util.List;
 final class CArrays {
   private CArrays() {}
 
-  /** The smallest unsigned type from {@code <stdint.h>} that holds every value up to {@code max}. */
+  /** The smallest unsigned {@code <stdint.h>} type that holds every value up to {@code max}. */
   static String unsignedType(long max) {
     if (max < 0 || max > 0xffffffffL) {
       throw new IllegalArgumentException("no uint32_t: " + max);

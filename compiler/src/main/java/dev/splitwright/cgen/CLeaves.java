@@ -85,7 +85,7 @@ final class CLeaves {
     CArrays.write(out, "float", prefix + "_share", shares, 3);
   }
 
-  /** {@code <prefix>_probabilities}, filling {@code out} from the leaf that {@code leafCall} returns. */
+  /** {@code <prefix>_probabilities}: fills {@code out} from the leaf {@code leafCall} returns. */
   void writeProbabilities(StringBuilder out, String signature, String leafCall) {
     out.append(signature).append("\n{\n");
     boolean anyShare = distinct.stream()

@@ -100,7 +100,7 @@ public final class CNames {
         && (name.endsWith("_MAX") || name.endsWith("_MIN") || name.endsWith("_C"));
   }
 
-  /** Upper case ASCII letters and digits of {@code text}, runs of anything else as one {@code _}. */
+  /** The ASCII letters and digits of {@code text} in upper case, other runs as one {@code _}. */
   static String upperWords(String text) {
     StringBuilder out = new StringBuilder();
     boolean pending = false;

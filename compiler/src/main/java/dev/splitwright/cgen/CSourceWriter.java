@@ -32,7 +32,8 @@ final class CSourceWriter {
         .append(" * See ").append(api.headerName())
         .append(" for the features, the classes and the build flags.\n */\n\n")
         .append("#include \"").append(api.headerName()).append("\"\n\n")
-        .append("/*\n * These flags let the compiler assume there is no NaN and rewrite comparisons,\n"
+        .append("/*\n"
+            + " * These flags let the compiler assume there is no NaN and rewrite comparisons,\n"
             + " * so NaN would no longer go the way the model sends it.\n */\n")
         .append("#if defined(__FAST_MATH__) || (defined(__FINITE_MATH_ONLY__) && "
             + "__FINITE_MATH_ONLY__ == 1)\n")

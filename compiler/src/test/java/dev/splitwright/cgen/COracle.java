@@ -115,7 +115,9 @@ final class COracle {
       Report report) {
     List<byte[]> wanted = new ArrayList<>();
     for (String text : expected) {
-      wanted.add(text.getBytes(StandardCharsets.UTF_8));
+      // A C string ends at its first NUL (C99 7.1.1): text with U+0000 reads up to there.
+      int nul = text.indexOf('\u0000');
+      wanted.add((nul < 0 ? text : text.substring(0, nul)).getBytes(StandardCharsets.UTF_8));
     }
     // Out of range, -1 and the count, give "".
     wanted.add(new byte[0]);
