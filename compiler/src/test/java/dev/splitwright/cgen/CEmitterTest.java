@@ -208,4 +208,53 @@ class CEmitterTest {
       }
     }
   }
+
+  /**
+   * Cortex-M builds where a cross gcc is installed: freestanding, the strict flags at -Os. With
+   * the FPU (Cortex-M4F) the object references nothing; without it (Cortex-M0) only the float
+   * helpers of libgcc, whose names the ARM run-time ABI fixes (RTABI: __aeabi_fcmp*, __aeabi_f2uiz,
+   * __aeabi_ui2f). Neither has writable data.
+   */
+  @Test
+  void buildsForCortexMWithoutLibc() throws IOException {
+    assumeTrue(toolExists("arm-none-eabi-gcc"), "arm-none-eabi-gcc is not installed");
+    List<List<String>> cpus = List.of(
+        List.of("-mcpu=cortex-m4", "-mthumb", "-mfloat-abi=hard", "-mfpu=fpv4-sp-d16"),
+        List.of("-mcpu=cortex-m0", "-mthumb"));
+    for (Layout layout : List.of(Layout.BRANCHES, Layout.TABLE)) {
+      CSource source = CEmitter.emit(HandTrees.mixed(), CEmitOptions.of("pump")
+          .withLayout(layout).withProbabilities(true), HeaderInfo.none());
+      Gcc.write(dir, source.headerName(), source.headerText(), source.sourceName(),
+          source.sourceText());
+      for (List<String> cpu : cpus) {
+        List<String> command = new ArrayList<>(List.of("arm-none-eabi-gcc"));
+        command.addAll(cpu);
+        command.add("-ffreestanding");
+        command.addAll(Gcc.STRICT.stream().map(f -> f.equals("-O2") ? "-Os" : f).toList());
+        command.addAll(List.of("-c", source.sourceName(), "-o", "pump.o"));
+        Gcc.run(dir, command).orFail(String.join(" ", command));
+        List<String> undefined = Gcc.run(dir, List.of("arm-none-eabi-nm", "-u", "pump.o"))
+            .orFail("nm").output().lines().map(l -> l.trim().substring(2)).toList();
+        if (cpu.contains("-mfloat-abi=hard")) {
+          assertThat(undefined).isEmpty();
+        } else {
+          assertThat(undefined).allMatch(name -> name.startsWith("__aeabi_f")
+              || name.startsWith("__aeabi_ui2f"));
+        }
+        String sections = Gcc.run(dir, List.of("arm-none-eabi-size", "-A", "pump.o"))
+            .orFail("size").output();
+        assertThat(sections.lines().map(l -> l.trim().split("\\s+"))
+            .filter(l -> l[0].equals(".data") || l[0].equals(".bss")).map(l -> l[1]))
+            .allMatch("0"::equals);
+      }
+    }
+  }
+
+  private static boolean toolExists(String tool) {
+    try {
+      return Gcc.run(Path.of("."), List.of(tool, "--version")).exit() == 0;
+    } catch (IOException e) {
+      return false;
+    }
+  }
 }
