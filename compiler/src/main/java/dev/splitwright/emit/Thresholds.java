@@ -4,7 +4,7 @@ package dev.splitwright.emit;
  * Moves a float32 threshold to the other input types so that the comparison gives the class the
  * float model gives on the input converted to float (JLS §5.1.3: round to nearest, ties to even).
  */
-final class Thresholds {
+public final class Thresholds {
   private Thresholds() {}
 
   /**
@@ -31,7 +31,7 @@ final class Thresholds {
    * Returns the largest int {@code n} with {@code (float) n <= t}, or {@code Long.MIN_VALUE} when
    * no int qualifies. A long because the answer may be below {@link Integer#MIN_VALUE}.
    */
-  static long forInt(float t) {
+  public static long forInt(float t) {
     if (t >= 0x1p31f) {
       return Integer.MAX_VALUE;
     }

@@ -1,0 +1,23 @@
+package dev.splitwright.verify;
+
+import dev.splitwright.model.DecisionTree;
+import java.util.List;
+
+/**
+ * Lets tests of other packages (the C back end) use the inputs verification uses: every
+ * threshold's IEEE 754 neighbours, NaN, signed zeros, infinities, invalid codes on inputs that
+ * reach each split, and seeded random probes; for int input the int boundary probes.
+ */
+public final class ProbeAccess {
+  private ProbeAccess() {}
+
+  /** Boundary probes of every split, then {@code randomProbes} seeded random inputs. */
+  public static List<float[]> floatProbes(DecisionTree tree, long seed, int randomProbes) {
+    return Verifier.inputs(tree, List.of(), seed, randomProbes);
+  }
+
+  /** Int boundary probes: each threshold's integer neighbours and the int extremes. */
+  public static List<int[]> intProbes(DecisionTree tree) {
+    return IntProbes.of(tree);
+  }
+}
