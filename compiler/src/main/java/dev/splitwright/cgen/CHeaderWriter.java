@@ -108,13 +108,13 @@ final class CHeaderWriter {
     out.append(" *\n * Exactness: every threshold is the trained float32 value, written as a\n"
         + " * hexadecimal constant (exact by C99 6.4.4.2), and NaN goes the way the model\n"
         + " * sends it. That needs IEEE 754 comparisons: do not build ")
-        .append(api.sourceName()).append(" with\n"
-        + " * -ffast-math, -ffinite-math-only or -Ofast (or a compiler's equivalent), which let\n"
-        + " * the compiler assume there is no NaN; it stops with #error when __FAST_MATH__ or\n"
-        + " * __FINITE_MATH_ONLY__ is set. The code does no arithmetic, so -ffp-contract and\n"
-        + " * FLT_EVAL_METHOD do not matter.\n"
-        + " *\n"
-        + " * Outputs are statistical: validate them on your own data. They do not replace the\n"
-        + " * safety analysis and standards that apply to your product.\n */\n\n");
+        .append(api.sourceName())
+        .append(" with\n")
+        .append(" * -ffast-math, -ffinite-math-only or -Ofast (or a compiler's equivalent), which"
+            + " let\n * the compiler assume there is no NaN; it stops with #error when __FAST_MATH__"
+            + " or\n * __FINITE_MATH_ONLY__ is set. The code does no arithmetic, so -ffp-contract"
+            + " and\n * FLT_EVAL_METHOD do not matter.\n *\n"
+            + " * Outputs are statistical: validate them on your own data. They do not replace"
+            + " the\n * safety analysis and standards that apply to your product.\n */\n\n");
   }
 }

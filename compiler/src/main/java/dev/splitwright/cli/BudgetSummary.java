@@ -1,8 +1,8 @@
 package dev.splitwright.cli;
 
+import dev.splitwright.select.CandidateRecipe;
 import dev.splitwright.select.SearchStats;
 import dev.splitwright.select.SelectionReport;
-import dev.splitwright.select.CandidateRecipe;
 import java.io.PrintWriter;
 import java.util.Locale;
 

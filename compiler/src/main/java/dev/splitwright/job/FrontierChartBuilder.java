@@ -9,7 +9,7 @@ import java.util.List;
 final class FrontierChartBuilder {
   private FrontierChartBuilder() {}
 
-  /** The chart of {@code outcome}, searched with {@code settings} on the data named {@code name}. */
+  /** The chart of {@code outcome}, searched with {@code settings} on data {@code name}. */
   static FrontierSvg.Chart build(String name, SearchSettings settings,
       BudgetSelection.Outcome outcome) {
     String metric = settings.metric().optionName().replace('-', ' ');

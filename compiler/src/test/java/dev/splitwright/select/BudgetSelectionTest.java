@@ -216,7 +216,8 @@ class BudgetSelectionTest {
 
   @Test
   void needsValidationRowsWithoutFolds() {
-    BudgetSelection.Data noValidation = new BudgetSelection.Data(pump.train(), pump.validation().subset(new int[0]), List.of(pump.train()), 1);
+    BudgetSelection.Data noValidation = new BudgetSelection.Data(pump.train(),
+        pump.validation().subset(new int[0]), List.of(pump.train()), 1);
     assertThatThrownBy(() -> selection(SearchSettings.builder(4096).build())
         .run(noValidation, HeaderInfo.none(), tree -> HeaderInfo.none()))
         .isInstanceOf(InputException.class)

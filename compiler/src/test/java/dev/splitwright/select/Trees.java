@@ -30,7 +30,8 @@ final class Trees {
 
   /** A candidate of {@code size} bytes in every unit, with {@code leaves} leaves. */
   static Candidate candidate(int index, int size, double score, int leaves) {
-    return new Candidate(index, new CandidateRecipe(1, 1, 0, Double.POSITIVE_INFINITY), chain(leaves),
+    return new Candidate(index, new CandidateRecipe(1, 1, 0, Double.POSITIVE_INFINITY),
+        chain(leaves),
         score, new Sizes(size, size, size, 0), Layout.BRANCHES);
   }
 }
