@@ -65,6 +65,7 @@ public final class Dexer {
    * not contain (the JDK's) are not needed.
    *
    * @throws IllegalArgumentException if D8 rejects a class file; the message holds D8's errors
+   * @throws IllegalStateException if D8 is not on the class path
    */
   public DexedClasses dex(CompiledClasses classes) {
     Objects.requireNonNull(classes, "classes");
@@ -72,6 +73,7 @@ public final class Dexer {
     for (String name : classes.names()) {
       classFiles.put(name, classes.bytes(name));
     }
+    requireD8();
     return DexedClasses.of(D8Runner.dexEach(classFiles, minApi));
   }
 
@@ -82,15 +84,27 @@ public final class Dexer {
    * get what its fields and code cost.
    *
    * @throws IllegalArgumentException if {@code binaryClassName} is not a qualified Java name
+   * @throws IllegalStateException if D8 is not on the class path
    */
   public int emptyClassSize(String binaryClassName) {
     byte[] classFile = EmptyClassFile.of(binaryClassName);
+    requireD8();
     Map<String, byte[]> dexed = D8Runner.dexEach(Map.of(binaryClassName, classFile), minApi);
     byte[] dex = dexed.get(DexedClasses.descriptorOf(binaryClassName));
     if (dex == null || dexed.size() != 1) {
       throw new IllegalStateException("D8 gave " + dexed.keySet() + " for " + binaryClassName);
     }
     return dex.length;
+  }
+
+  /** Names the missing jar instead of letting a NoClassDefFoundError escape from D8Runner. */
+  private static void requireD8() {
+    try {
+      Class.forName("com.android.tools.r8.D8", false, Dexer.class.getClassLoader());
+    } catch (ClassNotFoundException e) {
+      throw new IllegalStateException(
+          "D8 is not on the class path: DEX sizes need Maven Central's com.android.tools:r8", e);
+    }
   }
 
   @Override

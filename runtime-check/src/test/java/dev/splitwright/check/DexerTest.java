@@ -2,7 +2,9 @@ package dev.splitwright.check;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatIllegalArgumentException;
+import static org.assertj.core.api.Assertions.catchThrowable;
 
+import java.lang.reflect.InvocationTargetException;
 import java.lang.reflect.Modifier;
 import java.net.URL;
 import java.net.URLClassLoader;
@@ -224,6 +226,26 @@ class DexerTest {
       // The same probe sees D8 once it is used, so the check above can fail.
       dexer.getMethod("emptyClassSize", String.class).invoke(instance, "demo.Empty");
       assertThat(requested).anyMatch(name -> name.startsWith("com.android.tools.r8."));
+    }
+  }
+
+  /** The CLI's jar may leave D8 out; then dexing must say what is missing. */
+  @Test
+  void namesTheMissingJarWhenD8IsAbsent() throws Exception {
+    URL ours = Dexer.class.getProtectionDomain().getCodeSource().getLocation();
+    try (URLClassLoader loader =
+        new URLClassLoader(new URL[] {ours}, ClassLoader.getPlatformClassLoader())) {
+      Class<?> dexer = Class.forName(Dexer.class.getName(), true, loader);
+      Object instance = dexer.getMethod("forMinApi", int.class).invoke(null, 21);
+
+      Throwable thrown =
+          catchThrowable(
+              () -> dexer.getMethod("emptyClassSize", String.class).invoke(instance, "demo.E"));
+
+      assertThat(thrown).isInstanceOf(InvocationTargetException.class);
+      assertThat(thrown.getCause())
+          .isInstanceOf(IllegalStateException.class)
+          .hasMessageContaining("com.android.tools:r8");
     }
   }
 
