@@ -21,6 +21,11 @@
  * <p>ELF: reads the sections and symbols of ELF32 and ELF64 objects of either byte order ({@link
  * dev.splitwright.check.ElfFile}) to tell how many bytes of flash the code and tables take.
  *
- * <p>Depends on the JDK only, so it knows nothing about trees or data sets.
+ * <p>DEX: turns class files into one DEX file per class with D8, Android's dexer, in this JVM
+ * ({@link dev.splitwright.check.Dexer}), and reads a DEX file's header, strings, types and classes
+ * ({@link dev.splitwright.check.DexFile}) to tell how many bytes an Android app ships.
+ *
+ * <p>Depends on the JDK and, for dexing only, on D8 (Maven Central {@code com.android.tools:r8}),
+ * whose classes are loaded on the first call that dexes; it knows nothing about trees or data sets.
  */
 package dev.splitwright.check;
