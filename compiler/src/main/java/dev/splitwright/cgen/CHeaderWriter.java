@@ -111,9 +111,9 @@ final class CHeaderWriter {
         .append(api.sourceName())
         .append(" with\n")
         .append(" * -ffast-math, -ffinite-math-only or -Ofast (or a compiler's equivalent), which"
-            + " let\n * the compiler assume there is no NaN; it stops with #error when __FAST_MATH__"
-            + " or\n * __FINITE_MATH_ONLY__ is set. The code does no arithmetic, so -ffp-contract"
-            + " and\n * FLT_EVAL_METHOD do not matter.\n *\n"
+            + " let\n * the compiler assume there is no NaN; it stops with #error when"
+            + " __FAST_MATH__ or\n * __FINITE_MATH_ONLY__ is set. The code does no arithmetic, so"
+            + " -ffp-contract and\n * FLT_EVAL_METHOD do not matter.\n *\n"
             + " * Outputs are statistical: validate them on your own data. They do not replace"
             + " the\n * safety analysis and standards that apply to your product.\n */\n\n");
   }
