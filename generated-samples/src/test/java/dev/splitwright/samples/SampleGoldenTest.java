@@ -19,8 +19,8 @@ import org.junit.jupiter.params.provider.ValueSource;
 
 /**
  * Regenerates each committed sample from its CSV with its recorded command line and compares the
- * source, report, frontier SVG and tree SVG byte for byte. Refresh after an intended change with {@value
- * #REFRESH} and review the diff before committing; CI never refreshes.
+ * source, report, frontier SVG and tree SVG byte for byte. Refresh after an intended change with
+ * {@value #REFRESH} and review the diff before committing; CI never refreshes.
  */
 class SampleGoldenTest {
   static final String REFRESH = "mvn -B -pl generated-samples -am test -Dtest=SampleGoldenTest "
