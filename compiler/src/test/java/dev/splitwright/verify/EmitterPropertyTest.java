@@ -58,7 +58,7 @@ class EmitterPropertyTest {
         nodes += size;
         largest = Math.max(largest, size);
         deepest = Math.max(deepest, tree.depth());
-        EmitOptions options = options(random, tree);
+        EmitOptions options = options(random, new SplittableRandom(SEED + i), tree);
         for (Layout layout : List.of(Layout.BRANCHES, Layout.TABLE)) {
           EmitOptions o = new EmitOptions("prop", "Tree" + i + "_" + layout.optionName(), layout,
               options.inputKind(), options.namedArgs(), options.probabilities(),
@@ -103,18 +103,29 @@ class EmitterPropertyTest {
         instanceof com.sun.management.OperatingSystemMXBean os ? os.getProcessCpuTime() : 0;
   }
 
-  /** Float input mostly; double and int, named arguments, probabilities and small caps often. */
-  private static EmitOptions options(SplittableRandom random, DecisionTree tree) {
+  /**
+   * Float input mostly; double and int, named arguments, probabilities and small caps often.
+   * {@code extra} draws what was added later (more named arguments, caps of 256 to 512 bytes,
+   * where a split and two calls with 32 named double arguments just fit), so that the shared
+   * random stream, and with it the drawn shapes, stay as they were.
+   */
+  private static EmitOptions options(SplittableRandom random, SplittableRandom extra,
+      DecisionTree tree) {
     int kind = random.nextInt(20);
+    boolean fewFeatures = tree.schema().featureCount() <= EmitOptions.MAX_NAMED_ARGS;
+    boolean named = fewFeatures && random.nextInt(5) == 0;
+    named |= fewFeatures && extra.nextInt(3) == 0;
     EmitOptions.Builder b = EmitOptions.builder("prop", "Template")
         .inputKind(kind < 14 ? InputKind.FLOAT : kind < 17 ? InputKind.DOUBLE : InputKind.INT)
-        .namedArgs(tree.schema().featureCount() <= EmitOptions.MAX_NAMED_ARGS
-            && random.nextInt(5) == 0)
+        .namedArgs(named)
         .probabilities(random.nextInt(5) == 0)
         // Chosen from the tree, not the shared random, so the drawn shapes stay as they were.
         .bare(tree.internalNodeCount() % 4 == 1);
     if (random.nextInt(5) == 0) {
       b.maxMethodBytes(256 + random.nextInt(2000));
+    }
+    if (extra.nextInt(4) == 0) {
+      b.maxMethodBytes(256 + extra.nextInt(257));
     }
     return b.build();
   }
