@@ -61,6 +61,11 @@ final class InputAccess {
     return !named() && !bare;
   }
 
+  /** Tells whether the class is bare: no label table, so no {@code label(int)} to point to. */
+  boolean bare() {
+    return bare;
+  }
+
   boolean named() {
     return !parameterNames.isEmpty();
   }
