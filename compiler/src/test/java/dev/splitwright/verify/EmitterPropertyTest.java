@@ -25,7 +25,8 @@ import org.junit.jupiter.api.Test;
  * Random trees of every shape, emitted in both layouts with varied input types and options, must
  * agree with their model on the boundary probes of every split (t, nextUp, nextDown, NaN, the
  * infinities and signed zeros; for double input the rounding boundaries) and on random inputs.
- * Classes are compiled 50 to a javac run, because one run has a fixed cost of about 20 ms.
+ * Classes are compiled 50 to a javac run, because one run has a fixed cost of about 20 ms; every
+ * tenth run also with {@code -Xdoclint:all}, so their comments pass Javadoc's checks.
  */
 class EmitterPropertyTest {
   private static final int TREES = Integer.getInteger("splitwright.propertyTrees", 2000);
@@ -42,6 +43,10 @@ class EmitterPropertyTest {
     long processCpuStarted = processCpuNanos();
     long compileNanos = 0;
     InMemoryCompiler compiler = InMemoryCompiler.create(Verifier.JAVAC_OPTIONS);
+    // Every tenth batch also runs javac's Javadoc checks, down to private members.
+    List<String> doclintOptions = new ArrayList<>(Verifier.JAVAC_OPTIONS);
+    doclintOptions.add("-Xdoclint:all");
+    InMemoryCompiler doclint = InMemoryCompiler.create(doclintOptions);
     Verifier verifier = new Verifier(compiler).withRandomProbes(100);
     SplittableRandom random = new SplittableRandom(SEED);
     List<String> failures = new ArrayList<>();
@@ -67,7 +72,8 @@ class EmitterPropertyTest {
         }
       }
       long compileStarted = System.nanoTime();
-      CompiledClasses compiled = compiler.compile(batch.stream()
+      boolean checkDocs = first % (10 * TREES_PER_BATCH) == 0;
+      CompiledClasses compiled = (checkDocs ? doclint : compiler).compile(batch.stream()
           .map(c -> new SourceFile(c.source().qualifiedName(), c.source().source()))
           .toList());
       compileNanos += System.nanoTime() - compileStarted;
