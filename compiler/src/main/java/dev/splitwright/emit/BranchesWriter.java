@@ -69,14 +69,17 @@ final class BranchesWriter {
       type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
       root = MethodSpec.methodBuilder("leaf")
           .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
-          .returns(TypeName.INT);
+          .returns(TypeName.INT)
+          .addJavadoc(EntryDoc.walk("the root", input, true));
       input.addParameters(root);
     }
     type.addMethod(root.addCode(body(tree.root())).build());
     for (Node node : plan.methodRoots()) {
       MethodSpec.Builder helper = MethodSpec.methodBuilder(plan.methodName(node))
           .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
-          .returns(TypeName.INT);
+          .returns(TypeName.INT)
+          .addJavadoc(EntryDoc.walk(plan.methodName(node) + " (a method of its own to keep "
+              + "methods under the bytecode cap)", input, leaves.probabilities()));
       input.addParameters(helper);
       type.addMethod(helper.addCode(body(node)).build());
     }

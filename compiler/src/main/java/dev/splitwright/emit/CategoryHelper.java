@@ -14,7 +14,13 @@ final class CategoryHelper {
   /** {@code inSet(v, k, mask, missingLeft)} for at most 64 categories. */
   static MethodSpec narrow(InputKind kind) {
     MethodSpec.Builder m = start(kind).addParameter(TypeName.LONG, "mask")
-        .addParameter(TypeName.BOOLEAN, "missingLeft");
+        .addParameter(TypeName.BOOLEAN, "missingLeft")
+        .addJavadoc("Tells whether category code {@code v} goes left: whether its bit is set in "
+            + "{@code mask}.\n\n@param v the category code as passed in\n"
+            + "@param k the number of categories; other values count as missing\n"
+            + "@param mask bit c set for each code c that goes left\n"
+            + "@param missingLeft whether a missing code goes left\n"
+            + "@return whether the input goes left\n");
     return m.beginControlFlow("if ($L)", validCode(kind, "k"))
         .addStatement("return ((mask >>> $L) & 1L) != 0L", code(kind))
         .endControlFlow()
@@ -34,6 +40,11 @@ final class CategoryHelper {
         .addParameter(valueType(kind), "v")
         .addParameter(TypeName.INT, "at")
         .addParameter(TypeName.BOOLEAN, "missingLeft")
+        .addJavadoc("Tells whether category code {@code v} goes left: whether it is in the code "
+            + "set at {@code SETS[at]}.\n\n@param v the category code as passed in\n"
+            + "@param at where the set starts in {@code SETS}: the number of categories, then the "
+            + "bit words\n@param missingLeft whether a missing code goes left\n"
+            + "@return whether the input goes left\n")
         .beginControlFlow("if ($L)", validCode(kind, "SETS[at]"))
         .addStatement("int code = $L", code(kind))
         .addStatement("return ((SETS[at + 1 + (code >>> 5)] >>> (code & 31)) & 1) != 0")

@@ -30,7 +30,8 @@ final class ClassScaffold {
     TypeSpec.Builder type = TypeSpec.classBuilder(options.className())
         .addModifiers(Modifier.PUBLIC, Modifier.FINAL)
         .addJavadoc(classJavadoc(tree, options, header));
-    type.addMethod(MethodSpec.constructorBuilder().addModifiers(Modifier.PRIVATE).build());
+    type.addMethod(MethodSpec.constructorBuilder().addModifiers(Modifier.PRIVATE)
+        .addJavadoc("Not instantiable: every member is static.\n").build());
     if (options.bare()) {
       return type;
     }
@@ -57,20 +58,26 @@ final class ClassScaffold {
           .initializer("$L", c).build());
     }
     addCategoryCodes(type, schema, names);
-    type.addField(StringTable.field("LABELS", schema.classes(), support));
-    type.addField(StringTable.field("FEATURES", schema.featureNames(), support));
+    type.addField(StringTable.field("LABELS", schema.classes(), support).toBuilder()
+        .addJavadoc("Class labels, by class index.\n").build());
+    type.addField(StringTable.field("FEATURES", schema.featureNames(), support).toBuilder()
+        .addJavadoc("Feature names (CSV headers), by input index.\n").build());
     type.addMethod(MethodSpec.methodBuilder("label")
         .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
         .returns(String.class)
         .addParameter(TypeName.INT, "classIndex")
-        .addJavadoc("Returns the label of a class index that {@code classify} returned.\n")
+        .addJavadoc("Returns the label of a class index that {@code classify} returned.\n\n"
+            + "@param classIndex a class index, 0 to CLASS_COUNT - 1\n"
+            + "@return the label as written in the training data\n")
         .addStatement("return LABELS[classIndex]")
         .build());
     type.addMethod(MethodSpec.methodBuilder("featureName")
         .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
         .returns(String.class)
         .addParameter(TypeName.INT, "featureIndex")
-        .addJavadoc("Returns the CSV header of the feature at {@code featureIndex}.\n")
+        .addJavadoc("Returns the CSV header of the feature at {@code featureIndex}.\n\n"
+            + "@param featureIndex an input index, 0 to FEATURE_COUNT - 1\n"
+            + "@return the feature's name\n")
         .addStatement("return FEATURES[featureIndex]")
         .build());
     return type;

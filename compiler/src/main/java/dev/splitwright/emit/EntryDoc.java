@@ -10,9 +10,12 @@ final class EntryDoc {
   private EntryDoc() {}
 
   static CodeBlock classify(Schema schema, InputAccess input) {
+    // A bare class has no label method; its class comment lists the classes by index.
     CodeBlock.Builder doc = CodeBlock.builder()
-        .add("Returns the class index (0 to $L) for one input; see {@link #label(int)}.\n\n",
-            schema.classCount() - 1);
+        .add("Returns the class index (0 to $L) for one input; $L.\n\n", schema.classCount() - 1,
+            input.bare()
+                ? "the class comment lists the classes by index"
+                : "see {@link #label(int)}");
     String missing = switch (input.kind()) {
       case FLOAT, DOUBLE -> "NaN marks a missing value";
       case INT -> "a numeric value cannot be missing, a category code outside its table "
@@ -44,6 +47,24 @@ final class EntryDoc {
     }
     return doc.add("@param out receives $L frequencies, one per class index\n", schema.classCount())
         .build();
+  }
+
+  /**
+   * The comment of a private method that walks the tree from {@code from} on: the entry method's
+   * parameters, one line each, and what it returns. Javadoc's checks ({@code -Xdoclint:all})
+   * cover private methods too.
+   */
+  static CodeBlock walk(String from, InputAccess input, boolean leafNumbers) {
+    CodeBlock.Builder doc = CodeBlock.builder().add("Walks the tree from $L on.\n\n", from);
+    if (input.named()) {
+      for (String name : input.parameterNames()) {
+        doc.add("@param $L as for {@link #classify}\n", name);
+      }
+    } else {
+      doc.add("@param x the feature values, as for {@link #classify}\n");
+    }
+    return doc.add("@return $L\n",
+        leafNumbers ? "the number of the leaf reached" : "the class index").build();
   }
 
   private static String paramText(Feature feature) {

@@ -61,6 +61,11 @@ final class InputAccess {
     return !named() && !bare;
   }
 
+  /** Tells whether the class is bare: no label table, so no {@code label(int)} to point to. */
+  boolean bare() {
+    return bare;
+  }
+
   boolean named() {
     return !parameterNames.isEmpty();
   }
@@ -110,9 +115,24 @@ final class InputAccess {
     return parameterNames;
   }
 
-  /** Upper bound of the bytecode bytes of a call that passes the inputs on and returns the int. */
+  /**
+   * Upper bound of the bytecode bytes of a call that passes the inputs on and returns the int: a
+   * load per parameter ({@code xload_n} for local slots 0 to 3, else {@code xload} with a one-byte
+   * index; a double takes two slots), {@code invokestatic} (3) and {@code ireturn} (1), JVM
+   * Specification §6.5. The bound must be tight: the plan needs room for a split and two calls in
+   * a method of the smallest cap.
+   */
   int callBytes() {
-    int loads = named() ? parameterNames.size() * (kind == InputKind.DOUBLE ? 4 : 2) : 1;
+    int loads = 0;
+    if (!named()) {
+      loads = 1;
+    } else {
+      int slot = 0;
+      for (int p = 0; p < parameterNames.size(); p++) {
+        loads += slot <= 3 ? 1 : slot <= 255 ? 2 : 4;
+        slot += kind == InputKind.DOUBLE ? 2 : 1;
+      }
+    }
     return loads + 3 + 1;
   }
 }

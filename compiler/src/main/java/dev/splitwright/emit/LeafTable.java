@@ -106,11 +106,13 @@ final class LeafTable {
       }
     }
     int n = distinct.size();
-    type.addField(intArray("LEAF_CLASS", n));
-    type.addField(intArray("PROBABILITY_START", n + 1));
-    type.addField(intArray("PROBABILITY_CLASS", entries));
+    type.addField(intArray("LEAF_CLASS", n, "The class of each leaf number."));
+    type.addField(intArray("PROBABILITY_START", n + 1,
+        "Where each leaf number's non-zero frequencies start in PROBABILITY; one past the last."));
+    type.addField(intArray("PROBABILITY_CLASS", entries, "The class of each frequency."));
     type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.FLOAT), "PROBABILITY",
         Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+        .addJavadoc("The non-zero class frequencies of the leaves, leaf after leaf.\n")
         .initializer("new float[$L]", entries).build());
     return CodeBlock.builder()
         .add(words
@@ -136,9 +138,10 @@ final class LeafTable {
         .build();
   }
 
-  private static FieldSpec intArray(String name, int length) {
+  private static FieldSpec intArray(String name, int length, String doc) {
     return FieldSpec.builder(ArrayTypeName.of(TypeName.INT), name,
         Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+        .addJavadoc("$L\n", doc)
         .initializer("new int[$L]", length).build();
   }
 

@@ -7,6 +7,7 @@ import dev.splitwright.model.Split;
 import java.util.ArrayList;
 import java.util.IdentityHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 
 /**
@@ -30,6 +31,7 @@ final class MethodPlan {
 
   private final Map<Node, String> methodNames = new IdentityHashMap<>();
   private final List<Node> methodRoots = new ArrayList<>();
+  private final Map<Node, Boolean> outlined = new IdentityHashMap<>();
   private final int callBytes;
   private final int cap;
 
@@ -47,7 +49,7 @@ final class MethodPlan {
     int[] preorder = {0};
     Map<Node, Integer> index = new IdentityHashMap<>();
     number(root, index, preorder);
-    plan.fit(root, cap - entryBytes, index);
+    plan.fit(root, cap - entryBytes);
     plan.methodRoots.sort((a, b) -> Integer.compare(index.get(a), index.get(b)));
     for (Node node : plan.methodRoots) {
       plan.methodNames.put(node, "node" + index.get(node));
@@ -63,25 +65,29 @@ final class MethodPlan {
     }
   }
 
-  /** Returns the inline cost of {@code node} after outlining children so it fits {@code room}. */
-  private int fit(Node node, int room, Map<Node, Integer> index) {
+  /**
+   * Returns the inline cost of {@code node} after outlining children so it fits {@code room}.
+   * Children are fitted to the cap first, so an outlined child fits a method of its own.
+   */
+  private int fit(Node node, int room) {
     if (node instanceof Leaf) {
       return LEAF_BYTES;
     }
     Split split = (Split) node;
     int own = split instanceof CategoricalSplit ? CATEGORICAL_SPLIT_BYTES : NUMERIC_SPLIT_BYTES;
-    int left = fit(split.left(), cap, index);
-    int right = fit(split.right(), cap, index);
-    // Outline the larger child first: it frees the most room for one extra call.
-    if (own + left + right > room) {
-      if (left >= right) {
-        left = outline(split.left());
-      } else {
-        right = outline(split.right());
+    int left = fit(split.left(), cap);
+    int right = fit(split.right(), cap);
+    // Outline the larger child first: it frees the most room. Only a child that costs more than
+    // the call replacing it is outlined, so none is outlined twice (an outlined one costs exactly
+    // a call) and a leaf never is.
+    while (own + left + right > room) {
+      if (Math.max(left, right) <= callBytes) {
+        throw new EmitLimitException("max-method-bytes", String.format(Locale.ROOT,
+            "a split and its two children need up to %d bytes of bytecode even with the "
+                + "children in methods of their own, but a method may have only %d", own + left + right, room),
+            "give a larger --max-method-bytes, or pass the features as an array");
       }
-    }
-    if (own + left + right > room) {
-      if (left > callBytes) {
+      if (left >= right) {
         left = outline(split.left());
       } else {
         right = outline(split.right());
@@ -91,7 +97,10 @@ final class MethodPlan {
   }
 
   private int outline(Node child) {
-    methodRoots.add(child);
+    // A subtree object that occurs twice (trees built by hand may share one) gets one method.
+    if (outlined.put(child, Boolean.TRUE) == null) {
+      methodRoots.add(child);
+    }
     return callBytes;
   }
 

@@ -37,7 +37,9 @@ final class PackedInts extends PackedText {
         .addParameter(String.class, "data")
         .addParameter(TypeName.INT, "count")
         .addJavadoc("Decodes {@code count} numbers written as base-$L digits, least significant "
-            + "first;\na digit of $L or more means more digits follow.\n", BASE, BASE)
+            + "first;\na digit of $L or more means more digits follow.\n\n"
+            + "@param data the digits, one character each\n@param count how many numbers\n"
+            + "@return the numbers\n", BASE, BASE)
         .addStatement("int[] out = new int[count]")
         .addStatement("int at = 0")
         .beginControlFlow("for (int i = 0; i < count; i++)")

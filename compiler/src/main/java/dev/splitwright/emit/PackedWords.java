@@ -37,7 +37,8 @@ final class PackedWords extends PackedText {
         .addParameter(String.class, "data")
         .addParameter(TypeName.INT, "count")
         .addJavadoc("Decodes {@code count} 32-bit words of $L base-$L digits each, least "
-            + "significant first.\n", DIGITS, BASE)
+            + "significant first.\n\n@param data the digits, one character each\n"
+            + "@param count how many words\n@return the words\n", DIGITS, BASE)
         .addStatement("int[] out = new int[count]")
         .addStatement("int at = 0")
         .beginControlFlow("for (int i = 0; i < count; i++)")

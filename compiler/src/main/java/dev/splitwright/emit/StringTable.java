@@ -68,7 +68,9 @@ final class StringTable {
         .returns(ArrayTypeName.of(String.class))
         .addParameter(String.class, "text")
         .addParameter(ArrayTypeName.of(TypeName.INT), "lengths")
-        .addJavadoc("Cuts {@code text} into pieces of the given lengths.\n")
+        .addJavadoc("Cuts {@code text} into pieces of the given lengths.\n\n"
+            + "@param text the pieces, one after the other\n@param lengths their lengths\n"
+            + "@return the pieces\n")
         .addStatement("String[] out = new String[lengths.length]")
         .addStatement("int at = 0")
         .beginControlFlow("for (int i = 0; i < out.length; i++)")

@@ -275,6 +275,9 @@ final class TableWriter {
     return MethodSpec.methodBuilder("leaf")
         .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
         .returns(TypeName.INT)
+        .addJavadoc("Walks the node table from the root to a leaf.\n\n"
+            + "@param x the feature values in input order\n"
+            + "@return what the leaf holds: its class, or its number with class probabilities\n")
         .addParameter(ArrayTypeName.of(input.elementType()), "x")
         .addCode(code.build())
         .build();

@@ -1,6 +1,7 @@
 package dev.splitwright.model;
 
 import java.util.Arrays;
+import java.util.Objects;
 
 /** Training rows of each class that reached a node. Immutable. */
 public final class ClassCounts {
@@ -47,6 +48,25 @@ public final class ClassCounts {
     int best = 0;
     for (int c = 1; c < counts.length; c++) {
       if (counts[c] > counts[best]) {
+        best = c;
+      }
+    }
+    return best;
+  }
+
+  /**
+   * Returns the class with the largest weighted count {@code classWeights[c] * count(c)}, the
+   * lowest index on ties: the class a leaf predicts under class weights.
+   */
+  public int weightedMajority(double[] classWeights) {
+    Objects.requireNonNull(classWeights, "classWeights");
+    if (classWeights.length != counts.length) {
+      throw new IllegalArgumentException("expected " + counts.length + " class weights but got "
+          + classWeights.length);
+    }
+    int best = 0;
+    for (int c = 1; c < counts.length; c++) {
+      if (classWeights[c] * counts[c] > classWeights[best] * counts[best]) {
         best = c;
       }
     }

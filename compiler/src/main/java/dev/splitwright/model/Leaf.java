@@ -8,6 +8,12 @@ import java.util.Objects;
  */
 public record Leaf(int prediction, ClassCounts counts) implements Node {
 
+  /** The leaf a node becomes when its subtree is cut off: its weighted majority class. */
+  public static Leaf collapse(Node node, double[] classWeights) {
+    ClassCounts counts = Objects.requireNonNull(node, "node").counts();
+    return new Leaf(counts.weightedMajority(classWeights), counts);
+  }
+
   public Leaf {
     Objects.requireNonNull(counts, "counts");
     if (prediction < 0 || prediction >= counts.classCount()) {

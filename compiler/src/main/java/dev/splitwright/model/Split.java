@@ -16,4 +16,21 @@ public sealed interface Split extends Node permits NumericSplit, CategoricalSpli
 
   /** Tells whether a value that is not missing goes left. */
   boolean goesLeftPresent(float value);
+
+  /**
+   * This split with other children (same feature, rule, missing side and counts); {@code this}
+   * itself when both children are the very same objects. Pruning and depth cuts rebuild trees with
+   * it.
+   */
+  default Split withChildren(Node left, Node right) {
+    if (left == left() && right == right()) {
+      return this;
+    }
+    if (this instanceof NumericSplit s) {
+      return new NumericSplit(s.feature(), s.threshold(), s.missingLeft(), left, right, s.counts());
+    }
+    CategoricalSplit s = (CategoricalSplit) this;
+    return new CategoricalSplit(s.feature(), s.leftCodes(), s.missingLeft(), left, right,
+        s.counts());
+  }
 }

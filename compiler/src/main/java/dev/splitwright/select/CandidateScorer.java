@@ -15,9 +15,6 @@ import java.util.Map;
 
 /** Scores candidates on the validation part, or by stratified k-fold cross-validation. */
 final class CandidateScorer {
-  /** Alphas closer than this count as equal, as in {@link PruningPath}. */
-  private static final double TOLERANCE = 1e-12;
-
   private CandidateScorer() {}
 
   /** The metric of each candidate's own tree on {@code validation}, in candidate order. */
@@ -56,7 +53,8 @@ final class CandidateScorer {
         List<PrunedTree> path = PruningPath.of(full, weights);
         Map<DecisionTree, Double> scored = new HashMap<>();
         for (int i : e.getValue()) {
-          DecisionTree pruned = at(path, candidates.get(i).recipe().representativeAlpha());
+          DecisionTree pruned =
+              PruningPath.at(path, candidates.get(i).recipe().representativeAlpha());
           sums[i] += scored.computeIfAbsent(pruned,
               t -> Evaluator.score(t, held).get(settings.metric()));
         }
@@ -68,16 +66,5 @@ final class CandidateScorer {
       means[i] = sums[i] / folds.size();
     }
     return means;
-  }
-
-  /** The last subtree of the path whose alpha does not exceed {@code alpha}. */
-  private static DecisionTree at(List<PrunedTree> path, double alpha) {
-    DecisionTree chosen = path.get(0).tree();
-    for (PrunedTree step : path) {
-      if (step.alpha() <= alpha + TOLERANCE) {
-        chosen = step.tree();
-      }
-    }
-    return chosen;
   }
 }

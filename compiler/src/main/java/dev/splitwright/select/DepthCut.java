@@ -1,10 +1,8 @@
 package dev.splitwright.select;
 
-import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
-import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
 
 /**
@@ -29,27 +27,9 @@ final class DepthCut {
       return node;
     }
     if (levelsLeft == 0) {
-      return new Leaf(weightedMajority(node.counts().toArray(), w), node.counts());
+      return Leaf.collapse(node, w);
     }
-    Node left = cut(split.left(), levelsLeft - 1, w);
-    Node right = cut(split.right(), levelsLeft - 1, w);
-    if (split instanceof NumericSplit s) {
-      return new NumericSplit(s.feature(), s.threshold(), s.missingLeft(), left, right,
-          s.counts());
-    }
-    CategoricalSplit s = (CategoricalSplit) split;
-    return new CategoricalSplit(s.feature(), s.leftCodes(), s.missingLeft(), left, right,
-        s.counts());
-  }
-
-  /** The class with the largest weighted count, the lowest index on ties, as the trainer picks. */
-  static int weightedMajority(int[] counts, double[] w) {
-    int best = 0;
-    for (int c = 1; c < counts.length; c++) {
-      if (w[c] * counts[c] > w[best] * counts[best]) {
-        best = c;
-      }
-    }
-    return best;
+    return split.withChildren(cut(split.left(), levelsLeft - 1, w),
+        cut(split.right(), levelsLeft - 1, w));
   }
 }

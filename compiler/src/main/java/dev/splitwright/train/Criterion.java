@@ -41,6 +41,26 @@ final class Criterion {
     return total;
   }
 
+  /**
+   * The size of the terms that costs of {@code counts} and of their parts sum: W (the weighted row
+   * total) for Gini, W log2 W and the like for entropy. Each operation rounds by at most half an
+   * ulp of it, so mathematically equal costs differ by a small multiple of its ulp.
+   */
+  double roundingScale(int[] counts) {
+    double total = weight(counts);
+    if (gini || total <= 0) {
+      return total;
+    }
+    int rows = 0;
+    double classTerms = 0;
+    for (int c = 0; c < counts.length; c++) {
+      rows += counts[c];
+      classTerms += counts[c] * Math.abs(wLnW[c]);
+    }
+    double logs = Math.max(Math.log(rows), Math.abs(Math.log(total)));
+    return total + (total * logs + classTerms) / LN2;
+  }
+
   double weight(int classIndex, int count) {
     return weights[classIndex] * count;
   }

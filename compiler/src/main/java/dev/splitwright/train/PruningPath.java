@@ -1,11 +1,9 @@
 package dev.splitwright.train;
 
 import dev.splitwright.data.Schema;
-import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
-import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
 import java.util.ArrayList;
 import java.util.List;
@@ -22,7 +20,14 @@ import java.util.Objects;
  * node becomes a leaf predicting its weighted majority class.
  */
 public final class PruningPath {
-  /** Costs lie in [0, 1]; g values closer than this count as equal. */
+  /**
+   * Relative tolerance of cost comparisons. At a node t, R(t) and R(T_t) are sums of non-negative
+   * terms of at most R(t) each (R(T_t) <= R(t)), so their rounding errors are a few ulps of R(t):
+   * two costs, or a price times its leaf count, closer than {@code TOLERANCE * R(t)} count as
+   * equal. An absolute bound would not do: under a heavily weighted class or with very many rows a
+   * node's whole risk can be far below 1e-12 of the root's weight, and real gains were taken for
+   * rounding. Alphas are compared relative to their own size.
+   */
   static final double TOLERANCE = 1e-12;
 
   private PruningPath() {}
@@ -51,7 +56,7 @@ public final class PruningPath {
     double previous = 0;
     while (!root.isLeaf()) {
       double alpha = Math.max(previous, root.minimalPrice());
-      root.collapseAtPrice(alpha + TOLERANCE);
+      root.collapseAtPrice(alpha);
       path.add(new PrunedTree(alpha, new DecisionTree(fullTree.schema(), root.toNode(w))));
       previous = alpha;
     }
@@ -66,9 +71,21 @@ public final class PruningPath {
     if (!(alpha >= 0)) {
       throw new IllegalArgumentException("alpha must be non-negative, but it is " + alpha);
     }
-    DecisionTree chosen = null;
-    for (PrunedTree step : of(fullTree, classWeights)) {
-      if (step.alpha() <= alpha + TOLERANCE) {
+    return at(of(fullTree, classWeights), alpha);
+  }
+
+  /**
+   * Returns the last subtree of {@code path} whose alpha does not exceed {@code alpha} (up to a
+   * relative {@link #TOLERANCE}); the first subtree if none does.
+   */
+  public static DecisionTree at(List<PrunedTree> path, double alpha) {
+    Objects.requireNonNull(path, "path");
+    if (path.isEmpty()) {
+      throw new IllegalArgumentException("path is empty");
+    }
+    DecisionTree chosen = path.get(0).tree();
+    for (PrunedTree step : path) {
+      if (step.alpha() <= alpha + TOLERANCE * Math.abs(alpha)) {
         chosen = step.tree();
       }
     }
@@ -118,11 +135,15 @@ public final class PruningPath {
     }
 
     static Work of(Node node, double[] w, double rootWeight) {
-      double own = weightOf(node, w);
       int[] counts = node.counts().toArray();
-      int majority = TreeGrower.weightedMajority(counts, w);
-      double kept = w[majority] * counts[majority];
-      double cost = rootWeight > 0 ? (own - kept) / rootWeight : 0;
+      int majority = node.counts().weightedMajority(w);
+      // The weight of the other classes, summed directly: "own - kept" would leave a rounding
+      // error of the node's whole weight, far above TOLERANCE * R(t) for a nearly pure node.
+      double misclassified = 0;
+      for (int c = 0; c < counts.length; c++) {
+        misclassified += c == majority ? 0 : w[c] * counts[c];
+      }
+      double cost = rootWeight > 0 ? misclassified / rootWeight : 0;
       if (node instanceof Split split) {
         return new Work(
             node, cost, of(split.left(), w, rootWeight), of(split.right(), w, rootWeight));
@@ -158,7 +179,7 @@ public final class PruningPath {
       right.collapseWhereNoGain();
       subtreeCost = left.subtreeCost + right.subtreeCost;
       leaves = left.leaves + right.leaves;
-      if (leafCost <= subtreeCost + TOLERANCE) {
+      if (leafCost <= subtreeCost + TOLERANCE * leafCost) {
         collapsed = true;
         subtreeCost = leafCost;
         leaves = 1;
@@ -179,7 +200,10 @@ public final class PruningPath {
       return Math.min(g, Math.min(left.minPrice(), right.minPrice()));
     }
 
-    /** Collapses every internal node whose g(t) is at most {@code price}, outermost first. */
+    /**
+     * Collapses every internal node whose g(t) is at most {@code price}, up to rounding (see
+     * {@code TOLERANCE}), outermost first.
+     */
     void collapseAtPrice(double price) {
       refresh();
       collapseWalk(price);
@@ -189,7 +213,8 @@ public final class PruningPath {
       if (isLeaf()) {
         return;
       }
-      if ((leafCost - subtreeCost) / (leaves - 1) <= price) {
+      if ((leafCost - subtreeCost) / (leaves - 1)
+          <= price + TOLERANCE * leafCost / (leaves - 1)) {
         collapsed = true;
         return;
       }
@@ -202,20 +227,9 @@ public final class PruningPath {
         return original;
       }
       if (collapsed) {
-        int[] counts = original.counts().toArray();
-        return new Leaf(TreeGrower.weightedMajority(counts, w), original.counts());
+        return Leaf.collapse(original, w);
       }
-      Node l = left.toNode(w);
-      Node r = right.toNode(w);
-      if (original instanceof NumericSplit s) {
-        return l == s.left() && r == s.right()
-            ? s
-            : new NumericSplit(s.feature(), s.threshold(), s.missingLeft(), l, r, s.counts());
-      }
-      CategoricalSplit s = (CategoricalSplit) original;
-      return l == s.left() && r == s.right()
-          ? s
-          : new CategoricalSplit(s.feature(), s.leftCodes(), s.missingLeft(), l, r, s.counts());
+      return ((Split) original).withChildren(left.toNode(w), right.toNode(w));
     }
   }
 }

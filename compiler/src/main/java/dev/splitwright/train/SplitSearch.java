@@ -8,8 +8,21 @@ import java.util.Arrays;
  * is present; for the winner per feature the missing rows are then tried on both sides (see {@link
  * #finish}), and features compete on the resulting total cost. Ties keep the earliest candidate:
  * lowest feature index, lowest threshold, lexicographically smallest left code set.
+ *
+ * <p>A tie is decided up to rounding: costs that are equal mathematically may differ in their last
+ * bits when they are summed from different parts (the Gini masses 1 + 5/3 and 0 + 8/3 are both
+ * 8/3, but come out one ulp apart). So candidates are scanned in that order and one replaces the
+ * best so far only when its cost is lower by more than {@link #TIE_TOLERANCE} times the node's
+ * {@link Criterion#roundingScale rounding scale}; the scan order makes the choice deterministic.
  */
 final class SplitSearch {
+  /**
+   * Relative tolerance of cost comparisons: about 4,500 ulps of the largest term the costs sum,
+   * well above their rounding error (a few ulps per class); candidates closer than that differ by
+   * less than 10^-12 of the node's weighted row count, which no choice should hinge on.
+   */
+  static final double TIE_TOLERANCE = 1e-12;
+
   private final SortedColumns columns;
   private final Criterion criterion;
   private final int minLeaf;
@@ -25,6 +38,8 @@ final class SplitSearch {
   /** Per category code: rows of each class, and rows, at the node being searched. */
   private final int[] codeClassCounts;
   private final int[] codeRows;
+  /** Costs of the node being searched that differ by at most this count as equal. */
+  private double tolerance;
 
   SplitSearch(SortedColumns columns, Schema schema, Criterion criterion, int minLeaf) {
     this.columns = columns;
@@ -49,13 +64,14 @@ final class SplitSearch {
 
   /** Returns the lowest-cost split of {@code node}, or {@code null} if no split is admissible. */
   SplitChoice best(GrowingNode node) {
+    tolerance = TIE_TOLERANCE * criterion.roundingScale(node.counts);
     SplitChoice best = null;
     for (int f = 0; f < categoryCounts.length; f++) {
       SplitChoice c =
           categoryCounts[f] < 0
               ? numeric(f, node.lo, node.hi, node.counts)
               : categorical(f, node.lo, node.hi, node.counts);
-      if (c != null && (best == null || c.cost < best.cost)) {
+      if (c != null && (best == null || c.cost < best.cost - tolerance)) {
         best = c;
       }
     }
@@ -103,7 +119,7 @@ final class SplitSearch {
         continue;
       }
       double cost = criterion.cost(left) + criterion.costOfDifference(present, left);
-      if (cost < bestCost) {
+      if (cost < bestCost - tolerance) {
         bestCost = cost;
         bestI = i;
         System.arraycopy(left, 0, bestLeft, 0, classes);
@@ -168,8 +184,8 @@ final class SplitSearch {
           continue;
         }
         double cost = criterion.cost(left) + criterion.costOfDifference(present, left);
-        if (cost < bestCost
-            || (cost == bestCost && Arrays.compare(prefixSet(codes, order, e), bestSet) < 0)) {
+        if (cost < bestCost - tolerance || (cost <= bestCost + tolerance
+            && Arrays.compare(prefixSet(codes, order, e), bestSet) < 0)) {
           bestCost = cost;
           bestSet = prefixSet(codes, order, e);
           bestNLeft = nLeft;
@@ -221,8 +237,9 @@ final class SplitSearch {
 
   /**
    * Places the missing rows: on the side giving the lower total cost among the sides that keep
-   * {@code minLeaf}; on a tie, or when no row is missing, with the side holding more weight of the
-   * present rows (left on a tie), so that unseen missing values follow the majority.
+   * {@code minLeaf}; on a tie (up to rounding), or when no row is missing, with the side holding
+   * more weight of the present rows (left on a tie), so that unseen missing values follow the
+   * majority.
    */
   private SplitChoice finish(
       int f, float threshold, int[] leftCodes, int nLeft, int nRight, int nMissing) {
@@ -238,7 +255,9 @@ final class SplitSearch {
         nLeft >= minLeaf && nRight + nMissing >= minLeaf
             ? criterion.cost(bestLeft) + criterion.costOfSum(right, missing)
             : Double.POSITIVE_INFINITY;
-    boolean missingLeft = costLeft == costRight ? majorityLeft : costLeft < costRight;
+    // At most one side is inadmissible (infinite), so the difference is never NaN.
+    boolean tie = Math.abs(costLeft - costRight) <= tolerance;
+    boolean missingLeft = tie ? majorityLeft : costLeft < costRight;
     return new SplitChoice(
         f, threshold, leftCodes, missingLeft, missingLeft ? costLeft : costRight);
   }

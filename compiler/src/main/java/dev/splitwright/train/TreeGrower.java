@@ -144,7 +144,7 @@ final class TreeGrower {
   private Node toNode(GrowingNode node) {
     ClassCounts counts = ClassCounts.of(node.counts);
     if (!node.expanded()) {
-      return new Leaf(weightedMajority(node.counts, classWeights), counts);
+      return new Leaf(counts.weightedMajority(classWeights), counts);
     }
     SplitChoice c = node.choice;
     Node left = toNode(node.left);
@@ -154,16 +154,5 @@ final class TreeGrower {
           c.feature, CategoricalSplit.CodeSet.of(c.leftCodes), c.missingLeft, left, right, counts);
     }
     return new NumericSplit(c.feature, c.threshold, c.missingLeft, left, right, counts);
-  }
-
-  /** Returns the class with the largest weighted count, the lowest index on ties. */
-  static int weightedMajority(int[] counts, double[] classWeights) {
-    int best = 0;
-    for (int c = 1; c < counts.length; c++) {
-      if (classWeights[c] * counts[c] > classWeights[best] * counts[best]) {
-        best = c;
-      }
-    }
-    return best;
   }
 }

@@ -120,15 +120,27 @@ class EmitterGoldenTest {
              */
             public static final int MODE_SERVICE = 2;
 
+            /**
+             * Class labels, by class index.
+             */
             private static final String[] LABELS = {"normal", "worn"};
 
+            /**
+             * Feature names (CSV headers), by input index.
+             */
             private static final String[] FEATURES = {"rms velocity", "mode"};
 
+            /**
+             * Not instantiable: every member is static.
+             */
             private Golden() {
             }
 
             /**
              * Returns the label of a class index that {@code classify} returned.
+             *
+             * @param classIndex a class index, 0 to CLASS_COUNT - 1
+             * @return the label as written in the training data
              */
             public static String label(int classIndex) {
                 return LABELS[classIndex];
@@ -136,6 +148,9 @@ class EmitterGoldenTest {
 
             /**
              * Returns the CSV header of the feature at {@code featureIndex}.
+             *
+             * @param featureIndex an input index, 0 to FEATURE_COUNT - 1
+             * @return the feature's name
              */
             public static String featureName(int featureIndex) {
                 return FEATURES[featureIndex];
@@ -168,6 +183,15 @@ class EmitterGoldenTest {
                 }
             }
 
+            /**
+             * Tells whether category code {@code v} goes left: whether its bit is set in {@code mask}.
+             *
+             * @param v the category code as passed in
+             * @param k the number of categories; other values count as missing
+             * @param mask bit c set for each code c that goes left
+             * @param missingLeft whether a missing code goes left
+             * @return whether the input goes left
+             */
             private static boolean inSet(float v, int k, long mask, boolean missingLeft) {
                 if (v >= 0 && v < k && v == (int) v) {
                     return ((mask >>> (int) v) & 1L) != 0L;
@@ -241,8 +265,14 @@ class EmitterGoldenTest {
              */
             public static final int MODE_SERVICE = 2;
 
+            /**
+             * Class labels, by class index.
+             */
             private static final String[] LABELS = {"normal", "worn"};
 
+            /**
+             * Feature names (CSV headers), by input index.
+             */
             private static final String[] FEATURES = {"rms velocity", "mode"};
 
             /**
@@ -292,11 +322,17 @@ class EmitterGoldenTest {
                 }
             }
 
+            /**
+             * Not instantiable: every member is static.
+             */
             private Golden() {
             }
 
             /**
              * Returns the label of a class index that {@code classify} returned.
+             *
+             * @param classIndex a class index, 0 to CLASS_COUNT - 1
+             * @return the label as written in the training data
              */
             public static String label(int classIndex) {
                 return LABELS[classIndex];
@@ -304,6 +340,9 @@ class EmitterGoldenTest {
 
             /**
              * Returns the CSV header of the feature at {@code featureIndex}.
+             *
+             * @param featureIndex an input index, 0 to FEATURE_COUNT - 1
+             * @return the feature's name
              */
             public static String featureName(int featureIndex) {
                 return FEATURES[featureIndex];
@@ -324,6 +363,12 @@ class EmitterGoldenTest {
                 return leaf(x);
             }
 
+            /**
+             * Walks the node table from the root to a leaf.
+             *
+             * @param x the feature values in input order
+             * @return what the leaf holds: its class, or its number with class probabilities
+             */
             private static int leaf(float[] x) {
                 int i = 0;
                 int node;
@@ -341,6 +386,14 @@ class EmitterGoldenTest {
                 return ~node;
             }
 
+            /**
+             * Tells whether category code {@code v} goes left: whether it is in the code set at {@code SETS[at]}.
+             *
+             * @param v the category code as passed in
+             * @param at where the set starts in {@code SETS}: the number of categories, then the bit words
+             * @param missingLeft whether a missing code goes left
+             * @return whether the input goes left
+             */
             private static boolean inSet(float v, int at, boolean missingLeft) {
                 if (v >= 0 && v < SETS[at] && v == (int) v) {
                     int code = (int) v;
@@ -352,6 +405,10 @@ class EmitterGoldenTest {
             /**
              * Decodes {@code count} numbers written as base-45 digits, least significant first;
              * a digit of 45 or more means more digits follow.
+             *
+             * @param data the digits, one character each
+             * @param count how many numbers
+             * @return the numbers
              */
             private static int[] unpack(String data, int count) {
                 int[] out = new int[count];

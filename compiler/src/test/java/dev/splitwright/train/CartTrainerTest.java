@@ -73,6 +73,35 @@ class CartTrainerTest {
     assertThat(decrease(Impurity.ENTROPY, root)).isCloseTo(0.548795, within(1e-6));
   }
 
+  /**
+   * Two features whose best splits have equal cost mathematically but not in double arithmetic:
+   * the documented rule (lowest feature index) must decide, not the last bit. Worked by hand, Gini
+   * mass n - sum(n_c^2) / n of a node [2 A, 6 B]: x0 splits it into [1,1] | [1,5], costing
+   * (2 - 2/2) + (6 - 26/6) = 1 + 5/3 = 8/3; x1 into [0,2] | [2,4], costing 0 + (6 - 20/6) = 8/3.
+   * In doubles (IEEE 754 round to nearest) 26/6 rounds down, so 6 - 26/6 rounds up and x0's cost
+   * is 2.666666666666667; x1's is 2.6666666666666665, one ulp lower, which used to win.
+   */
+  @Test
+  void equalCostsUpToRoundingGoToTheLowerFeatureIndex() {
+    float[][] rows = {
+      {0, 1}, {1, 1}, {0, 1}, {1, 0}, {1, 0}, {1, 1}, {1, 1}, {1, 1},
+    };
+    int[] labels = {0, 0, 1, 1, 1, 1, 1, 1};
+    Dataset data = Dataset.ofRows(TWO_NUMERIC, rows, labels);
+    // The premise: the two costs as the trainer's criterion computes them differ in the last bit.
+    Criterion gini = new Criterion(Impurity.GINI, new double[] {1, 1}, rows.length);
+    double x0 = gini.cost(new int[] {1, 1}) + gini.cost(new int[] {1, 5});
+    double x1 = gini.cost(new int[] {0, 2}) + gini.cost(new int[] {2, 4});
+    assertThat(x1).isEqualTo(Math.nextDown(x0));
+
+    DecisionTree tree = CartTrainer.train(data, TrainingOptions.builder().maxDepth(1).build());
+
+    Node expected = new NumericSplit(0, 0.5f, false,
+        new Leaf(0, ClassCounts.of(1, 1)), new Leaf(1, ClassCounts.of(1, 5)),
+        ClassCounts.of(2, 6));
+    assertThat(tree.root()).isEqualTo(expected);
+  }
+
   @Test
   void classWeightsChangePredictionsButCountsStayRaw() {
     // Worked by hand with weights A=1, B=3: root split x0 <= 3.5 costs 0 + [1,12]: 13 - 145/13 =

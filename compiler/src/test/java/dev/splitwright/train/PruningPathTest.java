@@ -82,6 +82,31 @@ class PruningPathTest {
     assertThat(path.get(2).alpha()).isCloseTo(0.3, within(1e-12));
   }
 
+  /**
+   * Risks far below 1e-12 of the root's weight: an absolute tolerance took the right node's real
+   * gain for rounding and collapsed it in T1. Worked by hand, classes [a, b, c] weighted [1000, 1,
+   * 1], root [2e9, 2, 1] of weight W = 2e12 + 3: left leaf [2e9, 0, 0]; right node [0, 2, 1] costs
+   * 1/W as a leaf (predicting b) and 0 split into [0, 2, 0] | [0, 0, 1]. So T1 is the full tree
+   * (3 leaves, R = 0), g(right) = 1/W (about 5e-13), g(root) = (3/W)/2; the right node goes at
+   * alpha 1/W, then g(root) = (3/W - 1/W)/1 = 2/W.
+   */
+  @Test
+  void smallRisksUnderHeavyWeightsAreNotTakenForRounding() {
+    Schema schema = new Schema(List.of(Feature.numeric("x")), "y", List.of("a", "b", "c"));
+    Node right = new NumericSplit(0, 2, false, new Leaf(1, ClassCounts.of(0, 2, 0)),
+        new Leaf(2, ClassCounts.of(0, 0, 1)), ClassCounts.of(0, 2, 1));
+    Node root = new NumericSplit(0, 1, false, new Leaf(0, ClassCounts.of(2_000_000_000, 0, 0)),
+        right, ClassCounts.of(2_000_000_000, 2, 1));
+    double[] w = {1000, 1, 1};
+    double rootWeight = 2e12 + 3;
+
+    List<PrunedTree> path = PruningPath.of(new DecisionTree(schema, root), w);
+
+    assertThat(path).extracting(p -> p.tree().leafCount()).containsExactly(3, 2, 1);
+    assertThat(path.get(1).alpha()).isCloseTo(1 / rootWeight, within(1e-24));
+    assertThat(path.get(2).alpha()).isCloseTo(2 / rootWeight, within(1e-24));
+  }
+
   @Test
   void pruneReturnsTheSubtreeForAnAlpha() {
     DecisionTree full = new DecisionTree(SCHEMA, FULL);

@@ -25,7 +25,8 @@ import org.junit.jupiter.api.Test;
  * Random trees of every shape, emitted in both layouts with varied input types and options, must
  * agree with their model on the boundary probes of every split (t, nextUp, nextDown, NaN, the
  * infinities and signed zeros; for double input the rounding boundaries) and on random inputs.
- * Classes are compiled 50 to a javac run, because one run has a fixed cost of about 20 ms.
+ * Classes are compiled 50 to a javac run, because one run has a fixed cost of about 20 ms; every
+ * tenth run also with {@code -Xdoclint:all}, so their comments pass Javadoc's checks.
  */
 class EmitterPropertyTest {
   private static final int TREES = Integer.getInteger("splitwright.propertyTrees", 2000);
@@ -42,6 +43,10 @@ class EmitterPropertyTest {
     long processCpuStarted = processCpuNanos();
     long compileNanos = 0;
     InMemoryCompiler compiler = InMemoryCompiler.create(Verifier.JAVAC_OPTIONS);
+    // Every tenth batch also runs javac's Javadoc checks, down to private members.
+    List<String> doclintOptions = new ArrayList<>(Verifier.JAVAC_OPTIONS);
+    doclintOptions.add("-Xdoclint:all");
+    InMemoryCompiler doclint = InMemoryCompiler.create(doclintOptions);
     Verifier verifier = new Verifier(compiler).withRandomProbes(100);
     SplittableRandom random = new SplittableRandom(SEED);
     List<String> failures = new ArrayList<>();
@@ -58,7 +63,7 @@ class EmitterPropertyTest {
         nodes += size;
         largest = Math.max(largest, size);
         deepest = Math.max(deepest, tree.depth());
-        EmitOptions options = options(random, tree);
+        EmitOptions options = options(random, new SplittableRandom(SEED + i), tree);
         for (Layout layout : List.of(Layout.BRANCHES, Layout.TABLE)) {
           EmitOptions o = new EmitOptions("prop", "Tree" + i + "_" + layout.optionName(), layout,
               options.inputKind(), options.namedArgs(), options.probabilities(),
@@ -67,7 +72,8 @@ class EmitterPropertyTest {
         }
       }
       long compileStarted = System.nanoTime();
-      CompiledClasses compiled = compiler.compile(batch.stream()
+      boolean checkDocs = first % (10 * TREES_PER_BATCH) == 0;
+      CompiledClasses compiled = (checkDocs ? doclint : compiler).compile(batch.stream()
           .map(c -> new SourceFile(c.source().qualifiedName(), c.source().source()))
           .toList());
       compileNanos += System.nanoTime() - compileStarted;
@@ -103,18 +109,29 @@ class EmitterPropertyTest {
         instanceof com.sun.management.OperatingSystemMXBean os ? os.getProcessCpuTime() : 0;
   }
 
-  /** Float input mostly; double and int, named arguments, probabilities and small caps often. */
-  private static EmitOptions options(SplittableRandom random, DecisionTree tree) {
+  /**
+   * Float input mostly; double and int, named arguments, probabilities and small caps often.
+   * {@code extra} draws what was added later (more named arguments, caps of 256 to 512 bytes,
+   * where a split and two calls with 32 named double arguments just fit), so that the shared
+   * random stream, and with it the drawn shapes, stay as they were.
+   */
+  private static EmitOptions options(SplittableRandom random, SplittableRandom extra,
+      DecisionTree tree) {
     int kind = random.nextInt(20);
+    boolean fewFeatures = tree.schema().featureCount() <= EmitOptions.MAX_NAMED_ARGS;
+    boolean named = fewFeatures && random.nextInt(5) == 0;
+    named |= fewFeatures && extra.nextInt(3) == 0;
     EmitOptions.Builder b = EmitOptions.builder("prop", "Template")
         .inputKind(kind < 14 ? InputKind.FLOAT : kind < 17 ? InputKind.DOUBLE : InputKind.INT)
-        .namedArgs(tree.schema().featureCount() <= EmitOptions.MAX_NAMED_ARGS
-            && random.nextInt(5) == 0)
+        .namedArgs(named)
         .probabilities(random.nextInt(5) == 0)
         // Chosen from the tree, not the shared random, so the drawn shapes stay as they were.
         .bare(tree.internalNodeCount() % 4 == 1);
     if (random.nextInt(5) == 0) {
       b.maxMethodBytes(256 + random.nextInt(2000));
+    }
+    if (extra.nextInt(4) == 0) {
+      b.maxMethodBytes(256 + extra.nextInt(257));
     }
     return b.build();
   }

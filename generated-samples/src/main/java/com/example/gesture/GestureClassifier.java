@@ -89,20 +89,38 @@ public final class GestureClassifier {
      */
     public static final int CLASS_WRIST_FLICK = 4;
 
+    /**
+     * Class labels, by class index.
+     */
     private static final String[] LABELS = {"double_tap", "idle", "raise", "shake", "wrist_flick"};
 
+    /**
+     * Feature names (CSV headers), by input index.
+     */
     private static final String[] FEATURES = {"acc_x_mean", "acc_x_var", "acc_x_p2p", "acc_x_zc",
             "acc_y_mean", "acc_y_var", "acc_y_p2p", "acc_y_zc", "acc_z_mean", "acc_z_var",
             "acc_z_p2p", "acc_z_zc", "gyr_x_mean", "gyr_x_var", "gyr_x_p2p", "gyr_x_zc",
             "gyr_y_mean", "gyr_y_var", "gyr_y_p2p", "gyr_y_zc", "gyr_z_mean", "gyr_z_var",
             "gyr_z_p2p", "gyr_z_zc"};
 
+    /**
+     * The class of each leaf number.
+     */
     private static final int[] LEAF_CLASS = new int[9];
 
+    /**
+     * Where each leaf number's non-zero frequencies start in PROBABILITY; one past the last.
+     */
     private static final int[] PROBABILITY_START = new int[10];
 
+    /**
+     * The class of each frequency.
+     */
     private static final int[] PROBABILITY_CLASS = new int[23];
 
+    /**
+     * The non-zero class frequencies of the leaves, leaf after leaf.
+     */
     private static final float[] PROBABILITY = new float[23];
 
     static {
@@ -122,11 +140,17 @@ public final class GestureClassifier {
         PROBABILITY_START[9] = j;
     }
 
+    /**
+     * Not instantiable: every member is static.
+     */
     private GestureClassifier() {
     }
 
     /**
      * Returns the label of a class index that {@code classify} returned.
+     *
+     * @param classIndex a class index, 0 to CLASS_COUNT - 1
+     * @return the label as written in the training data
      */
     public static String label(int classIndex) {
         return LABELS[classIndex];
@@ -134,6 +158,9 @@ public final class GestureClassifier {
 
     /**
      * Returns the CSV header of the feature at {@code featureIndex}.
+     *
+     * @param featureIndex an input index, 0 to FEATURE_COUNT - 1
+     * @return the feature's name
      */
     public static String featureName(int featureIndex) {
         return FEATURES[featureIndex];
@@ -181,6 +208,12 @@ public final class GestureClassifier {
         }
     }
 
+    /**
+     * Walks the tree from the root on.
+     *
+     * @param x the feature values, as for {@link #classify}
+     * @return the number of the leaf reached
+     */
     private static int leaf(float[] x) {
         if (x[13] <= 3.55f) {
             if (!(x[9] > 0.0014599999f)) {
@@ -220,6 +253,10 @@ public final class GestureClassifier {
     /**
      * Decodes {@code count} numbers written as base-45 digits, least significant first;
      * a digit of 45 or more means more digits follow.
+     *
+     * @param data the digits, one character each
+     * @param count how many numbers
+     * @return the numbers
      */
     private static int[] unpack(String data, int count) {
         int[] out = new int[count];

@@ -71,17 +71,29 @@ public final class PumpStateClassifier {
      */
     public static final int CLASS_NORMAL = 4;
 
+    /**
+     * Class labels, by class index.
+     */
     private static final String[] LABELS = {"bearing_wear", "cavitation", "imbalance",
             "misalignment", "normal"};
 
+    /**
+     * Feature names (CSV headers), by input index.
+     */
     private static final String[] FEATURES = {"vibration_rms_mm_s", "peak_accel_g", "crest_factor",
             "kurtosis", "bearing_temp_c", "motor_current_a"};
 
+    /**
+     * Not instantiable: every member is static.
+     */
     private PumpStateClassifier() {
     }
 
     /**
      * Returns the label of a class index that {@code classify} returned.
+     *
+     * @param classIndex a class index, 0 to CLASS_COUNT - 1
+     * @return the label as written in the training data
      */
     public static String label(int classIndex) {
         return LABELS[classIndex];
@@ -89,6 +101,9 @@ public final class PumpStateClassifier {
 
     /**
      * Returns the CSV header of the feature at {@code featureIndex}.
+     *
+     * @param featureIndex an input index, 0 to FEATURE_COUNT - 1
+     * @return the feature's name
      */
     public static String featureName(int featureIndex) {
         return FEATURES[featureIndex];
