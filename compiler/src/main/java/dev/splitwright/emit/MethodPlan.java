@@ -84,7 +84,8 @@ final class MethodPlan {
       if (Math.max(left, right) <= callBytes) {
         throw new EmitLimitException("max-method-bytes", String.format(Locale.ROOT,
             "a split and its two children need up to %d bytes of bytecode even with the "
-                + "children in methods of their own, but a method may have only %d", own + left + right, room),
+                + "children in methods of their own, but a method may have only %d",
+            own + left + right, room),
             "give a larger --max-method-bytes, or pass the features as an array");
       }
       if (left >= right) {

@@ -22,7 +22,7 @@ import java.util.Objects;
 public final class PruningPath {
   /**
    * Relative tolerance of cost comparisons. At a node t, R(t) and R(T_t) are sums of non-negative
-   * terms of at most R(t) each (R(T_t) <= R(t)), so their rounding errors are a few ulps of R(t):
+   * terms of at most R(t) each (R(T_t) &le; R(t)), so their rounding errors are a few ulps of R(t):
    * two costs, or a price times its leaf count, closer than {@code TOLERANCE * R(t)} count as
    * equal. An absolute bound would not do: under a heavily weighted class or with very many rows a
    * node's whole risk can be far below 1e-12 of the root's weight, and real gains were taken for
