@@ -1,6 +1,6 @@
 package dev.splitwright.select;
 
-import java.util.Locale;
+import dev.splitwright.text.DecimalText;
 
 /**
  * Training settings that reproduce one candidate: grow with {@code maxDepth} and {@code minLeaf},
@@ -22,7 +22,7 @@ public record Setting(int maxDepth, int minLeaf, double alpha, double nextAlpha)
 
   /** Formats an alpha for messages: {@code 0}, or four significant digits. */
   public static String formatAlpha(double alpha) {
-    return alpha == 0 ? "0" : String.format(Locale.ROOT, "%.4g", alpha);
+    return alpha == 0 ? "0" : DecimalText.significant(alpha, 4);
   }
 
   /**
