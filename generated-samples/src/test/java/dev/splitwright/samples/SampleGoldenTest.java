@@ -65,19 +65,19 @@ class SampleGoldenTest {
   }
 
   /** The sample's command line: one argument a line, '#' comments; paths are module-relative. */
-  private static List<String> recordedArgs(String sample) throws IOException {
+  static List<String> recordedArgs(String sample) throws IOException {
     return Files.readAllLines(Path.of("commands", sample + ".args"), StandardCharsets.UTF_8)
         .stream().map(String::strip).filter(l -> !l.isEmpty() && !l.startsWith("#")).toList();
   }
 
   /** Sources live in the module's source tree; reports and pictures in {@code reports/}. */
-  private static Path committedPlace(Path relative) {
+  static Path committedPlace(Path relative) {
     return relative.toString().endsWith(".java")
         ? Path.of("src/main/java").resolve(relative)
         : Path.of("reports").resolve(relative.getFileName());
   }
 
-  private static List<Path> files(Path root) throws IOException {
+  static List<Path> files(Path root) throws IOException {
     try (Stream<Path> walk = Files.walk(root)) {
       return walk.filter(Files::isRegularFile).map(root::relativize).sorted().toList();
     }
