@@ -125,34 +125,44 @@ public final class DecimalText {
       boolean even, int maxDigits) {
     BigDecimal low = exact.add(below).multiply(HALF);
     BigDecimal high = exact.add(above).multiply(HALF);
-    for (int n = 1; n <= maxDigits; n++) {
-      BigDecimal down = exact.round(new MathContext(n, RoundingMode.FLOOR));
-      BigDecimal up = exact.round(new MathContext(n, RoundingMode.CEILING));
-      boolean downIn = inside(down, low, high, even);
-      boolean upIn = inside(up, low, high, even);
-      if (!downIn && !upIn) {
-        continue;
-      }
-      if (n == 1) {
-        down = exact.round(new MathContext(2, RoundingMode.FLOOR));
-        up = exact.round(new MathContext(2, RoundingMode.CEILING));
-        downIn = inside(down, low, high, even);
-        upIn = inside(up, low, high, even);
-      }
-      BigDecimal pick;
-      if (downIn && upIn) {
-        int closer = exact.subtract(down).compareTo(up.subtract(exact));
-        if (closer != 0) {
-          pick = closer < 0 ? down : up;
-        } else {
-          pick = down.unscaledValue().testBit(0) ? up : down;
-        }
+    // Whether some n-digit decimal rounds to the value grows with n (an n-digit decimal is also an
+    // (n+1)-digit one), so the fewest digits are found by bisection; maxDigits always suffice.
+    int fewest = 1;
+    int enough = maxDigits;
+    while (fewest < enough) {
+      int n = (fewest + enough) >>> 1;
+      if (nearest(exact, low, high, even, n) != null) {
+        enough = n;
       } else {
-        pick = downIn ? down : up;
+        fewest = n + 1;
       }
-      return pick.stripTrailingZeros();
     }
-    throw new AssertionError("no decimal of " + maxDigits + " digits rounds to " + exact);
+    BigDecimal pick = nearest(exact, low, high, even, Math.max(2, fewest));
+    if (pick == null) {
+      throw new AssertionError("no decimal of " + maxDigits + " digits rounds to " + exact);
+    }
+    return pick.stripTrailingZeros();
+  }
+
+  /**
+   * The n-digit decimal closest to {@code exact} that rounds to it (on a tie the one with an even
+   * last digit), or null if none does. Only the nearest below and above can: any other n-digit
+   * decimal is farther away on the same side.
+   */
+  private static BigDecimal nearest(BigDecimal exact, BigDecimal low, BigDecimal high,
+      boolean even, int n) {
+    BigDecimal down = exact.round(new MathContext(n, RoundingMode.FLOOR));
+    BigDecimal up = exact.round(new MathContext(n, RoundingMode.CEILING));
+    boolean downIn = inside(down, low, high, even);
+    boolean upIn = inside(up, low, high, even);
+    if (downIn && upIn) {
+      int closer = exact.subtract(down).compareTo(up.subtract(exact));
+      if (closer != 0) {
+        return closer < 0 ? down : up;
+      }
+      return down.unscaledValue().testBit(0) ? up : down;
+    }
+    return downIn ? down : upIn ? up : null;
   }
 
   private static boolean inside(BigDecimal d, BigDecimal low, BigDecimal high, boolean even) {
