@@ -223,14 +223,8 @@ final class ModelReader {
   }
 
   private static void codes(JsonNode n, String at, int categories) throws BadModelException {
+    // No codes is valid: the trainer splits missing values (left) from present ones (right) so.
     JsonNode array = array(n, at, "leftCodes");
-    if (array.isEmpty()) {
-      throw new BadModelException(at + "/leftCodes", "at least one category code", "none");
-    }
-    if (categories == 0) {
-      throw new BadModelException(at + "/leftCodes", "no split on a feature without categories",
-          "a split");
-    }
     int previous = -1;
     for (int k = 0; k < array.size(); k++) {
       int code = element(array, at + "/leftCodes", k, 0, categories - 1);
@@ -244,9 +238,12 @@ final class ModelReader {
 
   private static void threshold(JsonNode n, String at) throws BadModelException {
     String text = text(n, at, "threshold");
+    if (text.equals("Infinity") || text.equals("-Infinity")) {
+      return; // valid split thresholds (NumericSplit), written so; a CSV value never exceeds them
+    }
     if (!DECIMAL.matcher(text).matches()) {
-      throw new BadModelException(at + "/threshold", "a decimal number such as 0.5 or 1.0E-5",
-          InputException.quote(text));
+      throw new BadModelException(at + "/threshold", "a decimal number such as 0.5 or 1.0E-5 "
+          + "(or Infinity, -Infinity)", InputException.quote(text));
     }
     float value = Float.parseFloat(text);
     if (Float.isInfinite(value)) {
