@@ -3,6 +3,7 @@ package dev.splitwright.cli;
 import dev.splitwright.select.CandidateRecipe;
 import dev.splitwright.select.SearchStats;
 import dev.splitwright.select.SelectionReport;
+import dev.splitwright.text.DecimalText;
 import java.io.PrintWriter;
 import java.util.Locale;
 
@@ -13,9 +14,10 @@ final class BudgetSummary {
   static void print(PrintWriter out, SelectionReport selection, SearchStats stats) {
     SelectionReport.Chosen c = selection.chosen();
     out.printf(Locale.ROOT, "budget: %d bytes (%s); chosen max-depth %d, min-leaf %d, alpha %s "
-        + "(depth %d, %d leaves): %d bytes, %s %.4f (%s)%n", selection.budget(),
+        + "(depth %d, %d leaves): %d bytes, %s %s (%s)%n", selection.budget(),
         selection.budgetUnit(), c.maxDepth(), c.minLeaf(), CandidateRecipe.formatAlpha(c.alpha()),
-        c.depth(), c.leaves(), c.size(), selection.metric(), c.validationScore(),
+        c.depth(), c.leaves(), c.size(), selection.metric(),
+        DecimalText.fixed(c.validationScore(), 4),
         selection.scoredOn());
     if (selection.budgetUnit().equals("class")) {
       out.printf(Locale.ROOT, "budget: the class file weighs %d bytes with javac -g:none and %d "

@@ -11,6 +11,7 @@ import dev.splitwright.job.CompileRequest;
 import dev.splitwright.job.CompileResult;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.select.SelectionReport;
+import dev.splitwright.text.DecimalText;
 import dev.splitwright.train.ClassWeights;
 import dev.splitwright.train.Impurity;
 import dev.splitwright.train.TrainingOptions;
@@ -339,9 +340,9 @@ final class CompileCommand implements Callable<Integer> {
           result.tree().leafCount(), result.tree().internalNodeCount());
       for (Map.Entry<String, Scores> e : result.scores().entrySet()) {
         Scores s = e.getValue();
-        out.printf(Locale.ROOT, "%-10s rows %5d  accuracy %.4f  balanced accuracy %.4f  "
-            + "macro-F1 %.4f%n", e.getKey(), s.rows(), s.accuracy(), s.balancedAccuracy(),
-            s.macroF1());
+        out.printf(Locale.ROOT, "%-10s rows %5d  accuracy %s  balanced accuracy %s  "
+            + "macro-F1 %s%n", e.getKey(), s.rows(), DecimalText.fixed(s.accuracy(), 4),
+            DecimalText.fixed(s.balancedAccuracy(), 4), DecimalText.fixed(s.macroF1(), 4));
       }
       RecallLine.of(result).ifPresent(out::println);
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
@@ -351,9 +352,9 @@ final class CompileCommand implements Callable<Integer> {
       if (choice != null) {
         out.println("layout: " + choice);
       }
-      out.printf(Locale.ROOT, "verified: %d inputs, %d mismatches, branch coverage %.1f%% "
+      out.printf(Locale.ROOT, "verified: %d inputs, %d mismatches, branch coverage %s%% "
           + "(%d of %d splits both ways)%n", v.inputsChecked(), v.mismatches(),
-          100 * v.branchCoverage(), v.coveredSplits(), v.splits());
+          DecimalText.fixed(100 * v.branchCoverage(), 1), v.coveredSplits(), v.splits());
       for (java.nio.file.Path p : result.written()) {
         out.println("wrote " + p);
       }

@@ -2,6 +2,7 @@ package dev.splitwright.cli;
 
 import dev.splitwright.eval.Scores;
 import dev.splitwright.job.CompileResult;
+import dev.splitwright.text.DecimalText;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -53,7 +54,7 @@ final class RecallLine {
     List<String> parts = new ArrayList<>();
     for (int c : shown) {
       parts.add(classes.get(c) + " "
-          + (Double.isNaN(recall[c]) ? "n/a" : String.format(Locale.ROOT, "%.3f", recall[c])));
+          + (Double.isNaN(recall[c]) ? "n/a" : DecimalText.fixed(recall[c], 3)));
     }
     return String.format(Locale.ROOT, "%-10s recall per class: %s%s", part,
         String.join(", ", parts), more);

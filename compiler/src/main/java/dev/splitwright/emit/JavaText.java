@@ -1,5 +1,6 @@
 package dev.splitwright.emit;
 
+import dev.splitwright.text.DecimalText;
 import java.util.Locale;
 
 /** Turns user-supplied text and numbers into safe Java source text. */
@@ -119,8 +120,8 @@ final class JavaText {
     if (value == Float.NEGATIVE_INFINITY) {
       return "Float.NEGATIVE_INFINITY";
     }
-    // Float.toString gives enough digits to identify the float uniquely (its javadoc).
-    return Float.toString(value) + "f";
+    // The shortest decimal that reads back as the float, the same text on every JDK.
+    return DecimalText.shortest(value) + "f";
   }
 
   /** Returns a double literal that reads back as exactly {@code value} (IEEE 754 binary64). */
@@ -134,6 +135,6 @@ final class JavaText {
     if (value == Double.NEGATIVE_INFINITY) {
       return "Double.NEGATIVE_INFINITY";
     }
-    return Double.toString(value);
+    return DecimalText.shortest(value);
   }
 }

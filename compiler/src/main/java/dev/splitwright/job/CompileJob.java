@@ -22,6 +22,7 @@ import dev.splitwright.select.LayoutChoice;
 import dev.splitwright.select.LayoutChooser;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
+import dev.splitwright.text.DecimalText;
 import dev.splitwright.train.CartTrainer;
 import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
@@ -183,8 +184,9 @@ public final class CompileJob {
   static List<String> scoreLines(Map<String, Scores> scores) {
     List<String> lines = new ArrayList<>();
     scores.forEach((part, s) -> lines.add(String.format(Locale.ROOT,
-        "%s (%d rows): accuracy %.4f, balanced accuracy %.4f, macro-F1 %.4f",
-        part, s.rows(), s.accuracy(), s.balancedAccuracy(), s.macroF1())));
+        "%s (%d rows): accuracy %s, balanced accuracy %s, macro-F1 %s",
+        part, s.rows(), DecimalText.fixed(s.accuracy(), 4),
+        DecimalText.fixed(s.balancedAccuracy(), 4), DecimalText.fixed(s.macroF1(), 4))));
     return lines;
   }
 

@@ -11,6 +11,12 @@ import java.util.Objects;
  * that emitted code is verified against.
  */
 public final class DecisionTree {
+  /**
+   * Deepest tree the pipeline takes, trained ({@code --max-depth}) or read from a model file: the
+   * emitter and javac's parser recurse once per level (see {@code cli.Limits}).
+   */
+  public static final int MAX_DEPTH = 100;
+
   private final Schema schema;
   private final Node root;
   private final int depth;

@@ -1,19 +1,25 @@
 package dev.splitwright.persist;
 
+import com.fasterxml.jackson.core.JsonFactory;
+import com.fasterxml.jackson.core.JsonLocation;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.StreamReadConstraints;
+import com.fasterxml.jackson.core.StreamReadFeature;
+import com.fasterxml.jackson.core.exc.StreamConstraintsException;
 import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import dev.splitwright.data.Feature;
+import com.fasterxml.jackson.databind.json.JsonMapper;
 import dev.splitwright.data.InputException;
-import dev.splitwright.data.Schema;
 import dev.splitwright.data.SourcePosition;
 import dev.splitwright.model.CategoricalSplit;
-import dev.splitwright.model.ClassCounts;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
 import dev.splitwright.report.ReportJson;
+import dev.splitwright.text.DecimalText;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -25,8 +31,9 @@ import java.util.Map;
 /**
  * Reads and writes Splitwright's JSON model file. Nodes are a flat pre-order list that refer to
  * their children by index, so deep trees need no deep JSON nesting; thresholds are written as
- * {@link Float#toString} text and read back with {@link Float#parseFloat}, which is exact (a JSON
- * number would pass through a double and could round twice).
+ * the shortest decimal text that reads back as the float ({@link DecimalText}) and read back with
+ * {@link Float#parseFloat}, which is exact (a JSON number would pass through a double and could
+ * round twice).
  */
 public final class ModelFile {
   /** Identifies the format; bump {@link #VERSION} on any incompatible change. */
@@ -34,9 +41,21 @@ public final class ModelFile {
 
   public static final int VERSION = 1;
 
-  private static final ObjectMapper MAPPER = new ObjectMapper()
-      .enable(DeserializationFeature.FAIL_ON_NULL_FOR_PRIMITIVES)
-      .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES);
+  /**
+   * Deepest JSON nesting read. A model file needs four levels (file, node list, node, counts);
+   * limiting it in the parser keeps a hostile file from running anything deep.
+   */
+  static final int MAX_NESTING = 32;
+
+  private static final String REMEDY = "pass a file written by --save-model";
+
+  private static final ObjectMapper MAPPER = JsonMapper.builder(JsonFactory.builder()
+          .streamReadConstraints(StreamReadConstraints.builder().maxNestingDepth(MAX_NESTING)
+              .build())
+          .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+          .build())
+      .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+      .build();
 
   private ModelFile() {}
 
@@ -68,7 +87,7 @@ public final class ModelFile {
     String threshold = null;
     List<Integer> codes = null;
     if (split instanceof NumericSplit numeric) {
-      threshold = Float.toString(numeric.threshold());
+      threshold = DecimalText.shortest(numeric.threshold());
     } else {
       codes = java.util.Arrays.stream(((CategoricalSplit) split).leftCodes().toArray()).boxed()
           .toList();
@@ -85,100 +104,78 @@ public final class ModelFile {
   }
 
   /**
-   * Reads a model file.
+   * Reads a model file, checking all of it: JSON nested deeper than {@link #MAX_NESTING}, a
+   * duplicate member, an unknown member, an index, code, count or threshold out of range, a tree
+   * deeper than {@link DecisionTree#MAX_DEPTH}, or counts that do not add up are refused.
    *
    * @throws InputException if the file cannot be read, is not JSON of this format, or describes an
-   *     invalid tree
+   *     invalid tree; its one-line message names the file and the place in it
    */
   public static DecisionTree read(Path file) throws InputException {
     String name = String.valueOf(file.getFileName());
-    ModelJson json;
+    JsonNode root;
+    String text = "";
     try {
-      json = MAPPER.readValue(Files.readString(file, StandardCharsets.UTF_8), ModelJson.class);
-    } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
-      var location = e.getLocation();
-      long line = location == null ? 0 : location.getLineNr();
-      int column = location == null ? 0 : location.getColumnNr();
-      throw new InputException(SourcePosition.ofCell(name, Math.max(1, line), Math.max(1, column),
-          ""), "not a valid Splitwright model file: " + e.getOriginalMessage().lines().findFirst()
-              .orElse("malformed JSON").replaceFirst(" \\(set [A-Za-z_.]+ .*\\)$", ""),
-          "pass a file written by --save-model");
+      text = Files.readString(file, StandardCharsets.UTF_8);
+      root = MAPPER.readTree(text);
+    } catch (StreamConstraintsException e) {
+      throw new InputException(tooDeep(name, text), "not a valid Splitwright model file: JSON "
+          + "nested more than " + MAX_NESTING + " levels deep", REMEDY);
+    } catch (JsonProcessingException e) {
+      throw new InputException(position(name, e), "not a valid Splitwright model file: "
+          + e.getOriginalMessage().lines().findFirst().orElse("malformed JSON")
+              .replaceFirst(" \\(set [A-Za-z_.]+ .*\\)$", "")
+              .replaceFirst(" \\(bound as .*$", ""), REMEDY);
     } catch (IOException e) {
       throw new InputException(SourcePosition.ofFile(name),
           "cannot read the model file (" + e.getMessage() + ")",
           "check the path and permissions");
     }
+    if (root == null || root.isMissingNode()) {
+      throw new InputException(SourcePosition.ofFile(name),
+          "not a valid Splitwright model file: the file is empty", REMEDY);
+    }
     try {
-      return fromJson(json);
-    } catch (IllegalArgumentException | IndexOutOfBoundsException | NullPointerException e) {
-      throw new InputException(SourcePosition.ofFile(name), "invalid model: " + e.getMessage(),
-          "pass a file written by --save-model");
+      return new ModelReader(DecisionTree.MAX_DEPTH).read(root);
+    } catch (BadModelException e) {
+      throw new InputException(SourcePosition.ofFile(name), e.getMessage(), REMEDY);
     }
   }
 
-  private static DecisionTree fromJson(ModelJson json) {
-    if (!FORMAT.equals(json.format())) {
-      throw new IllegalArgumentException(
-          "format is '" + json.format() + "', expected '" + FORMAT + "'");
-    }
-    if (json.version() != VERSION) {
-      throw new IllegalArgumentException("version " + json.version() + " is not supported; this "
-          + "build reads version " + VERSION);
-    }
-    List<Feature> features = json.features().stream()
-        .map(f -> switch (f.kind()) {
-          case "numeric" -> Feature.numeric(f.name());
-          case "categorical" -> Feature.categorical(f.name(), f.categories());
-          default -> throw new IllegalArgumentException("unknown feature kind '" + f.kind() + "'");
-        })
-        .toList();
-    Schema schema = new Schema(features, json.target(), json.classes());
-    if (json.nodes().isEmpty()) {
-      throw new IllegalArgumentException("the model has no nodes");
-    }
-    boolean[] used = new boolean[json.nodes().size()];
-    Node root = build(json.nodes(), 0, used);
-    for (int i = 0; i < used.length; i++) {
-      if (!used[i]) {
-        throw new IllegalArgumentException("node " + i + " is not reachable from the root");
+  /** Where the nesting first goes past the limit (the parser's exception does not say). */
+  private static SourcePosition tooDeep(String name, String text) {
+    int depth = 0;
+    long line = 1;
+    int column = 0;
+    boolean inString = false;
+    boolean escaped = false;
+    for (int i = 0; i < text.length(); i++) {
+      char c = text.charAt(i);
+      column++;
+      if (c == '\n') {
+        line++;
+        column = 0;
+      } else if (inString) {
+        inString = escaped || c != '"';
+        escaped = !escaped && c == '\\';
+      } else if (c == '"') {
+        inString = true;
+      } else if (c == '{' || c == '[') {
+        if (++depth > MAX_NESTING) {
+          return SourcePosition.ofCell(name, line, column, "");
+        }
+      } else if (c == '}' || c == ']') {
+        depth--;
       }
     }
-    return new DecisionTree(schema, root);
+    return SourcePosition.ofFile(name);
   }
 
-  private static Node build(List<ModelJson.NodeJson> nodes, int index, boolean[] used) {
-    if (used[index]) {
-      throw new IllegalArgumentException("node " + index + " is referred to twice");
-    }
-    used[index] = true;
-    ModelJson.NodeJson n = nodes.get(index);
-    ClassCounts counts = ClassCounts.of(n.counts().stream().mapToInt(Integer::intValue).toArray());
-    if (n.predict() != null) {
-      return new Leaf(n.predict(), counts);
-    }
-    if (n.feature() == null || n.left() == null || n.right() == null || n.missing() == null) {
-      throw new IllegalArgumentException("node " + index + " is neither a leaf nor a split");
-    }
-    if (n.left() <= index || n.right() <= index) {
-      throw new IllegalArgumentException("node " + index + " must list its children after it");
-    }
-    boolean missingLeft = switch (n.missing()) {
-      case "left" -> true;
-      case "right" -> false;
-      default -> throw new IllegalArgumentException("node " + index + ": missing must be "
-          + "'left' or 'right'");
-    };
-    Node left = build(nodes, n.left(), used);
-    Node right = build(nodes, n.right(), used);
-    if (n.threshold() != null) {
-      return new NumericSplit(n.feature(), Float.parseFloat(n.threshold()), missingLeft, left,
-          right, counts);
-    }
-    if (n.leftCodes() == null) {
-      throw new IllegalArgumentException("node " + index + " has neither threshold nor leftCodes");
-    }
-    return new CategoricalSplit(n.feature(),
-        CategoricalSplit.CodeSet.of(n.leftCodes().stream().mapToInt(Integer::intValue).toArray()),
-        missingLeft, left, right, counts);
+  private static SourcePosition position(String name, JsonProcessingException e) {
+    JsonLocation location = e.getLocation();
+    long line = location == null ? 0 : location.getLineNr();
+    int column = location == null ? 0 : location.getColumnNr();
+    return line < 1 ? SourcePosition.ofFile(name)
+        : SourcePosition.ofCell(name, line, Math.max(1, column), "");
   }
 }

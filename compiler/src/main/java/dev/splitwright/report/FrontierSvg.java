@@ -1,5 +1,6 @@
 package dev.splitwright.report;
 
+import dev.splitwright.text.DecimalText;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -194,7 +195,7 @@ public final class FrontierSvg {
     line("  <text x=\"%s\" y=\"%s\" fill=\"#2e7d32\" text-anchor=\"%s\" stroke=\"#ffffff\""
         + " stroke-width=\"4\" paint-order=\"stroke\">chosen: %d B, %s</text>",
         num(cx + (leftOfCentre ? 6 : -6)), num(cy + 24), leftOfCentre ? "start" : "end",
-        c.size(), String.format(Locale.ROOT, "%.4f", c.score()));
+        c.size(), DecimalText.fixed(c.score(), 4));
   }
 
   private void legend() {
@@ -223,7 +224,7 @@ public final class FrontierSvg {
   }
 
   private static String num(double v) {
-    String s = String.format(Locale.ROOT, "%.1f", v);
+    String s = DecimalText.fixed(v, 1);
     return s.equals("-0.0") ? "0.0" : s;
   }
 
@@ -268,7 +269,8 @@ public final class FrontierSvg {
         hi = lo + 1;
       }
       double raw = (hi - lo) / 6;
-      double power = Math.pow(10, Math.floor(Math.log10(raw)));
+      // StrictMath: Math.log10 and Math.pow may differ in the last bit between JVMs.
+      double power = StrictMath.pow(10, Math.floor(StrictMath.log10(raw)));
       double step = power;
       for (double m : new double[] {1, 2, 5, 10}) {
         if (m * power >= raw) {
@@ -300,8 +302,8 @@ public final class FrontierSvg {
     }
 
     String label(double v) {
-      int decimals = step >= 1 ? 0 : (int) Math.ceil(-Math.log10(step) - 1e-9);
-      return String.format(Locale.ROOT, "%." + decimals + "f", v);
+      int decimals = step >= 1 ? 0 : (int) Math.ceil(-StrictMath.log10(step) - 1e-9);
+      return DecimalText.fixed(v, decimals);
     }
   }
 }

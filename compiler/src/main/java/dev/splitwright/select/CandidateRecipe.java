@@ -1,6 +1,6 @@
 package dev.splitwright.select;
 
-import java.util.Locale;
+import dev.splitwright.text.DecimalText;
 
 /**
  * How to reproduce one candidate (as opposed to {@link SearchSettings}, which say what the whole
@@ -23,7 +23,7 @@ public record CandidateRecipe(int maxDepth, int minLeaf, double alpha, double ne
 
   /** Formats an alpha for messages: {@code 0}, or four significant digits. */
   public static String formatAlpha(double alpha) {
-    return alpha == 0 ? "0" : String.format(Locale.ROOT, "%.4g", alpha);
+    return alpha == 0 ? "0" : DecimalText.significant(alpha, 4);
   }
 
   /**

@@ -1,6 +1,7 @@
 package dev.splitwright.select;
 
 import dev.splitwright.data.InputException;
+import dev.splitwright.text.DecimalText;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
 import java.util.Locale;
@@ -72,8 +73,8 @@ public final class SizeText {
       return bytes + " B";
     }
     if (bytes < 1024 * 1024) {
-      return String.format(Locale.ROOT, "%d B (%.2f KiB)", bytes, bytes / 1024.0);
+      return bytes + " B (" + DecimalText.fixed(bytes / 1024.0, 2) + " KiB)";
     }
-    return String.format(Locale.ROOT, "%d B (%.2f MiB)", bytes, bytes / (1024.0 * 1024));
+    return bytes + " B (" + DecimalText.fixed(bytes / (1024.0 * 1024), 2) + " MiB)";
   }
 }

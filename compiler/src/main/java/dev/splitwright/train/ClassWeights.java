@@ -2,6 +2,7 @@ package dev.splitwright.train;
 
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.Schema;
+import dev.splitwright.text.DecimalText;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Collections;
@@ -141,7 +142,7 @@ public final class ClassWeights {
       return kind.name().toLowerCase(Locale.ROOT);
     }
     List<String> pairs = new ArrayList<>();
-    byLabel.forEach((label, w) -> pairs.add(label + "=" + w));
+    byLabel.forEach((label, w) -> pairs.add(label + "=" + DecimalText.shortest(w)));
     return String.join(",", pairs);
   }
 
@@ -212,7 +213,7 @@ public final class ClassWeights {
       if (sb.length() > 1) {
         sb.append(", ");
       }
-      sb.append(e.getKey()).append('=').append(e.getValue());
+      sb.append(e.getKey()).append('=').append(DecimalText.shortest(e.getValue()));
     }
     return sb.append('}').toString();
   }

@@ -10,7 +10,7 @@ class JavaTextTest {
 
   @Test
   void floatLiteralsReadBackExactly() {
-    // IEEE 754 binary32: every non-NaN bit pattern must survive Float.toString + parseFloat.
+    // IEEE 754 binary32: every non-NaN bit pattern must survive the literal + parseFloat.
     SplittableRandom random = new SplittableRandom(3);
     for (int i = 0; i < 100_000; i++) {
       float f = Float.intBitsToFloat(random.nextInt());

@@ -108,6 +108,9 @@ public final class RandomTrees {
     }
     Node left = build(proto.left, schema, pools, random);
     Node right = build(proto.right, schema, pools, random);
+    // A split's rows are its children's, as in a trained tree (model files are checked for it);
+    // the draw above stays, so the random stream and every other choice are as before.
+    counts = sum(left.counts(), right.counts());
     int f = random.nextInt(schema.featureCount());
     boolean missingLeft = random.nextBoolean();
     Feature feature = schema.feature(f);
@@ -125,6 +128,14 @@ public final class RandomTrees {
     }
     float[] pool = pools[f];
     return new NumericSplit(f, pool[random.nextInt(pool.length)], missingLeft, left, right, counts);
+  }
+
+  private static ClassCounts sum(ClassCounts a, ClassCounts b) {
+    int[] total = a.toArray();
+    for (int c = 0; c < total.length; c++) {
+      total[c] = Math.addExact(total[c], b.get(c));
+    }
+    return ClassCounts.of(total);
   }
 
   private static ClassCounts counts(SplittableRandom random, int classes) {

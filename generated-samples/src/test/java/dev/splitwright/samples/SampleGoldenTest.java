@@ -70,7 +70,7 @@ class SampleGoldenTest {
    * The sample's command line: one argument a line, '#' comments; {@value #DEMO_DATA} stands for
    * the demo data directory the build declares (system property {@code splitwright.demoData}).
    */
-  private static List<String> recordedArgs(String sample) throws IOException {
+  static List<String> recordedArgs(String sample) throws IOException {
     String demoData = System.getProperty("splitwright.demoData");
     assertThat(demoData).as("system property splitwright.demoData (set by the parent pom)")
         .isNotBlank();
@@ -80,13 +80,13 @@ class SampleGoldenTest {
   }
 
   /** Sources live in the module's source tree; reports and pictures in {@code reports/}. */
-  private static Path committedPlace(Path relative) {
+  static Path committedPlace(Path relative) {
     return relative.toString().endsWith(".java")
         ? Path.of("src/main/java").resolve(relative)
         : Path.of("reports").resolve(relative.getFileName());
   }
 
-  private static List<Path> files(Path root) throws IOException {
+  static List<Path> files(Path root) throws IOException {
     try (Stream<Path> walk = Files.walk(root)) {
       return walk.filter(Files::isRegularFile).map(root::relativize).sorted().toList();
     }
