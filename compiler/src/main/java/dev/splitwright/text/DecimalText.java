@@ -10,8 +10,8 @@ import java.math.RoundingMode;
  * {@link Float#toString} and {@link Double#toString} are not: from JDK 19 they print the shortest
  * decimal that rounds back, while JDK 17 sometimes prints one digit more (e.g. {@code
  * 1.18846831E13} for the float {@code 1.1884683E13}). {@link #shortest} follows the JDK 19+ rule
- * and layout, so on those JDKs its text equals theirs, and on JDK 17 it differs only where JDK 17 was
- * not shortest. Fixed-point and significant-digit forms round that shortest decimal half up, as
+ * and layout, so on those JDKs its text equals theirs, and on JDK 17 it differs only where JDK 17
+ * was not shortest. Fixed-point and significant-digit forms round that shortest decimal half up, as
  * {@link java.util.Formatter} does with the digits it gets from the JDK.
  */
 public final class DecimalText {
@@ -25,8 +25,8 @@ public final class DecimalText {
    * The shortest decimal that reads back as exactly {@code value} (IEEE 754 binary32 round to
    * nearest, ties to even), in the layout of {@link Float#toString}: plain from 10^-3 up to below
    * 10^7 ({@code 0.001}, {@code 1234567.0}), else {@code d.dddE±n} ({@code 1.0E-5}); {@code 0.0},
-   * {@code -0.0}, {@code NaN}, {@code Infinity} and {@code -Infinity} as there. A finite result is a
-   * valid Java float literal once {@code f} is appended, and a valid JSON number.
+   * {@code -0.0}, {@code NaN}, {@code Infinity} and {@code -Infinity} as there. A finite result is
+   * a valid Java float literal once {@code f} is appended, and a valid JSON number.
    */
   public static String shortest(float value) {
     if (Float.isNaN(value) || Float.isInfinite(value) || value == 0) {
@@ -41,7 +41,7 @@ public final class DecimalText {
     return layout(value < 0, choose(exact, below, above, even, 9));
   }
 
-  /** As {@link #shortest(float)} for IEEE 754 binary64, in the layout of {@link Double#toString}. */
+  /** As {@link #shortest(float)} for IEEE 754 binary64, in {@link Double#toString}'s layout. */
   public static String shortest(double value) {
     if (Double.isNaN(value) || Double.isInfinite(value) || value == 0) {
       return Double.toString(value);

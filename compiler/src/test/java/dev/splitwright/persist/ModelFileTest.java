@@ -87,7 +87,8 @@ class ModelFileTest {
   static Stream<Arguments> faults() {
     return Stream.of(
         fault("category code equal to the number of categories",
-            d -> codes(d, 1, 3), "/nodes/2/leftCodes/1: expected an integer from 0 to 2 but found 3"),
+            d -> codes(d, 1, 3),
+            "/nodes/2/leftCodes/1: expected an integer from 0 to 2 but found 3"),
         fault("category code above 64", d -> codes(d, 1, 70), "/nodes/2/leftCodes/1", "found 70"),
         fault("negative category code", d -> codes(d, -1, 2), "/nodes/2/leftCodes/0", "found -1"),
         fault("repeated category code", d -> codes(d, 1, 1),
