@@ -1,22 +1,14 @@
 package dev.splitwright.check;
 
-import java.util.Locale;
-
 /**
  * Reads the little-endian items of a DEX file and checks every access against the file's length,
  * so a truncated or corrupt file fails with the offset of the bad item instead of an index
  * exception.
  */
-final class DexReader {
-
-  private final byte[] bytes;
+final class DexReader extends BoundedBytes {
 
   DexReader(byte[] bytes) {
-    this.bytes = bytes;
-  }
-
-  int length() {
-    return bytes.length;
+    super(bytes, "DEX");
   }
 
   /**
@@ -89,28 +81,8 @@ final class DexReader {
     return text.toString();
   }
 
-  /** Fails unless {@code length} bytes starting at {@code offset} lie inside the file. */
-  void need(long offset, long length, String item) {
-    if (offset < 0 || length < 0 || offset > bytes.length || length > bytes.length - offset) {
-      throw error(
-          offset,
-          String.format(
-              Locale.ROOT,
-              "truncated: %s needs %d bytes at offset %d but the file has %d bytes",
-              item,
-              length,
-              offset,
-              bytes.length));
-    }
-  }
-
   static IllegalArgumentException error(long offset, String message) {
-    return new IllegalArgumentException("malformed DEX file at offset " + offset + ": " + message);
-  }
-
-  private int u8(long offset, String item) {
-    need(offset, 1, item);
-    return bytes[(int) offset] & 0xFF;
+    return malformed("DEX", offset, message);
   }
 
   private int continuation(long[] at, long start, String item) {

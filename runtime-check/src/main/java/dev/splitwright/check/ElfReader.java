@@ -2,30 +2,19 @@ package dev.splitwright.check;
 
 import java.nio.ByteOrder;
 import java.nio.charset.StandardCharsets;
-import java.util.Locale;
 
 /**
  * Reads the fixed-size items of an ELF file in the file's own byte order and checks every access
  * against the file's length, so a truncated or corrupt file fails with the offset of the bad item
  * instead of an index exception.
  */
-final class ElfReader {
+final class ElfReader extends BoundedBytes {
 
-  private final byte[] bytes;
   private final ByteOrder order;
 
   ElfReader(byte[] bytes, ByteOrder order) {
-    this.bytes = bytes;
+    super(bytes, "ELF");
     this.order = order;
-  }
-
-  int length() {
-    return bytes.length;
-  }
-
-  int u8(long offset, String item) {
-    need(offset, 1, item);
-    return bytes[(int) offset] & 0xFF;
   }
 
   int u16(long offset, String item) {
@@ -65,23 +54,8 @@ final class ElfReader {
     throw error(start, item + " has no terminating NUL before offset " + end);
   }
 
-  /** Fails unless {@code length} bytes starting at {@code offset} lie inside the file. */
-  void need(long offset, long length, String item) {
-    if (offset < 0 || length < 0 || offset > bytes.length || length > bytes.length - offset) {
-      throw error(
-          offset,
-          String.format(
-              Locale.ROOT,
-              "truncated: %s needs %d bytes at offset %d but the file has %d bytes",
-              item,
-              length,
-              offset,
-              bytes.length));
-    }
-  }
-
   static IllegalArgumentException error(long offset, String message) {
-    return new IllegalArgumentException("malformed ELF file at offset " + offset + ": " + message);
+    return malformed("ELF", offset, message);
   }
 
   private long unsigned(long offset, int size) {
