@@ -1,11 +1,10 @@
 package dev.splitwright.cgen;
 
+import dev.splitwright.emit.LeafNumbers;
 import dev.splitwright.model.ClassCounts;
 import dev.splitwright.model.Leaf;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
 
 /**
  * What the tree code returns at a leaf: the class, or with probabilities a leaf number that tables
@@ -17,8 +16,7 @@ import java.util.Map;
 final class CLeaves {
   private final String prefix;
   private final boolean probabilities;
-  private final Map<String, Integer> numbers = new LinkedHashMap<>();
-  private final List<Leaf> distinct = new ArrayList<>();
+  private final LeafNumbers numbers = new LeafNumbers();
 
   CLeaves(String prefix, boolean probabilities) {
     this.prefix = prefix;
@@ -26,27 +24,11 @@ final class CLeaves {
   }
 
   int payload(Leaf leaf) {
-    if (!probabilities) {
-      return leaf.prediction();
-    }
-    StringBuilder key = new StringBuilder().append(leaf.prediction());
-    for (float v : frequencies(leaf.counts())) {
-      key.append(',').append(Float.floatToRawIntBits(v));
-    }
-    return numbers.computeIfAbsent(key.toString(), k -> {
-      distinct.add(leaf);
-      return distinct.size() - 1;
-    });
+    return probabilities ? numbers.numberOf(leaf) : leaf.prediction();
   }
 
-  /** The frequencies as the model gives them, narrowed to float. */
-  static float[] frequencies(ClassCounts counts) {
-    double total = counts.total();
-    float[] p = new float[counts.classCount()];
-    for (int c = 0; c < p.length; c++) {
-      p[c] = (float) (total == 0 ? 0 : counts.get(c) / total);
-    }
-    return p;
+  private static float[] frequencies(ClassCounts counts) {
+    return LeafNumbers.frequencies(counts);
   }
 
   /**
@@ -61,7 +43,7 @@ final class CLeaves {
     List<Long> starts = new ArrayList<>();
     List<Long> shareClasses = new ArrayList<>();
     List<String> shares = new ArrayList<>();
-    for (Leaf leaf : distinct) {
+    for (Leaf leaf : numbers.distinct()) {
       classes.add((long) leaf.prediction());
       starts.add((long) shares.size());
       float[] p = frequencies(leaf.counts());
@@ -88,7 +70,7 @@ final class CLeaves {
   /** {@code <prefix>_probabilities}: fills {@code out} from the leaf {@code leafCall} returns. */
   void writeProbabilities(StringBuilder out, String signature, String leafCall) {
     out.append(signature).append("\n{\n");
-    boolean anyShare = distinct.stream()
+    boolean anyShare = numbers.distinct().stream()
         .anyMatch(l -> l.counts().total() > 0);
     String macro = prefix.toUpperCase(java.util.Locale.ROOT);
     if (anyShare) {

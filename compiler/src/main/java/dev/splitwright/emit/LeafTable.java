@@ -9,10 +9,6 @@ import com.palantir.javapoet.TypeSpec;
 import dev.splitwright.data.Schema;
 import dev.splitwright.model.ClassCounts;
 import dev.splitwright.model.Leaf;
-import java.util.ArrayList;
-import java.util.LinkedHashMap;
-import java.util.List;
-import java.util.Map;
 import javax.lang.model.element.Modifier;
 
 /**
@@ -24,8 +20,7 @@ import javax.lang.model.element.Modifier;
  */
 final class LeafTable {
   private final boolean probabilities;
-  private final Map<String, Integer> numbers = new LinkedHashMap<>();
-  private final List<Leaf> distinct = new ArrayList<>();
+  private final LeafNumbers numbers = new LeafNumbers();
 
   LeafTable(boolean probabilities) {
     this.probabilities = probabilities;
@@ -37,31 +32,11 @@ final class LeafTable {
 
   /** The value the tree code returns at {@code leaf}. */
   int payload(Leaf leaf) {
-    if (!probabilities) {
-      return leaf.prediction();
-    }
-    StringBuilder key = new StringBuilder().append(leaf.prediction());
-    float[] p = frequencies(leaf.counts());
-    for (float v : p) {
-      key.append(',').append(Float.floatToRawIntBits(v));
-    }
-    Integer known = numbers.get(key.toString());
-    if (known != null) {
-      return known;
-    }
-    numbers.put(key.toString(), distinct.size());
-    distinct.add(leaf);
-    return distinct.size() - 1;
+    return probabilities ? numbers.numberOf(leaf) : leaf.prediction();
   }
 
-  /** The frequencies as the model gives them, narrowed to float. */
-  static float[] frequencies(ClassCounts counts) {
-    double total = counts.total();
-    float[] p = new float[counts.classCount()];
-    for (int c = 0; c < p.length; c++) {
-      p[c] = (float) (total == 0 ? 0 : counts.get(c) / total);
-    }
-    return p;
+  private static float[] frequencies(ClassCounts counts) {
+    return LeafNumbers.frequencies(counts);
   }
 
   /** The expression {@code classify} returns for a tree result {@code leafCall}. */
@@ -81,7 +56,7 @@ final class LeafTable {
     PackedInts data = new PackedInts();
     PackedWords shares = new PackedWords();
     int entries = 0;
-    for (Leaf leaf : distinct) {
+    for (Leaf leaf : numbers.distinct()) {
       for (float v : frequencies(leaf.counts())) {
         entries += v != 0f ? 1 : 0;
       }
@@ -90,7 +65,7 @@ final class LeafTable {
     if (words) {
       support.need(SupportMethods.Kind.WORDS);
     }
-    for (Leaf leaf : distinct) {
+    for (Leaf leaf : numbers.distinct()) {
       data.add(leaf.prediction());
       float[] p = frequencies(leaf.counts());
       int nonZero = 0;
@@ -105,7 +80,7 @@ final class LeafTable {
         }
       }
     }
-    int n = distinct.size();
+    int n = numbers.distinct().size();
     type.addField(intArray("LEAF_CLASS", n, "The class of each leaf number."));
     type.addField(intArray("PROBABILITY_START", n + 1,
         "Where each leaf number's non-zero frequencies start in PROBABILITY; one past the last."));
