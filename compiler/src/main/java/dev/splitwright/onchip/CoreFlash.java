@@ -73,16 +73,13 @@ public final class CoreFlash {
     with.put(MAIN, caller(options));
     try (BareMetalImage image = arm.build(profile, codeFlags, with)) {
       Set<String> own = names(object.functions());
-      Map<String, Long> helpers = new TreeMap<>();
-      for (ElfSymbol f : image.elf().functions()) {
-        if (!baseFunctions.contains(f.name()) && !own.contains(f.name())
-            && !f.name().equals("main")) {
-          helpers.merge(f.name(), f.size(), Long::max);
-        }
-      }
-      long helperBytes = helpers.values().stream().mapToLong(Long::longValue).sum();
+      List<ElfSymbol> helpers = image.elf().functions().stream()
+          .filter(f -> !baseFunctions.contains(f.name()) && !own.contains(f.name())
+              && !f.name().equals("main"))
+          .toList();
       return new FlashCost(profile.id(), flags, object.flashBytes(), without,
-          image.flashBytes(), List.copyOf(helpers.keySet()), helperBytes);
+          image.flashBytes(), helpers.stream().map(ElfSymbol::name).sorted().distinct().toList(),
+          coveredBytes(helpers));
     }
   }
 
@@ -116,6 +113,29 @@ public final class CoreFlash {
           .append("    text = ").append(p).append("_feature_name(c);\n");
     }
     return out.append("    return c;\n}\n").toString();
+  }
+
+  /**
+   * Bytes the functions span, each byte once: libgcc gives one body several names (e.g. {@code
+   * __aeabi_fcmple} beside {@code __lesf2} entry points), and their sizes overlap.
+   */
+  static long coveredBytes(List<ElfSymbol> functions) {
+    // Start address (Thumb bit cleared) to the furthest end seen from there.
+    TreeMap<Long, Long> ranges = new TreeMap<>();
+    for (ElfSymbol f : functions) {
+      long start = f.value() & ~1L;
+      ranges.merge(start, start + f.size(), Long::max);
+    }
+    long covered = 0;
+    long reached = Long.MIN_VALUE;
+    for (Map.Entry<Long, Long> range : ranges.entrySet()) {
+      long from = Math.max(range.getKey(), reached);
+      if (range.getValue() > from) {
+        covered += range.getValue() - from;
+        reached = range.getValue();
+      }
+    }
+    return covered;
   }
 
   private static Set<String> names(List<ElfSymbol> functions) {
