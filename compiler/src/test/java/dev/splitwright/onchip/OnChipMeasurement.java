@@ -54,9 +54,10 @@ class OnChipMeasurement {
       for (CortexMProfile core : List.of(CortexMProfile.CORTEX_M0PLUS,
           CortexMProfile.CORTEX_M4F)) {
         for (Layout layout : List.of(Layout.BRANCHES, Layout.TABLE)) {
-          for (InputKind kind : List.of(InputKind.FLOAT, InputKind.INT)) {
+          for (String input : List.of("float", "float bits", "int32")) {
+            InputKind kind = input.equals("int32") ? InputKind.INT : InputKind.FLOAT;
             CEmitOptions bare = CEmitOptions.of("clf").withLayout(layout).withInputKind(kind)
-                .withBare(true);
+                .withBare(true).withCompareBits(input.equals("float bits"));
             CSource source = CEmitter.emit(tree, bare, HeaderInfo.none());
             FlashCost cost = CoreFlash.measure(arm, source, bare, core, List.of("-Os"),
                 OnChipFixtures.BUILD_LIMIT);
@@ -73,7 +74,7 @@ class OnChipMeasurement {
             table.append(String.format(Locale.ROOT,
                 "| %s | %s | %s | %s | %d | %.1f | %d | %d | %d | %d | %.1f | %d | %d | %.1f |%n",
                 t[0], core.id(), layout.name().toLowerCase(Locale.ROOT),
-                kind == InputKind.INT ? "int32" : "float", cost.objectFlashBytes(),
+                input, cost.objectFlashBytes(),
                 (double) cost.objectFlashBytes() / tree.leafCount(),
                 withStrings.objectFlashBytes(), cost.linkedCost(), cost.helperBytes(),
                 n.worst(), n.mean(), proof.inputsChecked(), proof.mismatches(),
