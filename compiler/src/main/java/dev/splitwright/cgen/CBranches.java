@@ -7,6 +7,7 @@ import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
+import java.util.Optional;
 
 /** The tree as nested {@code if} comparisons in one function. */
 final class CBranches {
@@ -14,19 +15,31 @@ final class CBranches {
   private final InputKind kind;
   private final CSets sets;
   private final CLeaves leaves;
+  private final Optional<CFloatKeys> keys;
   private boolean readsInput;
 
-  private CBranches(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves) {
+  private CBranches(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves,
+      Optional<CFloatKeys> keys) {
     this.tree = tree;
     this.kind = kind;
     this.sets = sets;
     this.leaves = leaves;
+    this.keys = keys;
   }
 
   /** A function with {@code signature} that returns the leaf payload of {@code x}. */
   static String function(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves,
       String signature) {
-    CBranches writer = new CBranches(tree, kind, sets, leaves);
+    return function(tree, kind, sets, leaves, Optional.empty(), signature);
+  }
+
+  /**
+   * As {@link #function(DecisionTree, InputKind, CSets, CLeaves, String)}; with {@code keys},
+   * float splits compare bit patterns ({@link CFloatKeys}).
+   */
+  static String function(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves,
+      Optional<CFloatKeys> keys, String signature) {
+    CBranches writer = new CBranches(tree, kind, sets, leaves, keys);
     StringBuilder body = new StringBuilder();
     writer.node(tree.root(), body, 1);
     StringBuilder out = new StringBuilder(signature).append("\n{\n");
@@ -53,6 +66,10 @@ final class CBranches {
 
   private String condition(Split split) {
     String value = "x[" + split.feature() + "]";
+    if (split instanceof NumericSplit numeric && keys.isPresent()) {
+      readsInput = true;
+      return keys.get().call(value, numeric.threshold(), split.missingLeft());
+    }
     if (split instanceof NumericSplit numeric) {
       String condition = CComparison.of(numeric, kind).condition(value, split.missingLeft(), kind);
       readsInput |= condition.contains(value);

@@ -9,10 +9,12 @@ import java.util.Objects;
  * How to emit C: the base name of the files and of every public identifier, the layout ({@link
  * Layout#BRANCHES} or {@link Layout#TABLE}; {@code smallest} is resolved by the caller, who
  * measures both), the input type ({@link InputKind#FLOAT} or {@link InputKind#INT}, which is
- * {@code int32_t} in C), class probabilities, and {@code bare} (no label and feature-name strings).
+ * {@code int32_t} in C), class probabilities, {@code bare} (no label and feature-name strings)
+ * and {@code compareBits} (float input compared as IEEE 754 bit patterns in integer registers, see
+ * {@link CFloatKeys}, so a core without FPU needs no soft-float helper).
  */
 public record CEmitOptions(String baseName, Layout layout, InputKind inputKind,
-    boolean probabilities, boolean bare) {
+    boolean probabilities, boolean bare, boolean compareBits) {
 
   public CEmitOptions {
     CNames.requireBase(Objects.requireNonNull(baseName, "baseName"));
@@ -25,6 +27,15 @@ public record CEmitOptions(String baseName, Layout layout, InputKind inputKind,
     if (inputKind == InputKind.DOUBLE) {
       throw new IllegalArgumentException("C input is float or int32, not double");
     }
+    if (compareBits && inputKind != InputKind.FLOAT) {
+      throw new IllegalArgumentException("comparing bit patterns applies to float input only");
+    }
+  }
+
+  /** Options that compare floats as floats. */
+  public CEmitOptions(String baseName, Layout layout, InputKind inputKind, boolean probabilities,
+      boolean bare) {
+    this(baseName, layout, inputKind, probabilities, bare, false);
   }
 
   /** Options for {@code baseName} with the branches layout, float input and no extras. */
@@ -33,19 +44,23 @@ public record CEmitOptions(String baseName, Layout layout, InputKind inputKind,
   }
 
   public CEmitOptions withLayout(Layout value) {
-    return new CEmitOptions(baseName, value, inputKind, probabilities, bare);
+    return new CEmitOptions(baseName, value, inputKind, probabilities, bare, compareBits);
   }
 
   public CEmitOptions withInputKind(InputKind value) {
-    return new CEmitOptions(baseName, layout, value, probabilities, bare);
+    return new CEmitOptions(baseName, layout, value, probabilities, bare, compareBits);
   }
 
   public CEmitOptions withProbabilities(boolean value) {
-    return new CEmitOptions(baseName, layout, inputKind, value, bare);
+    return new CEmitOptions(baseName, layout, inputKind, value, bare, compareBits);
   }
 
   public CEmitOptions withBare(boolean value) {
-    return new CEmitOptions(baseName, layout, inputKind, probabilities, value);
+    return new CEmitOptions(baseName, layout, inputKind, probabilities, value, compareBits);
+  }
+
+  public CEmitOptions withCompareBits(boolean value) {
+    return new CEmitOptions(baseName, layout, inputKind, probabilities, bare, value);
   }
 
   /** The base name in upper case: the prefix of every macro. */

@@ -12,6 +12,7 @@ import java.util.EnumSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 
 /**
@@ -45,18 +46,30 @@ final class CTable {
   private final Map<Long, Integer> thresholdIndex = new LinkedHashMap<>();
   private final List<String> thresholds = new ArrayList<>();
   private final Set<CComparison.Op> ops = EnumSet.noneOf(CComparison.Op.class);
+  private final Optional<CFloatKeys> keys;
 
-  private CTable(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves) {
+  private CTable(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves,
+      Optional<CFloatKeys> keys) {
     this.tree = tree;
     this.kind = kind;
     this.sets = sets;
     this.leaves = leaves;
+    this.keys = keys;
   }
 
   /** The tables and a function with {@code signature} that returns the leaf payload of x. */
   static String function(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves,
       String prefix, String signature) {
-    CTable table = new CTable(tree, kind, sets, leaves);
+    return function(tree, kind, sets, leaves, Optional.empty(), prefix, signature);
+  }
+
+  /**
+   * As {@link #function(DecisionTree, InputKind, CSets, CLeaves, String, String)}; with {@code
+   * keys}, every float split is op 0 on a threshold key ({@link CFloatKeys}).
+   */
+  static String function(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves,
+      Optional<CFloatKeys> keys, String prefix, String signature) {
+    CTable table = new CTable(tree, kind, sets, leaves, keys);
     table.encode(tree.root());
     return table.write(prefix, signature);
   }
@@ -71,7 +84,16 @@ final class CTable {
     int at = words.size();
     long op;
     long operand;
-    if (split instanceof NumericSplit numeric) {
+    if (split instanceof NumericSplit numeric && keys.isPresent()) {
+      keys.get().use();
+      ops.add(CComparison.Op.AT_MOST);
+      op = CComparison.Op.AT_MOST.ordinal();
+      long key = CFloatKeys.key(numeric.threshold());
+      operand = thresholdIndex.computeIfAbsent(key, k -> {
+        thresholds.add(CFloatKeys.constant(numeric.threshold()));
+        return thresholds.size() - 1;
+      });
+    } else if (split instanceof NumericSplit numeric) {
       CComparison comparison = CComparison.of(numeric, kind);
       ops.add(comparison.op());
       op = comparison.op().ordinal();
@@ -110,8 +132,8 @@ final class CTable {
         + " * thresholds[operand]. A child always comes after its parent.\n */\n");
     CArrays.writeUnsigned(out, treeName, words);
     if (!thresholds.isEmpty()) {
-      CArrays.write(out, kind == InputKind.INT ? "int32_t" : "float", thresholdName, thresholds,
-          kind == InputKind.INT ? 8 : 3);
+      CArrays.write(out, keys.isPresent() ? "uint32_t" : kind == InputKind.INT ? "int32_t"
+          : "float", thresholdName, thresholds, kind == InputKind.INT ? 8 : 3);
     }
     out.append(signature).append("\n{\n");
     boolean splits = words.size() > 1;
@@ -132,7 +154,10 @@ final class CTable {
     for (CComparison.Op op : ops) {
       String t = thresholdName + "[operand]";
       out.append("        case ").append(op.ordinal()).append("u:\n");
-      if (kind == InputKind.INT) {
+      if (keys.isPresent()) {
+        out.append("            left = ").append(keys.get().function()).append("(v, ").append(t)
+            .append(", (int)((w >> 1) & 1u));\n");
+      } else if (kind == InputKind.INT) {
         out.append("            left = v ").append(op == CComparison.Op.BELOW ? "<" : "<=")
             .append(' ').append(t).append(";\n");
       } else {

@@ -1,5 +1,6 @@
 package dev.splitwright.verify;
 
+import dev.splitwright.data.Dataset;
 import dev.splitwright.model.DecisionTree;
 import java.util.List;
 
@@ -14,6 +15,15 @@ public final class ProbeAccess {
   /** Boundary probes of every split, then {@code randomProbes} seeded random inputs. */
   public static List<float[]> floatProbes(DecisionTree tree, long seed, int randomProbes) {
     return Verifier.inputs(tree, List.of(), seed, randomProbes);
+  }
+
+  /**
+   * The inputs verification runs: every row of {@code data}, the boundary probes of every split,
+   * then {@code randomProbes} seeded random inputs.
+   */
+  public static List<float[]> verificationInputs(DecisionTree tree, List<Dataset> data,
+      long seed, int randomProbes) {
+    return Verifier.inputs(tree, data, seed, randomProbes);
   }
 
   /** Int boundary probes: each threshold's integer neighbours and the int extremes. */
