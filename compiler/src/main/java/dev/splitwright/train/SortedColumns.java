@@ -18,20 +18,23 @@ final class SortedColumns {
   final int[][] rows;
   /** {@code values[f][i]}: that row's value; missing is NaN and {@code -0.0f} is {@code 0.0f}. */
   final float[][] values;
-  /** {@code labels[f][i]}: that row's class; kept alongside so scans read memory in order. */
-  final int[][] labels;
+  /**
+   * {@code labels[f][i]}: that row's class, kept alongside so scans read memory in order; 16
+   * unsigned bits hold every class index the loader allows, at half the memory of an int.
+   */
+  final char[][] labels;
 
   private final int[] scratchRows;
   private final float[] scratchValues;
-  private final int[] scratchLabels;
+  private final char[] scratchLabels;
 
-  private SortedColumns(int[][] rows, float[][] values, int[][] labels, int n) {
+  private SortedColumns(int[][] rows, float[][] values, char[][] labels, int n) {
     this.rows = rows;
     this.values = values;
     this.labels = labels;
     this.scratchRows = new int[n];
     this.scratchValues = new float[n];
-    this.scratchLabels = new int[n];
+    this.scratchLabels = new char[n];
   }
 
   static SortedColumns of(Dataset data) {
@@ -39,7 +42,7 @@ final class SortedColumns {
     int features = data.featureCount();
     int[][] rows = new int[features][];
     float[][] values = new float[features][];
-    int[][] labels = new int[features][];
+    char[][] labels = new char[features][];
     int[] rowLabels = data.labels();
     int[] keys = new int[n];
     int[] keyBuffer = new int[n];
@@ -63,10 +66,10 @@ final class SortedColumns {
       }
       radixSort(keys, order, keyBuffer, rowBuffer);
       float[] sorted = new float[n];
-      int[] sortedLabels = new int[n];
+      char[] sortedLabels = new char[n];
       for (int i = 0; i < n; i++) {
         sorted[i] = column[order[i]];
-        sortedLabels[i] = rowLabels[order[i]];
+        sortedLabels[i] = (char) rowLabels[order[i]];
       }
       rows[f] = order;
       values[f] = sorted;
@@ -129,33 +132,75 @@ final class SortedColumns {
 
   /**
    * Moves the rows of {@code [lo, hi)} with {@code goesLeft[row] == 1} to the front of the segment
-   * in every feature, keeping order on both sides.
+   * in every feature, keeping order on both sides. A side whose child will not be searched is not
+   * written at all ({@code keepLeft} or {@code keepRight} false): a node that is not searched is
+   * never split, so nothing reads its segment again.
    */
-  void partition(int lo, int hi, byte[] goesLeft) {
+  void partition(int lo, int hi, byte[] goesLeft, boolean keepLeft, boolean keepRight) {
     for (int f = 0; f < rows.length; f++) {
-      int[] r = rows[f];
-      float[] v = values[f];
-      int[] y = labels[f];
-      int left = lo;
-      int right = 0;
+      if (keepLeft && keepRight) {
+        partition(f, lo, hi, goesLeft);
+      } else if (keepLeft) {
+        keepOneSide(f, lo, hi, goesLeft, 1);
+      } else if (keepRight) {
+        keepOneSide(f, lo, hi, goesLeft, 0);
+      }
+    }
+  }
+
+  private void partition(int f, int lo, int hi, byte[] goesLeft) {
+    int[] r = rows[f];
+    float[] v = values[f];
+    char[] y = labels[f];
+    int left = lo;
+    int right = 0;
+    for (int i = lo; i < hi; i++) {
+      int row = r[i];
+      float value = v[i];
+      char label = y[i];
+      int g = goesLeft[row];
+      // Branch-free: write both sides, advance one. left <= i: nothing unread is overwritten.
+      r[left] = row;
+      v[left] = value;
+      y[left] = label;
+      scratchRows[right] = row;
+      scratchValues[right] = value;
+      scratchLabels[right] = label;
+      left += g;
+      right += 1 - g;
+    }
+    System.arraycopy(scratchRows, 0, r, left, right);
+    System.arraycopy(scratchValues, 0, v, left, right);
+    System.arraycopy(scratchLabels, 0, y, left, right);
+  }
+
+  /**
+   * Keeps, in order, only the rows with {@code goesLeft[row] == side}: packed from {@code lo} for
+   * the left side, into the end of the segment for the right side (scanning down, so the write
+   * position never falls below the read position).
+   */
+  private void keepOneSide(int f, int lo, int hi, byte[] goesLeft, int side) {
+    int[] r = rows[f];
+    float[] v = values[f];
+    char[] y = labels[f];
+    if (side == 1) {
+      int w = lo;
       for (int i = lo; i < hi; i++) {
         int row = r[i];
-        float value = v[i];
-        int label = y[i];
-        int g = goesLeft[row];
-        // Branch-free: write both sides, advance one. left <= i: nothing unread is overwritten.
-        r[left] = row;
-        v[left] = value;
-        y[left] = label;
-        scratchRows[right] = row;
-        scratchValues[right] = value;
-        scratchLabels[right] = label;
-        left += g;
-        right += 1 - g;
+        r[w] = row;
+        v[w] = v[i];
+        y[w] = y[i];
+        w += goesLeft[row];
       }
-      System.arraycopy(scratchRows, 0, r, left, right);
-      System.arraycopy(scratchValues, 0, v, left, right);
-      System.arraycopy(scratchLabels, 0, y, left, right);
+    } else {
+      int w = hi - 1;
+      for (int i = hi - 1; i >= lo; i--) {
+        int row = r[i];
+        r[w] = row;
+        v[w] = v[i];
+        y[w] = y[i];
+        w -= 1 - goesLeft[row];
+      }
     }
   }
 }

@@ -94,7 +94,7 @@ final class TreeGrower {
     SplitChoice choice = node.choice;
     int[] rows = columns.rows[choice.feature];
     float[] values = columns.values[choice.feature];
-    int[] labels = columns.labels[choice.feature];
+    char[] labels = columns.labels[choice.feature];
     boolean[] leftCode = null;
     if (choice.categorical()) {
       leftCode = new boolean[data.schema().feature(choice.feature).categories().size()];
@@ -131,7 +131,7 @@ final class TreeGrower {
     boolean searchLeft = searchChildren && splittable(node.left);
     boolean searchRight = searchChildren && splittable(node.right);
     if (searchLeft || searchRight) {
-      columns.partition(node.lo, node.hi, goesLeft);
+      columns.partition(node.lo, node.hi, goesLeft, searchLeft, searchRight);
       if (searchLeft) {
         chooseSplit(node.left);
       }
