@@ -2,7 +2,6 @@ package dev.splitwright.train;
 
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.Feature;
-import java.util.Arrays;
 
 /**
  * Each feature's row indices sorted once by value, with the values alongside. A tree node owns the
@@ -13,6 +12,8 @@ import java.util.Arrays;
 final class SortedColumns {
   private static final int DIGIT_BITS = 11;
   private static final int BUCKETS = 1 << DIGIT_BITS;
+  /** Digits of a 32-bit key; the last has 10 bits. */
+  private static final int PASSES = 3;
 
   /** {@code rows[f][i]}: the row at sorted position i of feature f. */
   final int[][] rows;
@@ -43,21 +44,26 @@ final class SortedColumns {
     int[][] rows = new int[features][];
     float[][] values = new float[features][];
     char[][] labels = new char[features][];
-    int[] rowLabels = data.labels();
+    char[] rowLabels = new char[n];
+    int[] dataLabels = data.labels();
+    for (int r = 0; r < n; r++) {
+      rowLabels[r] = (char) dataLabels[r];
+    }
     int[] keys = new int[n];
     int[] keyBuffer = new int[n];
     int[] rowBuffer = new int[n];
     for (int f = 0; f < features; f++) {
       Feature feature = data.schema().feature(f);
-      float[] column = data.column(f);
+      // Read in place: a copy of the column per feature would only add garbage to the peak heap.
+      boolean categorical = feature.isCategorical();
       for (int r = 0; r < n; r++) {
-        float v = column[r];
-        if (feature.isMissing(v)) {
+        float v = data.value(r, f);
+        // A numeric value is missing exactly when it is NaN (Feature.isMissing).
+        if (v != v || categorical && feature.isMissing(v)) {
           v = Float.NaN;
         } else if (v == 0f) {
           v = 0f;
         }
-        column[r] = v;
         keys[r] = unsignedOrderKey(v);
       }
       int[] order = new int[n];
@@ -65,11 +71,12 @@ final class SortedColumns {
         order[r] = r;
       }
       radixSort(keys, order, keyBuffer, rowBuffer);
+      // The keys map back to the (canonical) values, so the values need no gather by row.
       float[] sorted = new float[n];
       char[] sortedLabels = new char[n];
       for (int i = 0; i < n; i++) {
-        sorted[i] = column[order[i]];
-        sortedLabels[i] = (char) rowLabels[order[i]];
+        sorted[i] = valueOfKey(keys[i]);
+        sortedLabels[i] = rowLabels[order[i]];
       }
       rows[f] = order;
       values[f] = sorted;
@@ -87,22 +94,37 @@ final class SortedColumns {
     return (bits ^ ((bits >> 31) & 0x7fffffff)) ^ 0x80000000;
   }
 
+  /** The inverse of {@link #unsignedOrderKey}. */
+  static float valueOfKey(int key) {
+    int flipped = key ^ 0x80000000;
+    return Float.intBitsToFloat(flipped ^ ((flipped >> 31) & 0x7fffffff));
+  }
+
   /** Sorts keys ascending (unsigned), carrying rows along; stable, so equal keys keep row order. */
   private static void radixSort(int[] keys, int[] rows, int[] keyBuffer, int[] rowBuffer) {
     int n = keys.length;
     if (n == 0) {
       return;
     }
+    // One counting pass for all three digits (11 + 11 + 10 bits), written out so that it is
+    // quick even before the JIT compiles it.
+    int[][] starts = new int[PASSES][BUCKETS];
+    int[] low = starts[0];
+    int[] middle = starts[1];
+    int[] high = starts[2];
+    for (int i = 0; i < n; i++) {
+      int key = keys[i];
+      low[key & (BUCKETS - 1)]++;
+      middle[(key >>> DIGIT_BITS) & (BUCKETS - 1)]++;
+      high[key >>> (2 * DIGIT_BITS)]++;
+    }
     int[] srcKeys = keys;
     int[] srcRows = rows;
     int[] dstKeys = keyBuffer;
     int[] dstRows = rowBuffer;
-    int[] start = new int[BUCKETS];
-    for (int shift = 0; shift < 32; shift += DIGIT_BITS) {
-      Arrays.fill(start, 0);
-      for (int i = 0; i < n; i++) {
-        start[(srcKeys[i] >>> shift) & (BUCKETS - 1)]++;
-      }
+    for (int d = 0; d < PASSES; d++) {
+      int shift = d * DIGIT_BITS;
+      int[] start = starts[d];
       if (start[(srcKeys[0] >>> shift) & (BUCKETS - 1)] == n) {
         continue; // every key has this digit: the pass would not move anything
       }
@@ -134,10 +156,15 @@ final class SortedColumns {
    * Moves the rows of {@code [lo, hi)} with {@code goesLeft[row] == 1} to the front of the segment
    * in every feature, keeping order on both sides. A side whose child will not be searched is not
    * written at all ({@code keepLeft} or {@code keepRight} false): a node that is not searched is
-   * never split, so nothing reads its segment again.
+   * never split, so nothing reads its segment again. Feature {@code inPlace} (or -1) is left as it
+   * is: its segment already has the left rows first.
    */
-  void partition(int lo, int hi, byte[] goesLeft, boolean keepLeft, boolean keepRight) {
+  void partition(
+      int lo, int hi, byte[] goesLeft, boolean keepLeft, boolean keepRight, int inPlace) {
     for (int f = 0; f < rows.length; f++) {
+      if (f == inPlace) {
+        continue;
+      }
       if (keepLeft && keepRight) {
         partition(f, lo, hi, goesLeft);
       } else if (keepLeft) {
