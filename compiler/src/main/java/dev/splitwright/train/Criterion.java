@@ -7,10 +7,14 @@ package dev.splitwright.train;
  */
 final class Criterion {
   private static final double LN2 = Math.log(2);
+  /** Up to 2^26 rows, every square of a count and every sum of them is below 2^53. */
+  private static final int MAX_INTEGER_GINI_ROWS = 1 << 26;
 
   private final boolean gini;
   private final double[] weights;
   private final boolean unweighted;
+  /** Whether {@link #integerGini} applies; see there. */
+  private final boolean integerGini;
   /** For entropy: {@code n ln n} for every possible row count n, and {@code w_c ln w_c}. */
   private final double[] nLnN;
   private final double[] wLnW;
@@ -23,6 +27,7 @@ final class Criterion {
       allOne &= w == 1.0;
     }
     this.unweighted = allOne;
+    this.integerGini = gini && allOne && rows <= MAX_INTEGER_GINI_ROWS;
     this.wLnW = new double[classWeights.length];
     for (int c = 0; c < classWeights.length; c++) {
       wLnW[c] = classWeights[c] * Math.log(classWeights[c]);
@@ -31,6 +36,22 @@ final class Criterion {
     for (int n = 1; n < nLnN.length; n++) {
       nLnN[n] = n * Math.log(n);
     }
+  }
+
+  /**
+   * Whether costs are Gini masses of unit class weights over at most 2^26 rows. Then every term
+   * {@link #cost} adds is an integer below 2^53, so its sums are exact in any order and the mass of
+   * counts with n rows and squared counts s is exactly {@link #giniMass giniMass(n, s)}: scans may
+   * keep n and s up to date by integer steps and get bit for bit the cost {@link #cost} returns.
+   */
+  boolean integerGini() {
+    return integerGini;
+  }
+
+  /** Gini mass {@code n - s / n} of n rows whose class counts' squares sum to s; 0 if n is 0. */
+  static double giniMass(long n, long s) {
+    double total = n;
+    return total > 0 ? total - s / total : 0;
   }
 
   double weight(int[] counts) {

@@ -2,7 +2,6 @@ package dev.splitwright.train;
 
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.Feature;
-import java.util.Arrays;
 
 /**
  * Each feature's row indices sorted once by value, with the values alongside. A tree node owns the
@@ -13,25 +12,30 @@ import java.util.Arrays;
 final class SortedColumns {
   private static final int DIGIT_BITS = 11;
   private static final int BUCKETS = 1 << DIGIT_BITS;
+  /** Digits of a 32-bit key; the last has 10 bits. */
+  private static final int PASSES = 3;
 
   /** {@code rows[f][i]}: the row at sorted position i of feature f. */
   final int[][] rows;
   /** {@code values[f][i]}: that row's value; missing is NaN and {@code -0.0f} is {@code 0.0f}. */
   final float[][] values;
-  /** {@code labels[f][i]}: that row's class; kept alongside so scans read memory in order. */
-  final int[][] labels;
+  /**
+   * {@code labels[f][i]}: that row's class, kept alongside so scans read memory in order; 16
+   * unsigned bits hold every class index the loader allows, at half the memory of an int.
+   */
+  final char[][] labels;
 
   private final int[] scratchRows;
   private final float[] scratchValues;
-  private final int[] scratchLabels;
+  private final char[] scratchLabels;
 
-  private SortedColumns(int[][] rows, float[][] values, int[][] labels, int n) {
+  private SortedColumns(int[][] rows, float[][] values, char[][] labels, int n) {
     this.rows = rows;
     this.values = values;
     this.labels = labels;
     this.scratchRows = new int[n];
     this.scratchValues = new float[n];
-    this.scratchLabels = new int[n];
+    this.scratchLabels = new char[n];
   }
 
   static SortedColumns of(Dataset data) {
@@ -39,22 +43,27 @@ final class SortedColumns {
     int features = data.featureCount();
     int[][] rows = new int[features][];
     float[][] values = new float[features][];
-    int[][] labels = new int[features][];
-    int[] rowLabels = data.labels();
+    char[][] labels = new char[features][];
+    char[] rowLabels = new char[n];
+    int[] dataLabels = data.labels();
+    for (int r = 0; r < n; r++) {
+      rowLabels[r] = (char) dataLabels[r];
+    }
     int[] keys = new int[n];
     int[] keyBuffer = new int[n];
     int[] rowBuffer = new int[n];
     for (int f = 0; f < features; f++) {
       Feature feature = data.schema().feature(f);
-      float[] column = data.column(f);
+      // Read in place: a copy of the column per feature would only add garbage to the peak heap.
+      boolean categorical = feature.isCategorical();
       for (int r = 0; r < n; r++) {
-        float v = column[r];
-        if (feature.isMissing(v)) {
+        float v = data.value(r, f);
+        // A numeric value is missing exactly when it is NaN (Feature.isMissing).
+        if (v != v || categorical && feature.isMissing(v)) {
           v = Float.NaN;
         } else if (v == 0f) {
           v = 0f;
         }
-        column[r] = v;
         keys[r] = unsignedOrderKey(v);
       }
       int[] order = new int[n];
@@ -62,10 +71,11 @@ final class SortedColumns {
         order[r] = r;
       }
       radixSort(keys, order, keyBuffer, rowBuffer);
+      // The keys map back to the (canonical) values, so the values need no gather by row.
       float[] sorted = new float[n];
-      int[] sortedLabels = new int[n];
+      char[] sortedLabels = new char[n];
       for (int i = 0; i < n; i++) {
-        sorted[i] = column[order[i]];
+        sorted[i] = valueOfKey(keys[i]);
         sortedLabels[i] = rowLabels[order[i]];
       }
       rows[f] = order;
@@ -84,22 +94,37 @@ final class SortedColumns {
     return (bits ^ ((bits >> 31) & 0x7fffffff)) ^ 0x80000000;
   }
 
+  /** The inverse of {@link #unsignedOrderKey}. */
+  static float valueOfKey(int key) {
+    int flipped = key ^ 0x80000000;
+    return Float.intBitsToFloat(flipped ^ ((flipped >> 31) & 0x7fffffff));
+  }
+
   /** Sorts keys ascending (unsigned), carrying rows along; stable, so equal keys keep row order. */
   private static void radixSort(int[] keys, int[] rows, int[] keyBuffer, int[] rowBuffer) {
     int n = keys.length;
     if (n == 0) {
       return;
     }
+    // One counting pass for all three digits (11 + 11 + 10 bits), written out so that it is
+    // quick even before the JIT compiles it.
+    int[][] starts = new int[PASSES][BUCKETS];
+    int[] low = starts[0];
+    int[] middle = starts[1];
+    int[] high = starts[2];
+    for (int i = 0; i < n; i++) {
+      int key = keys[i];
+      low[key & (BUCKETS - 1)]++;
+      middle[(key >>> DIGIT_BITS) & (BUCKETS - 1)]++;
+      high[key >>> (2 * DIGIT_BITS)]++;
+    }
     int[] srcKeys = keys;
     int[] srcRows = rows;
     int[] dstKeys = keyBuffer;
     int[] dstRows = rowBuffer;
-    int[] start = new int[BUCKETS];
-    for (int shift = 0; shift < 32; shift += DIGIT_BITS) {
-      Arrays.fill(start, 0);
-      for (int i = 0; i < n; i++) {
-        start[(srcKeys[i] >>> shift) & (BUCKETS - 1)]++;
-      }
+    for (int d = 0; d < PASSES; d++) {
+      int shift = d * DIGIT_BITS;
+      int[] start = starts[d];
       if (start[(srcKeys[0] >>> shift) & (BUCKETS - 1)] == n) {
         continue; // every key has this digit: the pass would not move anything
       }
@@ -129,33 +154,80 @@ final class SortedColumns {
 
   /**
    * Moves the rows of {@code [lo, hi)} with {@code goesLeft[row] == 1} to the front of the segment
-   * in every feature, keeping order on both sides.
+   * in every feature, keeping order on both sides. A side whose child will not be searched is not
+   * written at all ({@code keepLeft} or {@code keepRight} false): a node that is not searched is
+   * never split, so nothing reads its segment again. Feature {@code inPlace} (or -1) is left as it
+   * is: its segment already has the left rows first.
    */
-  void partition(int lo, int hi, byte[] goesLeft) {
+  void partition(
+      int lo, int hi, byte[] goesLeft, boolean keepLeft, boolean keepRight, int inPlace) {
     for (int f = 0; f < rows.length; f++) {
-      int[] r = rows[f];
-      float[] v = values[f];
-      int[] y = labels[f];
-      int left = lo;
-      int right = 0;
+      if (f == inPlace) {
+        continue;
+      }
+      if (keepLeft && keepRight) {
+        partition(f, lo, hi, goesLeft);
+      } else if (keepLeft) {
+        keepOneSide(f, lo, hi, goesLeft, 1);
+      } else if (keepRight) {
+        keepOneSide(f, lo, hi, goesLeft, 0);
+      }
+    }
+  }
+
+  private void partition(int f, int lo, int hi, byte[] goesLeft) {
+    int[] r = rows[f];
+    float[] v = values[f];
+    char[] y = labels[f];
+    int left = lo;
+    int right = 0;
+    for (int i = lo; i < hi; i++) {
+      int row = r[i];
+      float value = v[i];
+      char label = y[i];
+      int g = goesLeft[row];
+      // Branch-free: write both sides, advance one. left <= i: nothing unread is overwritten.
+      r[left] = row;
+      v[left] = value;
+      y[left] = label;
+      scratchRows[right] = row;
+      scratchValues[right] = value;
+      scratchLabels[right] = label;
+      left += g;
+      right += 1 - g;
+    }
+    System.arraycopy(scratchRows, 0, r, left, right);
+    System.arraycopy(scratchValues, 0, v, left, right);
+    System.arraycopy(scratchLabels, 0, y, left, right);
+  }
+
+  /**
+   * Keeps, in order, only the rows with {@code goesLeft[row] == side}: packed from {@code lo} for
+   * the left side, into the end of the segment for the right side (scanning down, so the write
+   * position never falls below the read position).
+   */
+  private void keepOneSide(int f, int lo, int hi, byte[] goesLeft, int side) {
+    int[] r = rows[f];
+    float[] v = values[f];
+    char[] y = labels[f];
+    if (side == 1) {
+      int w = lo;
       for (int i = lo; i < hi; i++) {
         int row = r[i];
-        float value = v[i];
-        int label = y[i];
-        int g = goesLeft[row];
-        // Branch-free: write both sides, advance one. left <= i: nothing unread is overwritten.
-        r[left] = row;
-        v[left] = value;
-        y[left] = label;
-        scratchRows[right] = row;
-        scratchValues[right] = value;
-        scratchLabels[right] = label;
-        left += g;
-        right += 1 - g;
+        r[w] = row;
+        v[w] = v[i];
+        y[w] = y[i];
+        w += goesLeft[row];
       }
-      System.arraycopy(scratchRows, 0, r, left, right);
-      System.arraycopy(scratchValues, 0, v, left, right);
-      System.arraycopy(scratchLabels, 0, y, left, right);
+    } else {
+      int w = hi - 1;
+      for (int i = hi - 1; i >= lo; i--) {
+        int row = r[i];
+        r[w] = row;
+        v[w] = v[i];
+        y[w] = y[i];
+        w -= 1 - goesLeft[row];
+      }
     }
   }
 }

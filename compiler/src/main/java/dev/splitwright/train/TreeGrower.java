@@ -94,7 +94,7 @@ final class TreeGrower {
     SplitChoice choice = node.choice;
     int[] rows = columns.rows[choice.feature];
     float[] values = columns.values[choice.feature];
-    int[] labels = columns.labels[choice.feature];
+    char[] labels = columns.labels[choice.feature];
     boolean[] leftCode = null;
     if (choice.categorical()) {
       leftCode = new boolean[data.schema().feature(choice.feature).categories().size()];
@@ -104,10 +104,12 @@ final class TreeGrower {
     }
     int[] leftCounts = new int[node.counts.length];
     int nLeft = 0;
+    boolean anyMissing = false;
     for (int i = node.lo; i < node.hi; i++) {
       float v = values[i];
       boolean left;
       if (Float.isNaN(v)) {
+        anyMissing = true;
         left = choice.missingLeft;
       } else if (leftCode != null) {
         left = leftCode[(int) v];
@@ -131,7 +133,11 @@ final class TreeGrower {
     boolean searchLeft = searchChildren && splittable(node.left);
     boolean searchRight = searchChildren && splittable(node.right);
     if (searchLeft || searchRight) {
-      columns.partition(node.lo, node.hi, goesLeft);
+      // A numeric split's own feature is sorted: present rows at most the threshold come first,
+      // then the others, then the missing ones; only missing rows going left would have to move.
+      boolean sorted = !choice.categorical() && !(anyMissing && choice.missingLeft);
+      columns.partition(node.lo, node.hi, goesLeft, searchLeft, searchRight,
+          sorted ? choice.feature : -1);
       if (searchLeft) {
         chooseSplit(node.left);
       }

@@ -1,0 +1,159 @@
+package dev.splitwright.train.reference;
+
+import dev.splitwright.data.Dataset;
+import dev.splitwright.model.CategoricalSplit;
+import dev.splitwright.model.ClassCounts;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Leaf;
+import dev.splitwright.model.Node;
+import dev.splitwright.model.NumericSplit;
+import dev.splitwright.train.TrainingOptions;
+import java.util.Comparator;
+import java.util.PriorityQueue;
+
+/**
+ * Grows one tree best-first: the expandable leaf whose split removes the most impurity (weighted
+ * by its share of the root's weight) is split next, earlier-created nodes first on ties. Without a
+ * leaf limit every expandable leaf is split, so the order does not change the tree.
+ */
+final class TreeGrower {
+  /** A split must remove more than this fraction of the node's impurity mass. */
+  static final double RELATIVE_MIN_DECREASE = 1e-12;
+
+  private static final Comparator<GrowingNode> BEST_FIRST =
+      Comparator.comparingDouble((GrowingNode n) -> -n.choice.gain)
+          .thenComparingInt(n -> n.id);
+
+  private final Dataset data;
+  private final TrainingOptions options;
+  private final double[] classWeights;
+  private final SortedColumns columns;
+  private final Criterion criterion;
+  private final SplitSearch search;
+  private final byte[] goesLeft;
+  private final double rootWeight;
+  private int nextId;
+
+  TreeGrower(Dataset data, TrainingOptions options) {
+    this.data = data;
+    this.options = options;
+    this.classWeights = options.weights().resolve(data);
+    this.columns = SortedColumns.of(data);
+    this.criterion = new Criterion(options.impurity(), classWeights, data.rows());
+    this.search = new SplitSearch(columns, data.schema(), criterion, options.minLeaf());
+    this.goesLeft = new byte[data.rows()];
+    this.rootWeight = criterion.weight(data.classCounts());
+  }
+
+  DecisionTree grow() {
+    GrowingNode root = newNode(0, 0, data.rows(), data.classCounts());
+    PriorityQueue<GrowingNode> frontier = new PriorityQueue<>(BEST_FIRST);
+    if (chooseSplit(root)) {
+      frontier.add(root);
+    }
+    int leaves = 1;
+    while (!frontier.isEmpty() && leaves < options.maxLeaves()) {
+      GrowingNode node = frontier.poll();
+      leaves++;
+      // The last allowed split's children stay leaves: no need to search them.
+      expand(node, leaves < options.maxLeaves());
+      if (node.left.choice != null) {
+        frontier.add(node.left);
+      }
+      if (node.right.choice != null) {
+        frontier.add(node.right);
+      }
+    }
+    return new DecisionTree(data.schema(), toNode(root));
+  }
+
+  private GrowingNode newNode(int depth, int lo, int hi, int[] counts) {
+    return new GrowingNode(nextId++, depth, lo, hi, counts);
+  }
+
+  private boolean splittable(GrowingNode node) {
+    return node.depth < options.maxDepth() && node.rows() >= 2 * options.minLeaf() && !node.pure();
+  }
+
+  /** Searches the node's best split; returns whether it is worth making. */
+  private boolean chooseSplit(GrowingNode node) {
+    SplitChoice choice = search.best(node);
+    if (choice == null) {
+      return false;
+    }
+    double own = criterion.cost(node.counts);
+    double decrease = own - choice.cost;
+    if (decrease <= RELATIVE_MIN_DECREASE * own) {
+      return false;
+    }
+    choice.gain = decrease / rootWeight;
+    node.choice = choice;
+    return true;
+  }
+
+  private void expand(GrowingNode node, boolean searchChildren) {
+    SplitChoice choice = node.choice;
+    int[] rows = columns.rows[choice.feature];
+    float[] values = columns.values[choice.feature];
+    int[] labels = columns.labels[choice.feature];
+    boolean[] leftCode = null;
+    if (choice.categorical()) {
+      leftCode = new boolean[data.schema().feature(choice.feature).categories().size()];
+      for (int code : choice.leftCodes) {
+        leftCode[code] = true;
+      }
+    }
+    int[] leftCounts = new int[node.counts.length];
+    int nLeft = 0;
+    for (int i = node.lo; i < node.hi; i++) {
+      float v = values[i];
+      boolean left;
+      if (Float.isNaN(v)) {
+        left = choice.missingLeft;
+      } else if (leftCode != null) {
+        left = leftCode[(int) v];
+      } else {
+        left = v <= choice.threshold;
+      }
+      int row = rows[i];
+      goesLeft[row] = (byte) (left ? 1 : 0);
+      if (left) {
+        leftCounts[labels[i]]++;
+        nLeft++;
+      }
+    }
+    int[] rightCounts = new int[leftCounts.length];
+    for (int c = 0; c < rightCounts.length; c++) {
+      rightCounts[c] = node.counts[c] - leftCounts[c];
+    }
+    int mid = node.lo + nLeft;
+    node.left = newNode(node.depth + 1, node.lo, mid, leftCounts);
+    node.right = newNode(node.depth + 1, mid, node.hi, rightCounts);
+    boolean searchLeft = searchChildren && splittable(node.left);
+    boolean searchRight = searchChildren && splittable(node.right);
+    if (searchLeft || searchRight) {
+      columns.partition(node.lo, node.hi, goesLeft);
+      if (searchLeft) {
+        chooseSplit(node.left);
+      }
+      if (searchRight) {
+        chooseSplit(node.right);
+      }
+    }
+  }
+
+  private Node toNode(GrowingNode node) {
+    ClassCounts counts = ClassCounts.of(node.counts);
+    if (!node.expanded()) {
+      return new Leaf(counts.weightedMajority(classWeights), counts);
+    }
+    SplitChoice c = node.choice;
+    Node left = toNode(node.left);
+    Node right = toNode(node.right);
+    if (c.categorical()) {
+      return new CategoricalSplit(
+          c.feature, CategoricalSplit.CodeSet.of(c.leftCodes), c.missingLeft, left, right, counts);
+    }
+    return new NumericSplit(c.feature, c.threshold, c.missingLeft, left, right, counts);
+  }
+}
