@@ -9,6 +9,7 @@ import dev.splitwright.eval.Scores;
 import dev.splitwright.job.CompileJob;
 import dev.splitwright.job.CompileRequest;
 import dev.splitwright.job.CompileResult;
+import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.select.SelectionReport;
 import dev.splitwright.text.DecimalText;
@@ -345,6 +346,18 @@ final class CompileCommand implements Callable<Integer> {
             DecimalText.fixed(s.balancedAccuracy(), 4), DecimalText.fixed(s.macroF1(), 4));
       }
       RecallLine.of(result).ifPresent(out::println);
+      CompileReport report = result.report();
+      if (report.trainedOn() != null) {
+        out.printf(Locale.ROOT, "model trained on %s (SHA-256 %s); %s was only scored%n",
+            CheckTable.printable(report.trainedOn().name()), report.trainedOn().sha256(),
+            CheckTable.printable(report.data()));
+      }
+      if (report.testData() != null) {
+        out.printf(Locale.ROOT, "test data %s (SHA-256 %s): %d of %d rows with a category the "
+            + "training data never showed (scored as missing)%n",
+            CheckTable.printable(report.testData().name()), report.testData().sha256(),
+            report.testData().rowsWithUnseenCategory(), report.testData().rows());
+      }
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
           + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
           v.classFileBytes(), result.report().classFileBytesNoDebug(), v.maxMethodBytes());
