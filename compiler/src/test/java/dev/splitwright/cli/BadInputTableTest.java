@@ -312,6 +312,13 @@ class BadInputTableTest {
         fails("--model file of another format", model(VALID, "{}"),
             "m.json: /format: expected a string but found nothing",
             "pass a file written by --save-model"),
+        // Version 1 files did not record their training data (issue 12): refused, saying so.
+        fails("--model file of format version 1",
+            model(VALID, "{\"format\":\"splitwright-model\",\"version\":1,"
+                + MODEL.substring(MODEL_HEAD.length())),
+            "m.json: /version: expected version 2 (version 1 files do not record the data the "
+                + "model was trained on) but found version 1",
+            "train it again with compile --save-model, which records its training data"),
         // Saved models are checked in full before use (issue 11): the place is a JSON Pointer.
         accepted("--model file written by hand for the data", model(VALID, MODEL)),
         fails("--model split on a feature the data lacks",
