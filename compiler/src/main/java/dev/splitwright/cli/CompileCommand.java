@@ -104,11 +104,13 @@ final class CompileCommand implements Callable<Integer> {
   String classWeight;
 
   @Option(names = "--model", paramLabel = "FILE",
-      description = "Emit this saved model instead of training (the CSV is still scored).")
+      description = "Emit this saved model instead of training; all CSV rows are scored as one "
+          + "part, 'scored' (no --split).")
   Path model;
 
   @Option(names = "--save-model", paramLabel = "FILE",
-      description = "Also write the trained model as JSON, for --model later.")
+      description = "Also write the trained model as JSON, naming its training CSV and SHA-256, "
+          + "for --model later.")
   Path saveModel;
 
   @Option(names = "--package", defaultValue = "", paramLabel = "NAME",
@@ -299,7 +301,9 @@ final class CompileCommand implements Callable<Integer> {
     if (!numeric.isEmpty()) {
       parts.add("--numeric " + String.join(",", numeric));
     }
-    parts.add("--split " + split);
+    if (model == null) {
+      parts.add("--split " + split); // a saved model's run scores every row: there is no split
+    }
     parts.add("--seed " + seed);
     if (model != null) {
       parts.add("--model " + model.getFileName());
