@@ -18,6 +18,8 @@ final class CheckTable {
     List<String> classes = report.classes().stream().map(CheckTable::printable).toList();
     out.printf(Locale.ROOT, "model %s on %s: %d rows%n", printable(report.model()),
         printable(report.data()), s.rows());
+    out.printf(Locale.ROOT, "model trained on %s (SHA-256 %s)%n",
+        printable(report.modelTrainedOn().name()), report.modelTrainedOn().sha256());
     out.printf(Locale.ROOT, "rows with a category the model never saw: %d (scored as missing)%n",
         report.rowsWithUnseenCategory());
     out.printf(Locale.ROOT, "rows with a missing value: %d%n", report.rowsWithMissingValue());

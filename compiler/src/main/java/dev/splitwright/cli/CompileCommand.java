@@ -9,6 +9,7 @@ import dev.splitwright.eval.Scores;
 import dev.splitwright.job.CompileJob;
 import dev.splitwright.job.CompileRequest;
 import dev.splitwright.job.CompileResult;
+import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.select.SelectionReport;
 import dev.splitwright.text.DecimalText;
@@ -103,11 +104,13 @@ final class CompileCommand implements Callable<Integer> {
   String classWeight;
 
   @Option(names = "--model", paramLabel = "FILE",
-      description = "Emit this saved model instead of training (the CSV is still scored).")
+      description = "Emit this saved model instead of training; all CSV rows are scored as one "
+          + "part, 'scored' (no --split).")
   Path model;
 
   @Option(names = "--save-model", paramLabel = "FILE",
-      description = "Also write the trained model as JSON, for --model later.")
+      description = "Also write the trained model as JSON, naming its training CSV and SHA-256, "
+          + "for --model later.")
   Path saveModel;
 
   @Option(names = "--package", defaultValue = "", paramLabel = "NAME",
@@ -298,7 +301,9 @@ final class CompileCommand implements Callable<Integer> {
     if (!numeric.isEmpty()) {
       parts.add("--numeric " + String.join(",", numeric));
     }
-    parts.add("--split " + split);
+    if (model == null) {
+      parts.add("--split " + split); // a saved model's run scores every row: there is no split
+    }
     parts.add("--seed " + seed);
     if (model != null) {
       parts.add("--model " + model.getFileName());
@@ -345,6 +350,18 @@ final class CompileCommand implements Callable<Integer> {
             DecimalText.fixed(s.balancedAccuracy(), 4), DecimalText.fixed(s.macroF1(), 4));
       }
       RecallLine.of(result).ifPresent(out::println);
+      CompileReport report = result.report();
+      if (report.trainedOn() != null) {
+        out.printf(Locale.ROOT, "model trained on %s (SHA-256 %s); %s was only scored%n",
+            CheckTable.printable(report.trainedOn().name()), report.trainedOn().sha256(),
+            CheckTable.printable(report.data()));
+      }
+      if (report.testData() != null) {
+        out.printf(Locale.ROOT, "test data %s (SHA-256 %s): %d of %d rows with a category the "
+            + "training data never showed (scored as missing)%n",
+            CheckTable.printable(report.testData().name()), report.testData().sha256(),
+            report.testData().rowsWithUnseenCategory(), report.testData().rows());
+      }
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
           + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
           v.classFileBytes(), result.report().classFileBytesNoDebug(), v.maxMethodBytes());

@@ -16,7 +16,7 @@ public record LoadedData(Dataset dataset, String sourceName, String sha256, long
     Objects.requireNonNull(dataset, "dataset");
     Objects.requireNonNull(sourceName, "sourceName");
     Objects.requireNonNull(sha256, "sha256");
-    if (!sha256.matches("[0-9a-f]{64}")) {
+    if (!DataFile.isSha256(sha256)) {
       throw new IllegalArgumentException("sha256 must be 64 lowercase hex digits: " + sha256);
     }
     if (dataRows != dataset.rows()) {
@@ -24,5 +24,10 @@ public record LoadedData(Dataset dataset, String sourceName, String sha256, long
           String.format(
               Locale.ROOT, "dataRows %d but the data set has %d", dataRows, dataset.rows()));
     }
+  }
+
+  /** The file's name and SHA-256. */
+  public DataFile file() {
+    return new DataFile(sourceName, sha256);
   }
 }

@@ -1,10 +1,12 @@
 package dev.splitwright.job;
 
+import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.persist.SavedModel;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.FrontierSvg;
 import dev.splitwright.select.BudgetSelection;
@@ -23,7 +25,8 @@ final class BudgetRun {
   private BudgetRun() {}
 
   static CompileResult run(Verifier verifier, CompileRequest request, OutputTargets targets,
-      LoadedData loaded, CompileJob.Parts parts, SearchSettings settings,
+      LoadedData loaded, Optional<FieldLog> testLog, CompileJob.Parts parts,
+      SearchSettings settings,
       SearchProgress progress) throws InputException, IOException {
     if (request.model().isPresent()) {
       throw new InputException("budget", "cannot be combined with --model: the budget search "
@@ -33,14 +36,15 @@ final class BudgetRun {
         progress).run(
             new BudgetSelection.Data(parts.train(), parts.validation(), parts.all(),
                 request.seed()),
-            header(loaded, request, placeholderScores(parts)),
-            tree -> header(loaded, request, CompileJob.score(tree, parts)));
+            header(loaded, testLog, request, placeholderScores(parts)),
+            tree -> header(loaded, testLog, request, CompileJob.score(tree, parts)));
     DecisionTree tree = outcome.tree();
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
     // The -g:none size was compiled once, for the selection; the report repeats that figure.
-    CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
-        options, request.emit(), outcome.source(), outcome.verification(),
+    CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(),
+        Optional.empty(), testLog, tree, options, request.emit(), outcome.source(),
+        outcome.verification(),
         outcome.report().chosen().classFileBytesNoDebug(), scores, outcome.report());
     if (!outcome.verification().passed()) {
       return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
@@ -48,16 +52,18 @@ final class BudgetRun {
     }
     String chart = FrontierSvg.render(FrontierChartBuilder.build(loaded.sourceName(), settings,
         outcome));
-    List<Path> written = CompileJob.write(targets, request, tree, outcome.source(), report,
+    SavedModel model = new SavedModel(tree, loaded.file(),
+        CompileJob.optionsMap(request));
+    List<Path> written = CompileJob.write(targets, request, model, outcome.source(), report,
         Optional.of(chart));
     return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
         written);
   }
 
-  private static HeaderInfo header(LoadedData loaded, CompileRequest request,
-      Map<String, Scores> scores) {
+  private static HeaderInfo header(LoadedData loaded, Optional<FieldLog> testLog,
+      CompileRequest request, Map<String, Scores> scores) {
     return new HeaderInfo(loaded.sourceName(), loaded.sha256(), request.optionsText(),
-        CompileJob.scoreLines(scores));
+        CompileJob.scoreLines(scores), Optional.empty(), testLog.map(t -> t.loaded().file()));
   }
 
   /**

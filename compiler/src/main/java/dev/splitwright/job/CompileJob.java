@@ -2,6 +2,7 @@ package dev.splitwright.job;
 
 import dev.splitwright.data.CsvLoader;
 import dev.splitwright.data.Dataset;
+import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
 import dev.splitwright.data.SourcePosition;
@@ -14,6 +15,7 @@ import dev.splitwright.eval.SplitParts;
 import dev.splitwright.eval.StratifiedSplit;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
+import dev.splitwright.persist.SavedModel;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
 import dev.splitwright.report.TreeSvg;
@@ -42,6 +44,9 @@ import java.util.function.UnaryOperator;
  * classifier and its report only when verification passed.
  */
 public final class CompileJob {
+  /** The part a saved model's scores are filed under: rows it was scored on, never trained on. */
+  public static final String SCORED = "scored";
+
   private final Verifier verifier;
   private final UnaryOperator<DecisionTree> emitFrom;
 
@@ -82,40 +87,60 @@ public final class CompileJob {
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
     TrainingClasses.requireTwo(request.data().toString(), loaded);
     DataChecks.trainingData(request, loaded);
-    Parts parts = split(loaded.dataset(), request);
+    Optional<FieldLog> testLog = testData(loaded.dataset(), request);
     if (budget.isPresent()) {
-      return BudgetRun.run(verifier, request, targets, loaded, parts, budget.get(), progress);
+      Parts parts = split(loaded.dataset(), request, testLog);
+      return BudgetRun.run(verifier, request, targets, loaded, testLog, parts, budget.get(),
+          progress);
     }
-    DecisionTree tree = request.model().isPresent()
-        ? ModelFile.read(request.model().get())
-        : CartTrainer.train(parts.train(), request.training());
-    if (request.model().isPresent() && !tree.schema().equals(loaded.dataset().schema())) {
-      throw new InputException(
-          SourcePosition.ofFile(String.valueOf(request.model().get().getFileName())),
-          "the model's features, target or classes differ from those of "
-              + loaded.sourceName(),
-          "pass the CSV the model was trained on, or retrain");
+    Optional<SavedModel> saved = Optional.empty();
+    DecisionTree tree;
+    Map<String, Dataset> scored;
+    List<Dataset> verifyOn;
+    if (request.model().isPresent()) {
+      saved = Optional.of(ModelFile.load(request.model().get()));
+      tree = saved.get().tree();
+      if (!tree.schema().equals(loaded.dataset().schema())) {
+        throw new InputException(
+            SourcePosition.ofFile(String.valueOf(request.model().get().getFileName())),
+            "the model's features, target or classes differ from those of "
+                + loaded.sourceName(),
+            "pass the CSV the model was trained on, or retrain");
+      }
+      // The model never saw these rows: they are scored as one part, not as a train/test split.
+      scored = new LinkedHashMap<>();
+      scored.put(SCORED, loaded.dataset());
+      testLog.ifPresent(t -> scored.put("test", t.loaded().dataset()));
+      verifyOn = List.copyOf(scored.values());
+    } else {
+      Parts parts = split(loaded.dataset(), request, testLog);
+      tree = CartTrainer.train(parts.train(), request.training());
+      scored = parts.named();
+      verifyOn = parts.all();
     }
-    Map<String, Scores> scores = score(tree, parts);
+    Map<String, Scores> scores = score(tree, scored);
     HeaderInfo header = new HeaderInfo(loaded.sourceName(), loaded.sha256(),
-        request.optionsText(), scoreLines(scores));
+        request.optionsText(), scoreLines(scores), saved.map(SavedModel::trainedOn),
+        testLog.map(t -> t.loaded().file()));
     // --layout smallest is resolved here: both layouts emitted and compiled, the smaller kept.
     LayoutChoice layout = LayoutChooser.resolve(emitFrom.apply(tree), request.emit(), header,
         verifier.compiler());
     EmittedSource source = layout.source();
     VerificationResult verification = verifier.check(tree, layout.classes(), source,
-        layout.options(), parts.all(), request.seed());
+        layout.options(), verifyOn, request.seed());
     Map<String, Object> options = optionsMap(request);
     if (request.emit().layout() == Layout.SMALLEST) {
       options.put("layoutChoice", layout.describe());
     }
-    CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
-        options, layout.options(), source, verification, DebugSizes.noDebug(source), scores,
-        null);
+    CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(),
+        saved.map(SavedModel::trainedOn), testLog, tree, options, layout.options(), source,
+        verification, DebugSizes.noDebug(source), scores, null);
     if (!verification.passed()) {
       return new CompileResult(tree, source, verification, scores, report, List.of());
     }
-    List<Path> written = write(targets, request, tree, source, report, Optional.empty());
+    SavedModel toSave = saved.orElseGet(() -> new SavedModel(tree, loaded.file(),
+        optionsMap(request)));
+    List<Path> written = write(targets, request, toSave, source, report, Optional.empty());
     return new CompileResult(tree, source, verification, scores, report, written);
   }
 
@@ -126,9 +151,10 @@ public final class CompileJob {
    * @return the files written, in order
    * @throws OutputException if a file cannot be written; nothing was changed then
    */
-  static List<Path> write(OutputTargets targets, CompileRequest request, DecisionTree tree,
+  static List<Path> write(OutputTargets targets, CompileRequest request, SavedModel model,
       EmittedSource source, CompileReport report, Optional<String> frontierSvg)
       throws OutputException {
+    DecisionTree tree = model.tree();
     if (targets.frontier().isPresent() != frontierSvg.isPresent()) {
       throw new IllegalArgumentException("a frontier chart goes with a budget search alone");
     }
@@ -140,7 +166,7 @@ public final class CompileJob {
       out.add(targets.frontier().get(), frontierSvg.get());
     }
     if (targets.model().isPresent()) {
-      out.add(targets.model().get(), ModelFile.toJson(tree, optionsMap(request)));
+      out.add(targets.model().get(), ModelFile.toJson(model));
     }
     out.commit();
     return out.paths();
@@ -151,15 +177,37 @@ public final class CompileJob {
     List<Dataset> all() {
       return List.of(train, validation, test);
     }
+
+    /** The parts that hold rows, by name: train, then validation and test if not empty. */
+    Map<String, Dataset> named() {
+      Map<String, Dataset> named = new LinkedHashMap<>();
+      named.put("train", train);
+      if (validation.rows() > 0) {
+        named.put("validation", validation);
+      }
+      if (test.rows() > 0) {
+        named.put("test", test);
+      }
+      return named;
+    }
   }
 
-  private static Parts split(Dataset data, CompileRequest request) throws InputException {
+  /** The {@code --test-data} file, coded with the training schema, with its unseen categories. */
+  private static Optional<FieldLog> testData(Dataset data, CompileRequest request)
+      throws InputException {
+    if (request.testData().isEmpty()) {
+      return Optional.empty();
+    }
+    Path testFile = request.testData().get();
+    FieldLog log = CsvLoader.loadFieldLog(testFile, data.schema(), request.load());
+    DataChecks.evaluationData(request, testFile, log.loaded());
+    return Optional.of(log);
+  }
+
+  private static Parts split(Dataset data, CompileRequest request, Optional<FieldLog> testLog) {
     double[] f = request.fractions();
-    if (request.testData().isPresent()) {
-      Path testFile = request.testData().get();
-      LoadedData testLoaded = CsvLoader.loadWithSchema(testFile, data.schema(), request.load());
-      DataChecks.evaluationData(request, testFile, testLoaded);
-      Dataset test = testLoaded.dataset();
+    if (testLog.isPresent()) {
+      Dataset test = testLog.get().loaded().dataset();
       double trainShare = f[0] / (f[0] + f[1]);
       SplitParts p =
           StratifiedSplit.split(data, trainShare, 1 - trainShare, 0, request.seed());
@@ -170,14 +218,12 @@ public final class CompileJob {
   }
 
   static Map<String, Scores> score(DecisionTree tree, Parts parts) {
+    return score(tree, parts.named());
+  }
+
+  private static Map<String, Scores> score(DecisionTree tree, Map<String, Dataset> parts) {
     Map<String, Scores> scores = new LinkedHashMap<>();
-    scores.put("train", Evaluator.score(tree, parts.train()));
-    if (parts.validation().rows() > 0) {
-      scores.put("validation", Evaluator.score(tree, parts.validation()));
-    }
-    if (parts.test().rows() > 0) {
-      scores.put("test", Evaluator.score(tree, parts.test()));
-    }
+    parts.forEach((name, rows) -> scores.put(name, Evaluator.score(tree, rows)));
     return scores;
   }
 

@@ -11,6 +11,8 @@ import dev.splitwright.eval.Floor;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
+import dev.splitwright.persist.SavedModel;
+import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.FieldCheckReport;
 import dev.splitwright.report.ReportJson;
 import java.io.IOException;
@@ -81,7 +83,8 @@ public final class FieldCheck {
     if (request.report().isPresent()) {
       OutputTargets.checkFile(OPTION_REPORT, request.report().get());
     }
-    DecisionTree tree = ModelFile.read(request.model());
+    SavedModel model = ModelFile.load(request.model());
+    DecisionTree tree = model.tree();
     String modelSha = sha256(request.model());
     FieldLog log = CsvLoader.loadFieldLog(request.data(), tree.schema(), request.load());
     LoadedData loaded = log.loaded();
@@ -92,7 +95,9 @@ public final class FieldCheck {
         .toList();
     boolean passed = floors.stream().allMatch(FieldCheckReport.FloorResult::met);
     FieldCheckReport report = new FieldCheckReport(ReportBuilder.TOOL,
-        String.valueOf(request.model().getFileName()), modelSha, loaded.sourceName(),
+        String.valueOf(request.model().getFileName()), modelSha,
+        new CompileReport.DataRef(model.trainedOn().name(), model.trainedOn().sha256()),
+        loaded.sourceName(),
         loaded.sha256(), tree.schema().target(), tree.schema().classes(),
         log.unseenCategoryRows(), log.missingValueRows(),
         ReportBuilder.partScores(tree.schema(), scores), floors, passed);

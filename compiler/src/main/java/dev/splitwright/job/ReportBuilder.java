@@ -1,5 +1,7 @@
 package dev.splitwright.job;
 
+import dev.splitwright.data.DataFile;
+import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.Schema;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
@@ -15,6 +17,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 
 /** Assembles the report of a compile run from its parts. */
 final class ReportBuilder {
@@ -25,20 +28,28 @@ final class ReportBuilder {
   /**
    * The report of a run.
    *
+   * @param trainedOn a saved model's training data, when the run scored a model it did not train
+   * @param testData the {@code --test-data} file, if one was given
    * @param noDebugBytes the class file of {@code source} compiled with {@code -g:none}
    * @param selection the budget search's section, or null without a budget
    */
-  static CompileReport build(String dataName, String sha256, DecisionTree tree,
-      Map<String, Object> options, EmitOptions emit, EmittedSource source,
-      VerificationResult verification, int noDebugBytes, Map<String, Scores> scores,
-      Object selection) {
+  static CompileReport build(String dataName, String sha256, Optional<DataFile> trainedOn,
+      Optional<FieldLog> testData, DecisionTree tree, Map<String, Object> options,
+      EmitOptions emit, EmittedSource source, VerificationResult verification, int noDebugBytes,
+      Map<String, Scores> scores, Object selection) {
     Schema schema = tree.schema();
     Map<String, CompileReport.PartScores> parts = new LinkedHashMap<>();
     scores.forEach((part, s) -> parts.put(part, partScores(schema, s)));
     List<CompileReport.MethodBytes> methods = verification.methods().stream()
         .map(m -> new CompileReport.MethodBytes(m.name(), m.codeLength()))
         .toList();
-    return new CompileReport(TOOL, dataName, sha256, schema.target(), schema.classes(),
+    CompileReport.DataRef trained = trainedOn
+        .map(f -> new CompileReport.DataRef(f.name(), f.sha256())).orElse(null);
+    CompileReport.TestData test = testData.map(t -> new CompileReport.TestData(
+        t.loaded().sourceName(), t.loaded().sha256(), t.loaded().dataRows(),
+        t.unseenCategoryRows())).orElse(null);
+    return new CompileReport(TOOL, dataName, sha256, trained, test, schema.target(),
+        schema.classes(),
         schema.featureNames(), options, emit.layout().optionName(),
         emit.inputKind().optionName(), tree.depth(), tree.leafCount(), tree.internalNodeCount(),
         root(tree), source.sourceBytes(), verification.classFileBytes(),

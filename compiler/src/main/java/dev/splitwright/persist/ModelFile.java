@@ -10,6 +10,7 @@ import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.json.JsonMapper;
+import dev.splitwright.data.DataFile;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.SourcePosition;
 import dev.splitwright.model.CategoricalSplit;
@@ -39,7 +40,11 @@ public final class ModelFile {
   /** Identifies the format; bump {@link #VERSION} on any incompatible change. */
   public static final String FORMAT = "splitwright-model";
 
-  public static final int VERSION = 1;
+  /**
+   * Version 2 records the data the model was trained on ({@code trainedOn}); version 1 files did
+   * not, and are refused with that reason rather than read without it.
+   */
+  public static final int VERSION = 2;
 
   /**
    * Deepest JSON nesting read. A model file needs four levels (file, node list, node, counts);
@@ -49,7 +54,7 @@ public final class ModelFile {
 
   private static final String REMEDY = "pass a file written by --save-model";
 
-  private static final ObjectMapper MAPPER = JsonMapper.builder(JsonFactory.builder()
+  static final ObjectMapper MAPPER = JsonMapper.builder(JsonFactory.builder()
           .streamReadConstraints(StreamReadConstraints.builder().maxNestingDepth(MAX_NESTING)
               .build())
           .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
@@ -59,15 +64,21 @@ public final class ModelFile {
 
   private ModelFile() {}
 
-  /** Serialises a tree and what it was trained on. */
-  public static String toJson(DecisionTree tree, Map<String, Object> training) {
+  /** Serialises a model: writing what {@link #load} read gives the bytes it read. */
+  public static String toJson(SavedModel model) {
+    return toJson(model.tree(), model.trainedOn(), model.training());
+  }
+
+  /** Serialises a tree, the data file it was trained on and the options that trained it. */
+  public static String toJson(DecisionTree tree, DataFile trainedOn,
+      Map<String, Object> training) {
     List<ModelJson.NodeJson> nodes = new ArrayList<>();
     flatten(tree.root(), nodes);
     List<ModelJson.FeatureJson> features = tree.schema().features().stream()
         .map(f -> new ModelJson.FeatureJson(f.name(), f.isCategorical() ? "categorical" : "numeric",
             f.categories()))
         .toList();
-    ModelJson json = new ModelJson(FORMAT, VERSION, tree.schema().target(),
+    ModelJson json = new ModelJson(FORMAT, VERSION, trainedOn, tree.schema().target(),
         tree.schema().classes(), features, training, nodes);
     return ReportJson.render(json);
   }
@@ -98,20 +109,29 @@ public final class ModelFile {
   }
 
   /** Writes the model file. */
-  public static void write(Path file, DecisionTree tree, Map<String, Object> training)
-      throws IOException {
-    Files.writeString(file, toJson(tree, training), StandardCharsets.UTF_8);
+  public static void write(Path file, SavedModel model) throws IOException {
+    Files.writeString(file, toJson(model), StandardCharsets.UTF_8);
   }
 
   /**
-   * Reads a model file, checking all of it: JSON nested deeper than {@link #MAX_NESTING}, a
+   * Reads a model file's tree; see {@link #load}.
+   *
+   * @throws InputException as {@link #load} does
+   */
+  public static DecisionTree read(Path file) throws InputException {
+    return load(file).tree();
+  }
+
+  /**
+   * Reads a model file, checking all of it: a version other than {@link #VERSION}, a missing or
+   * malformed {@code trainedOn}, JSON nested deeper than {@link #MAX_NESTING}, a
    * duplicate member, an unknown member, an index, code, count or threshold out of range, a tree
    * deeper than {@link DecisionTree#MAX_DEPTH}, or counts that do not add up are refused.
    *
    * @throws InputException if the file cannot be read, is not JSON of this format, or describes an
    *     invalid tree; its one-line message names the file and the place in it
    */
-  public static DecisionTree read(Path file) throws InputException {
+  public static SavedModel load(Path file) throws InputException {
     String name = String.valueOf(file.getFileName());
     JsonNode root;
     String text = "";
@@ -138,7 +158,8 @@ public final class ModelFile {
     try {
       return new ModelReader(DecisionTree.MAX_DEPTH).read(root);
     } catch (BadModelException e) {
-      throw new InputException(SourcePosition.ofFile(name), e.getMessage(), REMEDY);
+      throw new InputException(SourcePosition.ofFile(name), e.getMessage(),
+          e.remedy().orElse(REMEDY));
     }
   }
 

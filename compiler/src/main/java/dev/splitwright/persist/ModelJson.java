@@ -1,6 +1,7 @@
 package dev.splitwright.persist;
 
 import com.fasterxml.jackson.annotation.JsonInclude;
+import dev.splitwright.data.DataFile;
 import java.util.List;
 import java.util.Map;
 
@@ -9,6 +10,7 @@ import java.util.Map;
 record ModelJson(
     String format,
     int version,
+    DataFile trainedOn,
     String target,
     List<String> classes,
     List<FeatureJson> features,

@@ -1,6 +1,8 @@
 package dev.splitwright.persist;
 
+import com.fasterxml.jackson.core.type.TypeReference;
 import com.fasterxml.jackson.databind.JsonNode;
+import dev.splitwright.data.DataFile;
 import dev.splitwright.data.Feature;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.Schema;
@@ -15,7 +17,9 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.Iterator;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
 import java.util.regex.Pattern;
 
@@ -29,8 +33,9 @@ final class ModelReader {
   /** At most as many distinct labels or categories as the CSV loader accepts. */
   static final int MAX_VALUES = 65_535;
 
-  private static final List<String> TOP = List.of("format", "version", "target", "classes",
-      "features", "training", "nodes");
+  private static final List<String> TOP = List.of("format", "version", "trainedOn", "target",
+      "classes", "features", "training", "nodes");
+  private static final List<String> DATA_FILE = List.of("name", "sha256");
   private static final List<String> FEATURE = List.of("name", "kind", "categories");
   private static final List<String> NODE = List.of("feature", "threshold", "leftCodes",
       "missing", "left", "right", "predict", "counts");
@@ -47,7 +52,7 @@ final class ModelReader {
     this.maxDepth = maxDepth;
   }
 
-  DecisionTree read(JsonNode root) throws BadModelException {
+  SavedModel read(JsonNode root) throws BadModelException {
     requireObject(root, "", TOP);
     String format = text(root, "", "format");
     if (!format.equals(ModelFile.FORMAT)) {
@@ -55,10 +60,16 @@ final class ModelReader {
           InputException.quote(format));
     }
     int version = integer(root, "", "version", Integer.MIN_VALUE, Integer.MAX_VALUE);
+    if (version == 1) {
+      throw new BadModelException("/version", "version " + ModelFile.VERSION
+          + " (version 1 files do not record the data the model was trained on)", "version 1",
+          "train it again with compile --save-model, which records its training data");
+    }
     if (version != ModelFile.VERSION) {
       throw new BadModelException("/version", "version " + ModelFile.VERSION
           + " (the one this build reads)", "version " + version);
     }
+    DataFile trainedOn = dataFile(root, "trainedOn");
     String target = text(root, "", "target");
     List<String> classes = distinctTexts(root, "", "classes", 1);
     List<Feature> features = features(root);
@@ -67,7 +78,25 @@ final class ModelReader {
       throw new BadModelException("/training", "an object", describe(training));
     }
     Schema schema = new Schema(features, target, classes);
-    return new DecisionTree(schema, nodes(root, schema));
+    DecisionTree tree = new DecisionTree(schema, nodes(root, schema));
+    Map<String, Object> options = training == null ? Map.of()
+        : ModelFile.MAPPER.convertValue(training, new TypeReference<LinkedHashMap<String, Object>>()
+            {});
+    return new SavedModel(tree, trainedOn, options);
+  }
+
+  private static DataFile dataFile(JsonNode root, String name) throws BadModelException {
+    String at = "/" + name;
+    JsonNode file = member(root, "", name, "an object with the members "
+        + String.join(", ", DATA_FILE));
+    requireObject(file, at, DATA_FILE);
+    String fileName = text(file, at, "name");
+    String sha256 = text(file, at, "sha256");
+    if (!DataFile.isSha256(sha256)) {
+      throw new BadModelException(at + "/sha256", "64 lowercase hex digits (a SHA-256)",
+          InputException.quote(sha256));
+    }
+    return new DataFile(fileName, sha256);
   }
 
   private List<Feature> features(JsonNode root) throws BadModelException {

@@ -9,20 +9,27 @@ import java.util.Map;
  * The report written beside each emitted classifier ({@code <Class>.report.json}). Field order is
  * fixed so two runs on the same input give byte-identical files.
  *
- * @param scores "train", "validation" and "test" as present, in that order
+ * @param trainedOn for a saved model ({@code --model}), the data it was trained on; {@code data}
+ *     is then only scored, and its scores are "scored" rather than "train"
+ * @param testData the separate test file ({@code --test-data}), absent without one
+ * @param scores "train", "validation" and "test" as present, in that order; for a saved model
+ *     "scored" and "test"
  * @param classFileBytes the class file javac writes with its default debug information
  * @param classFileBytesNoDebug the same source compiled with {@code -g:none}
  * @param selection the budget search's record, absent when no budget was given
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
-@JsonPropertyOrder({"tool", "data", "dataSha256", "target", "classes", "features", "options",
-    "layout", "input", "depth", "leaves", "internalNodes", "root", "sourceBytes", "classFileBytes",
-    "classFileBytesNoDebug", "maxMethodBytecodeBytes", "methodByteCap", "constantPoolCount",
+@JsonPropertyOrder({"tool", "data", "dataSha256", "trainedOn", "testData", "target", "classes",
+    "features", "options", "layout", "input", "depth", "leaves", "internalNodes", "root",
+    "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "maxMethodBytecodeBytes",
+    "methodByteCap", "constantPoolCount",
     "methods", "scores", "verification", "selection"})
 public record CompileReport(
     String tool,
     String data,
     String dataSha256,
+    DataRef trainedOn,
+    TestData testData,
     String target,
     List<String> classes,
     List<String> features,
@@ -49,6 +56,17 @@ public record CompileReport(
     features = List.copyOf(features);
     methods = List.copyOf(methods);
   }
+
+  /** A data file: its name, without any directory, and the SHA-256 of its bytes. */
+  @JsonPropertyOrder({"name", "sha256"})
+  public record DataRef(String name, String sha256) {}
+
+  /**
+   * The separate test file and how many of its rows hold a category the training data never
+   * showed: the model scores such a value as missing, so those rows test a fallback.
+   */
+  @JsonPropertyOrder({"name", "sha256", "rows", "rowsWithUnseenCategory"})
+  public record TestData(String name, String sha256, long rows, long rowsWithUnseenCategory) {}
 
   /** The root split, or the leaf's class when the tree is a single leaf. */
   @JsonInclude(JsonInclude.Include.NON_NULL)

@@ -134,8 +134,12 @@ class BadInputTableTest {
     };
   }
 
+  /** The members of a model file before its schema; the SHA-256 is a placeholder. */
+  private static final String MODEL_HEAD = "{\"format\":\"splitwright-model\",\"version\":2,"
+      + "\"trainedOn\":{\"name\":\"t.csv\",\"sha256\":\"" + "0".repeat(64) + "\"},";
+
   /** A model of {@link #VALID}: a <= 3.5 goes left to x, else right to y. */
-  private static final String MODEL = "{\"format\":\"splitwright-model\",\"version\":1,"
+  private static final String MODEL = MODEL_HEAD
       + "\"target\":\"label\",\"classes\":[\"x\",\"y\"],\"features\":["
       + "{\"name\":\"a\",\"kind\":\"numeric\"},{\"name\":\"b\",\"kind\":\"numeric\"}],"
       + "\"nodes\":[{\"feature\":0,\"threshold\":\"3.5\",\"missing\":\"left\",\"left\":1,"
@@ -160,7 +164,7 @@ class BadInputTableTest {
     for (int i = 0; i < k; i++) {
       names.add(String.format(Locale.ROOT, "\"c%02d\"", i));
     }
-    return "{\"format\":\"splitwright-model\",\"version\":1,\"target\":\"label\","
+    return MODEL_HEAD + "\"target\":\"label\","
         + "\"classes\":[\"x\",\"y\"],\"features\":[{\"name\":\"c\",\"kind\":"
         + "\"categorical\",\"categories\":[" + String.join(",", names) + "]}],\"nodes\":["
         + "{\"feature\":0,\"leftCodes\":[" + code + "],\"missing\":\"right\",\"left\":1,"
@@ -308,6 +312,13 @@ class BadInputTableTest {
         fails("--model file of another format", model(VALID, "{}"),
             "m.json: /format: expected a string but found nothing",
             "pass a file written by --save-model"),
+        // Version 1 files did not record their training data (issue 12): refused, saying so.
+        fails("--model file of format version 1",
+            model(VALID, "{\"format\":\"splitwright-model\",\"version\":1,"
+                + MODEL.substring(MODEL_HEAD.length())),
+            "m.json: /version: expected version 2 (version 1 files do not record the data the "
+                + "model was trained on) but found version 1",
+            "train it again with compile --save-model, which records its training data"),
         // Saved models are checked in full before use (issue 11): the place is a JSON Pointer.
         accepted("--model file written by hand for the data", model(VALID, MODEL)),
         fails("--model split on a feature the data lacks",

@@ -5,6 +5,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.splitwright.data.DataFile;
 import dev.splitwright.data.Feature;
 import dev.splitwright.data.Schema;
 import dev.splitwright.model.CategoricalSplit;
@@ -13,6 +14,7 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.persist.ModelFile;
+import dev.splitwright.persist.SavedModel;
 import dev.splitwright.report.TreeSvg;
 import java.io.IOException;
 import java.nio.file.Files;
@@ -24,6 +26,9 @@ import org.junit.jupiter.api.io.TempDir;
 
 class CheckCommandTest {
   private static final ObjectMapper JSON = new ObjectMapper();
+
+  /** The training data the hand-built model's file names; made up, as the model is. */
+  private static final DataFile HAND_DATA = new DataFile("hand-train.csv", "ab".repeat(32));
 
   @TempDir Path temp;
 
@@ -40,7 +45,7 @@ class CheckCommandTest {
             ClassCounts.of(7, 11)),
         new Leaf(0, ClassCounts.of(9, 1)), ClassCounts.of(16, 12)));
     Path model = temp.resolve("hand.model.json");
-    ModelFile.write(model, tree, Map.of());
+    ModelFile.write(model, new SavedModel(tree, HAND_DATA, Map.of()));
     return model;
   }
 
@@ -87,9 +92,13 @@ class CheckCommandTest {
     assertThat(json.get("floors").size()).isZero();
     assertThat(json.get("passed").asBoolean()).isTrue();
     assertThat(json.get("data").asText()).isEqualTo("field.csv");
+    // The model's provenance, as its file records it.
+    assertThat(json.get("modelTrainedOn").get("name").asText()).isEqualTo("hand-train.csv");
+    assertThat(json.get("modelTrainedOn").get("sha256").asText()).isEqualTo("ab".repeat(32));
 
     // The console shows the same, as aligned tables.
     assertThat(run.out()).contains(
+        "model trained on hand-train.csv (SHA-256 " + "ab".repeat(32) + ")",
         "rows with a category the model never saw: 1 (scored as missing)",
         "rows with a missing value: 2",
         "accuracy           0.6250",

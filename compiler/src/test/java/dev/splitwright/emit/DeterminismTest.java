@@ -2,8 +2,10 @@ package dev.splitwright.emit;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import dev.splitwright.data.DataFile;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
+import dev.splitwright.persist.SavedModel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -45,7 +47,8 @@ class DeterminismTest {
     for (int t = 0; t < trees.size(); t++) {
       // New node objects: anything keyed by object identity would now come out in another order.
       Path file = temp.resolve("tree" + t + ".json");
-      ModelFile.write(file, trees.get(t), Map.of());
+      ModelFile.write(file, new SavedModel(trees.get(t), new DataFile("t.csv", "0".repeat(64)),
+          Map.of()));
       readBack.add(ModelFile.read(file));
     }
     assertThat(DeterminismCases.emitAll(readBack)).isEqualTo(DeterminismCases.emitAll(trees));

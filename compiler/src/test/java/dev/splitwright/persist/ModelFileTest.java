@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.splitwright.data.DataFile;
 import dev.splitwright.data.Feature;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.Schema;
@@ -32,6 +33,9 @@ import org.junit.jupiter.params.provider.MethodSource;
 class ModelFileTest {
   private static final ObjectMapper JSON = new ObjectMapper();
 
+  /** A made-up training file; only its form (64 lowercase hex digits) matters here. */
+  static final DataFile TRAINED_ON = new DataFile("t.csv", "0123456789abcdef".repeat(4));
+
   @TempDir Path dir;
 
   /** Numeric split on "a", then a categorical split on "c" (3 categories), three leaves. */
@@ -51,13 +55,14 @@ class ModelFileTest {
   void infiniteThresholdsReadBack() throws Exception {
     // NumericSplit allows them and the emitter writes them (RandomTrees makes such trees).
     for (String t : List.of("Infinity", "-Infinity")) {
-      ObjectNode doc = (ObjectNode) JSON.readTree(ModelFile.toJson(tree(), Map.of()));
+      ObjectNode doc = (ObjectNode) JSON.readTree(ModelFile.toJson(tree(), TRAINED_ON, Map.of()));
       node(doc, 0).put("threshold", t);
       Path file = Files.writeString(dir.resolve("m.json"), JSON.writeValueAsString(doc));
 
       DecisionTree read = ModelFile.read(file);
       assertThat(((NumericSplit) read.root()).threshold()).isEqualTo(Float.parseFloat(t));
-      assertThat(ModelFile.toJson(read, Map.of())).contains("\"threshold\" : \"" + t + "\"");
+      assertThat(ModelFile.toJson(read, TRAINED_ON, Map.of()))
+          .contains("\"threshold\" : \"" + t + "\"");
     }
   }
 
@@ -65,7 +70,7 @@ class ModelFileTest {
   void aSplitWithNoCodesOnTheLeftIsValid() throws Exception {
     // The trainer makes such splits: missing values left, every present code right
     // (DeterminismTest found one in a trained tree).
-    ObjectNode doc = (ObjectNode) JSON.readTree(ModelFile.toJson(tree(), Map.of()));
+    ObjectNode doc = (ObjectNode) JSON.readTree(ModelFile.toJson(tree(), TRAINED_ON, Map.of()));
     codes(doc);
     node(doc, 2).put("missing", "left");
     Path file = Files.writeString(dir.resolve("m.json"), JSON.writeValueAsString(doc));
@@ -77,7 +82,7 @@ class ModelFileTest {
   @Test
   void aWrittenModelReadsBackEqualWithItsThresholdExact() throws Exception {
     Path file = dir.resolve("m.json");
-    ModelFile.write(file, tree(), Map.of("seed", 1));
+    ModelFile.write(file, new SavedModel(tree(), TRAINED_ON, Map.of("seed", 1)));
 
     assertThat(ModelFile.read(file)).isEqualTo(tree());
     // Shortest text, not JDK 17's 1.18846831E13 (see DecimalTextTest).
@@ -141,7 +146,19 @@ class ModelFileTest {
         fault("no nodes", d -> d.putArray("nodes"), "/nodes: expected at least one node"),
         fault("wrong format", d -> d.put("format", "other"),
             "/format: expected 'splitwright-model' but found 'other'"),
-        fault("wrong version", d -> d.put("version", 2), "/version: expected version 1"),
+        fault("wrong version", d -> d.put("version", 3), "/version: expected version 2"),
+        fault("no training data", d -> d.remove("trainedOn"),
+            "/trainedOn: expected an object with the members name, sha256 but found nothing"),
+        fault("training data without its SHA-256",
+            d -> ((ObjectNode) d.get("trainedOn")).remove("sha256"),
+            "/trainedOn/sha256: expected a string but found nothing"),
+        fault("a SHA-256 in upper case", d -> ((ObjectNode) d.get("trainedOn"))
+            .put("sha256", "0123456789ABCDEF".repeat(4)),
+            "/trainedOn/sha256: expected 64 lowercase hex digits"),
+        fault("a SHA-256 one digit short", d -> ((ObjectNode) d.get("trainedOn"))
+            .put("sha256", "0".repeat(63)), "/trainedOn/sha256: expected 64 lowercase hex digits"),
+        fault("training data with another member", d -> ((ObjectNode) d.get("trainedOn"))
+            .put("path", "/home"), "/trainedOn/path: expected only the members name, sha256"),
         fault("missing target", d -> d.remove("target"),
             "/target: expected a string but found nothing"),
         fault("training not an object", d -> d.put("training", 3),
@@ -178,7 +195,7 @@ class ModelFileTest {
   @MethodSource("faults")
   void aFaultIsRefusedWithItsPlace(String name, Consumer<ObjectNode> edit, List<String> mentions)
       throws Exception {
-    ObjectNode doc = (ObjectNode) JSON.readTree(ModelFile.toJson(tree(), Map.of()));
+    ObjectNode doc = (ObjectNode) JSON.readTree(ModelFile.toJson(tree(), TRAINED_ON, Map.of()));
     edit.accept(doc);
     Path file = Files.writeString(dir.resolve("m.json"), JSON.writeValueAsString(doc));
 
@@ -186,6 +203,29 @@ class ModelFileTest {
         .hasMessageStartingWith("m.json: /")
         .hasMessageContainingAll(mentions.toArray(new String[0]))
         .hasMessageEndingWith("; pass a file written by --save-model");
+  }
+
+  @Test
+  void aVersionOneFileIsRefusedBecauseItDoesNotNameItsTrainingData() throws Exception {
+    ObjectNode doc = (ObjectNode) JSON.readTree(ModelFile.toJson(tree(), TRAINED_ON, Map.of()));
+    doc.put("version", 1);
+    doc.remove("trainedOn");
+    Path file = Files.writeString(dir.resolve("m.json"), JSON.writeValueAsString(doc));
+
+    assertThatThrownBy(() -> ModelFile.read(file)).isInstanceOf(InputException.class)
+        .hasMessage("m.json: /version: expected version 2 (version 1 files do not record the data "
+            + "the model was trained on) but found version 1; train it again with compile "
+            + "--save-model, which records its training data");
+  }
+
+  @Test
+  void readingAndWritingBackGivesTheSameBytes() throws Exception {
+    Path file = dir.resolve("m.json");
+    ModelFile.write(file, new SavedModel(tree(), TRAINED_ON,
+        Map.of("command", "compile --data t.csv", "seed", 7L)));
+
+    assertThat(ModelFile.toJson(ModelFile.load(file))).isEqualTo(Files.readString(file));
+    assertThat(ModelFile.load(file).trainedOn()).isEqualTo(TRAINED_ON);
   }
 
   /** A chain of {@code depth} numeric splits, each with a leaf on its right, in pre-order. */
@@ -200,7 +240,8 @@ class ModelFileTest {
           .append("{\"predict\":1,\"counts\":[0,1]},");
     }
     nodes.setLength(nodes.length() - 1);
-    return "{\"format\":\"splitwright-model\",\"version\":1,\"target\":\"label\","
+    return "{\"format\":\"splitwright-model\",\"version\":2,\"trainedOn\":{\"name\":"
+        + "\"t.csv\",\"sha256\":\"" + "0".repeat(64) + "\"},\"target\":\"label\","
         + "\"classes\":[\"x\",\"y\"],\"features\":[{\"name\":\"a\",\"kind\":\"numeric\"}],"
         + "\"nodes\":[" + nodes + ",{\"predict\":0,\"counts\":[1,0]}]}";
   }

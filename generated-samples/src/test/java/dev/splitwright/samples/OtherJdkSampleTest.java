@@ -95,7 +95,8 @@ class OtherJdkSampleTest {
     // Node 0: a <= 1.1884683E13 (JDK 17 prints 1.18846831E13); node 2: b <= -8.110916E8
     // (JDK 17: -8.1109158E8).
     Path model = Files.writeString(temp.resolve("m.json"), "{\"format\":\"splitwright-model\","
-        + "\"version\":1,\"target\":\"label\",\"classes\":[\"x\",\"y\",\"z\"],"
+        + "\"version\":2,\"trainedOn\":{\"name\":\"t.csv\",\"sha256\":\""
+        + "0".repeat(64) + "\"},\"target\":\"label\",\"classes\":[\"x\",\"y\",\"z\"],"
         + "\"features\":[{\"name\":\"a\",\"kind\":\"numeric\"},{\"name\":\"b\","
         + "\"kind\":\"numeric\"}],\"nodes\":[{\"feature\":0,\"threshold\":\"1.1884683E13\","
         + "\"missing\":\"left\",\"left\":1,\"right\":2,\"counts\":[9,6,5]},"
