@@ -57,7 +57,7 @@ class OtherJdkSampleTest {
     run(home.get(), args);
 
     List<Path> produced = SampleGoldenTest.files(out);
-    assertThat(produced).as("files written for %s", sample).hasSize(3);
+    assertThat(produced).as("files written for %s", sample).hasSize(4);
     StringBuilder diffs = new StringBuilder();
     for (Path rel : produced) {
       Path committed = SampleGoldenTest.committedPlace(rel);
@@ -120,7 +120,7 @@ class OtherJdkSampleTest {
     run(home.get(), thereArgs);
 
     List<Path> produced = SampleGoldenTest.files(here);
-    assertThat(produced).hasSize(3).isEqualTo(SampleGoldenTest.files(there));
+    assertThat(produced).hasSize(4).isEqualTo(SampleGoldenTest.files(there));
     assertThat(Files.readString(here.resolve("Jdk.java")))
         .contains("1.1884683E13f").contains("-8.110916E8f");
     for (Path rel : produced) {
