@@ -1,5 +1,7 @@
 package dev.splitwright.job;
 
+import dev.splitwright.backend.JavaLanguage;
+import dev.splitwright.backend.SizeFigures;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
 import dev.splitwright.emit.HeaderInfo;
@@ -39,19 +41,24 @@ final class BudgetRun {
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
     // The -g:none size was compiled once, for the selection; the report repeats that figure.
+    JavaLanguage.JavaFile emission = JavaLanguage.written(outcome.source(),
+        request.emit().toBuilder().layout(outcome.source().layout()).build());
+    SizeFigures sizes = JavaLanguage.figures(outcome.source(), outcome.verification(),
+        outcome.report().chosen().classFileBytesNoDebug());
+    options.put("emit", "java");
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
-        options, request.emit(), outcome.source(), outcome.verification(),
-        outcome.report().chosen().classFileBytesNoDebug(), scores, outcome.report());
+        options, "java", emission, sizes, outcome.verification(), Optional.empty(), scores,
+        outcome.report());
     if (!outcome.verification().passed()) {
-      return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
-          List.of());
+      return new CompileResult(tree, outcome.source(), emission, sizes, outcome.verification(),
+          scores, report, List.of());
     }
     String chart = FrontierSvg.render(FrontierChartBuilder.build(loaded.sourceName(), settings,
         outcome));
-    List<Path> written = CompileJob.write(targets, request, tree, outcome.source(), report,
+    List<Path> written = CompileJob.write(targets, request, tree, emission.files(), report,
         Optional.of(chart));
-    return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
-        written);
+    return new CompileResult(tree, outcome.source(), emission, sizes, outcome.verification(),
+        scores, report, written);
   }
 
   private static HeaderInfo header(LoadedData loaded, CompileRequest request,

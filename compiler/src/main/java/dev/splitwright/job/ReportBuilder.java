@@ -1,8 +1,8 @@
 package dev.splitwright.job;
 
+import dev.splitwright.backend.Emission;
+import dev.splitwright.backend.SizeFigures;
 import dev.splitwright.data.Schema;
-import dev.splitwright.emit.EmitOptions;
-import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
@@ -15,6 +15,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 
 /** Assembles the report of a compile run from its parts. */
 final class ReportBuilder {
@@ -25,28 +26,34 @@ final class ReportBuilder {
   /**
    * The report of a run.
    *
-   * @param noDebugBytes the class file of {@code source} compiled with {@code -g:none}
+   * @param language the output language's name
+   * @param emission the files emitted, with their layout and input type
+   * @param sizes what they weigh
+   * @param compiler the C compiler that built the checked program, if any
    * @param selection the budget search's section, or null without a budget
    */
   static CompileReport build(String dataName, String sha256, DecisionTree tree,
-      Map<String, Object> options, EmitOptions emit, EmittedSource source,
-      VerificationResult verification, int noDebugBytes, Map<String, Scores> scores,
-      Object selection) {
+      Map<String, Object> options, String language, Emission emission, SizeFigures sizes,
+      VerificationResult verification, Optional<CompileReport.Compiler> compiler,
+      Map<String, Scores> scores, Object selection) {
     Schema schema = tree.schema();
     Map<String, CompileReport.PartScores> parts = new LinkedHashMap<>();
     scores.forEach((part, s) -> parts.put(part, partScores(schema, s)));
-    List<CompileReport.MethodBytes> methods = verification.methods().stream()
-        .map(m -> new CompileReport.MethodBytes(m.name(), m.codeLength()))
-        .toList();
-    return new CompileReport(TOOL, dataName, sha256, schema.target(), schema.classes(),
-        schema.featureNames(), options, emit.layout().optionName(),
-        emit.inputKind().optionName(), tree.depth(), tree.leafCount(), tree.internalNodeCount(),
-        root(tree), source.sourceBytes(), verification.classFileBytes(),
-        noDebugBytes, verification.maxMethodBytes(),
-        verification.methodByteCap(), verification.constantPoolCount(), methods, parts,
-        new CompileReport.Verification(verification.passed(), verification.inputsChecked(),
-            verification.mismatches(), verification.branchCoverage(),
-            verification.coveredSplits(), verification.splits(), verification.firstMismatches()),
+    Optional<SizeFigures.JavaFigures> java = sizes.java();
+    return new CompileReport(TOOL, language, dataName, sha256, schema.target(), schema.classes(),
+        schema.featureNames(), options, emission.layout(), emission.input(), tree.depth(),
+        tree.leafCount(), tree.internalNodeCount(), root(tree), sizes.sourceBytes(),
+        java.map(SizeFigures.JavaFigures::classFileBytes).orElse(null),
+        java.map(SizeFigures.JavaFigures::noDebugBytes).orElse(null),
+        java.map(SizeFigures.JavaFigures::maxMethodBytes).orElse(null),
+        java.map(SizeFigures.JavaFigures::methodByteCap).orElse(null),
+        java.map(SizeFigures.JavaFigures::constantPoolCount).orElse(null),
+        java.map(SizeFigures.JavaFigures::methods).orElse(null), sizes.flash().orElse(null),
+        parts,
+        new CompileReport.Verification(verification.passed(), compiler.orElse(null),
+            verification.inputsChecked(), verification.mismatches(),
+            verification.branchCoverage(), verification.coveredSplits(), verification.splits(),
+            verification.firstMismatches()),
         selection);
   }
 
