@@ -45,7 +45,6 @@ final class BudgetRun {
         request.emit().toBuilder().layout(outcome.source().layout()).build());
     SizeFigures sizes = JavaLanguage.figures(outcome.source(), outcome.verification(),
         outcome.report().chosen().classFileBytesNoDebug());
-    options.put("emit", "java");
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
         options, "java", emission, sizes, outcome.verification(), Optional.empty(), scores,
         outcome.report());

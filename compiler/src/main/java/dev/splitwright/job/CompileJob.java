@@ -134,7 +134,6 @@ public final class CompileJob {
     VerificationResult verification = lang.verify(tree, emission, parts.all(), request.seed());
     SizeFigures sizes = lang.measure(emission);
     Map<String, Object> options = optionsMap(request);
-    options.put("emit", lang.name());
     if (emission instanceof JavaLanguage.JavaEmission java
         && request.emit().layout() == Layout.SMALLEST) {
       options.put("layoutChoice", java.choice().describe());
