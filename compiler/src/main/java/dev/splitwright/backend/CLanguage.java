@@ -14,6 +14,7 @@ import dev.splitwright.check.NativeRun;
 import dev.splitwright.check.ObjectFiles;
 import dev.splitwright.check.ProcessTimeoutException;
 import dev.splitwright.data.Dataset;
+import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
@@ -121,7 +122,7 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   }
 
   @Override
-  public CEmission emit(DecisionTree tree, HeaderInfo header) {
+  public CEmission emit(DecisionTree tree, HeaderInfo header) throws InputException {
     List<CEmitOptions> variants = new ArrayList<>();
     if (smallest) {
       variants.add(options.withLayout(Layout.BRANCHES));
@@ -148,33 +149,59 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   }
 
   /**
-   * Compiles each source to an object file with the target compiler, all in one run: each pair
-   * of files gets its own names ({@code u0.c} including {@code u0.h}, ...), which changes no
-   * allocated section.
+   * Compiles each source to an object file with the target compiler, all in one run: with more
+   * than one, each pair of files gets its own names ({@code u0.c} including {@code u0.h}, ...),
+   * which changes no allocated section.
+   *
+   * @throws InputException naming {@code --cflags} if the target compiler rejects the files but
+   *     the host compiler with {@link #VERIFY_FLAGS} accepts them: the flags or the compiler are
+   *     at fault, not the code
+   * @throws IllegalStateException if the host compiler rejects them too: a bug of ours
    */
-  public List<ElfFile> compile(List<CSource> sources) {
+  public List<ElfFile> compile(List<CSource> sources) throws InputException {
     Map<String, String> files = new LinkedHashMap<>();
+    List<String> units = new ArrayList<>();
     for (int i = 0; i < sources.size(); i++) {
       CSource s = sources.get(i);
+      if (sources.size() == 1) {
+        files.put(s.headerName(), s.headerText());
+        files.put(s.sourceName(), s.sourceText());
+        units.add(s.sourceName());
+        continue;
+      }
       String unit = "u" + i;
       files.put(unit + ".h", s.headerText());
       files.put(unit + ".c", s.sourceText().replace("#include \"" + s.headerName() + "\"",
           "#include \"" + unit + ".h\""));
+      units.add(unit + ".c");
     }
     ObjectFiles objects;
     try {
       objects = target.compileObjects(files);
     } catch (CCompileException e) {
-      throw new IllegalStateException("the emitted C does not compile with " + target.command()
-          + ": " + e.firstErrorLine(), e);
+      requireHostAccepts(files);
+      throw new InputException("cflags", "the emitted C does not compile with " + target.command()
+          + " " + String.join(" ", target.flags()) + ": " + e.firstErrorLine(),
+          "check --cc and --cflags; the host compiler accepts the same files");
     } catch (ProcessTimeoutException e) {
       throw new IllegalStateException(e.getMessage(), e);
     }
     List<ElfFile> out = new ArrayList<>();
-    for (int i = 0; i < sources.size(); i++) {
-      out.add(objects.elf("u" + i + ".c"));
+    for (String unit : units) {
+      out.add(objects.elf(unit));
     }
     return out;
+  }
+
+  private void requireHostAccepts(Map<String, String> files) {
+    try {
+      host.compileObjects(files);
+    } catch (CCompileException e) {
+      throw new IllegalStateException("the emitted C does not compile with " + host.command()
+          + ": " + e.firstErrorLine(), e);
+    } catch (ProcessTimeoutException e) {
+      throw new IllegalStateException(e.getMessage(), e);
+    }
   }
 
   @Override

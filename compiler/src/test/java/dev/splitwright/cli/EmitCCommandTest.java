@@ -62,6 +62,19 @@ class EmitCCommandTest {
   }
 
   @Test
+  void flagsTheTargetCompilerRejectsAreNamedWithItsFirstError() {
+    // Defining the header's include guard empties the header, so the source cannot compile; the
+    // host compiler, without that flag, accepts the same files: the flags are at fault.
+    Path out = temp.resolve("out");
+    CliRun run = CliRun.of(args(DemoFiles.pump(), out, "--cflags", "-Os -DPUMP_STATE_H"));
+
+    assertThat(run.exitCode()).isEqualTo(2);
+    assertThat(run.err()).contains("--cflags").contains("pump_state").contains("error");
+    assertThat(run.err().strip().lines()).hasSize(1);
+    assertThat(out).doesNotExist();
+  }
+
+  @Test
   void sameInputGivesByteIdenticalFilesAndASavedModelReemitsThem() throws IOException {
     Path first = temp.resolve("a");
     Path second = temp.resolve("b");
