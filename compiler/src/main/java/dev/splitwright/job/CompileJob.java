@@ -97,15 +97,16 @@ public final class CompileJob {
     OutputLanguage<?> lang = language(request);
     OutputTargets targets = OutputTargets.of(request, lang, budget.isPresent());
     targets.check();
+    if (budget.isPresent() && !lang.name().equals("java")) {
+      // Before any data is read: the search measures class files only so far.
+      throw new InputException("budget", "the budget search measures Java class files only so far",
+          "leave out --budget and choose --max-depth and --layout, or use --emit java");
+    }
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
     TrainingClasses.requireTwo(request.data().toString(), loaded);
     DataChecks.trainingData(request, loaded);
     Parts parts = split(loaded.dataset(), request);
     if (budget.isPresent()) {
-      if (!lang.name().equals("java")) {
-        throw new InputException("budget", "a budget search emits Java only so far",
-            "leave out --budget, or use --emit java");
-      }
       return BudgetRun.run(verifier, request, targets, loaded, parts, budget.get(), progress);
     }
     DecisionTree tree = request.model().isPresent()

@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.splitwright.data.LoadOptions;
 import dev.splitwright.emit.EmitOptions;
+import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.job.CompileJob;
 import dev.splitwright.job.CompileRequest;
@@ -33,21 +34,24 @@ class CPipelineTest {
   static Stream<Arguments> dataSets() {
     return Stream.of(
         // UCI Breast Cancer Wisconsin (Diagnostic), 569 rows, no missing values.
-        Arguments.of("breast-cancer-wisconsin-diagnostic.csv", "diagnosis", 6, Layout.BRANCHES,
-            false),
+        Arguments.of("breast-cancer-wisconsin-diagnostic.csv", "diagnosis", 6, Layout.SMALLEST,
+            InputKind.FLOAT, false),
         // UCI Pima Indians Diabetes (mlbench PimaIndiansDiabetes2): empty cells are missing.
-        Arguments.of("pima-indians-diabetes-2.csv", "diabetes", 10, Layout.TABLE, true),
+        Arguments.of("pima-indians-diabetes-2.csv", "diabetes", 10, Layout.TABLE,
+            InputKind.FLOAT, true),
         // UCI Congressional Voting Records: categorical y/n with missing votes.
-        Arguments.of("house-votes-84.csv", "Class", 6, Layout.BRANCHES, true));
+        Arguments.of("house-votes-84.csv", "Class", 6, Layout.BRANCHES, InputKind.FLOAT, true),
+        // The same as int32 input: category codes are whole numbers, -1 is missing.
+        Arguments.of("house-votes-84.csv", "Class", 6, Layout.TABLE, InputKind.INT, false));
   }
 
   @ParameterizedTest
   @MethodSource("dataSets")
   void emittedCAgreesWithTheModelOnEveryRowAndBoundary(String csv, String target, int depth,
-      Layout layout, boolean probabilities) throws Exception {
+      Layout layout, InputKind input, boolean probabilities) throws Exception {
     Path data = Path.of("src/test/resources/datasets", csv);
     EmitOptions emit = EmitOptions.builder("", "OpenDataClassifier").layout(layout)
-        .probabilities(probabilities).build();
+        .inputKind(input).probabilities(probabilities).build();
     CompileRequest request = new CompileRequest(data, Optional.empty(), Optional.empty(),
         LoadOptions.builder().target(target).build(), new double[] {0.6, 0.2, 0.2}, 1,
         TrainingOptions.builder().maxDepth(depth).build(), emit, temp, Optional.empty(), "test");
@@ -70,6 +74,17 @@ class CPipelineTest {
         .containsAll(List.of("-std=c99", "-ffp-contract=off", "-Werror"));
     assertThat(result.report().flash().totalBytes()).isPositive();
     assertThat(result.report().classFileBytes()).isNull();
+    assertThat(result.report().input()).isEqualTo(input.optionName());
+    if (layout == Layout.SMALLEST) {
+      // Both layouts compiled and measured; the one kept has the fewer flash bytes.
+      assertThat(result.report().flash().layouts()).containsOnlyKeys("branches", "table");
+      assertThat(result.report().flash().totalBytes())
+          .isEqualTo(result.report().flash().layouts().get(result.report().layout()))
+          .isEqualTo(result.report().flash().layouts().values().stream()
+              .mapToLong(Long::longValue).min().orElseThrow());
+    } else {
+      assertThat(result.report().layout()).isEqualTo(layout.optionName());
+    }
     assertThat(temp.resolve("open_data_classifier.h")).exists();
     assertThat(temp.resolve("open_data_classifier.c")).exists();
     assertThat(temp.resolve("open_data_classifier.report.json")).exists();

@@ -50,6 +50,16 @@ class EmitCCommandTest {
   }
 
   @Test
+  void aBudgetIsRefusedBeforeAnyDataIsRead() {
+    Path out = temp.resolve("out");
+    CliRun run = CliRun.of(args(temp.resolve("absent.csv"), out, "--budget", "2KiB"));
+
+    assertThat(run.exitCode()).isEqualTo(2);
+    assertThat(run.err()).contains("--budget").doesNotContain("absent.csv");
+    assertThat(out).doesNotExist();
+  }
+
+  @Test
   void aMissingHostCompilerIsOneLineNamingTheOption() {
     Path out = temp.resolve("out");
     CliRun run = CliRun.of(args(DemoFiles.pump(), out, "--host-cc",
