@@ -150,7 +150,7 @@ class BudgetCommandTest {
       throws IOException {
     Path out = dir.resolve("out");
     List<String> args = new ArrayList<>(List.of("compile", "--data",
-        "../generated-samples/data/pump-vibration.csv", "--target", "state", "--package",
+        DemoFiles.pump().toString(), "--target", "state", "--package",
         "demo.size", "--class", "Pump", "--out", out.toString()));
     if (!budget.isEmpty()) {
       args.addAll(List.of("--budget", budget));
