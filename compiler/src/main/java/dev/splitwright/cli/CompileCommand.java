@@ -161,6 +161,8 @@ final class CompileCommand implements Callable<Integer> {
 
   @Mixin BudgetOptions budgetOptions = new BudgetOptions();
 
+  @Mixin LanguageOptions languageOptions = new LanguageOptions();
+
   @Option(names = "--quiet", description = "Print nothing on success.")
   boolean quiet;
 
@@ -169,13 +171,17 @@ final class CompileCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    languageOptions.checkOptions(spec.commandLine());
     CompileRequest request = request();
     PrintWriter stdout = spec.commandLine().getOut();
     PrintWriter stderr = spec.commandLine().getErr();
     Optional<SearchSettings> budget =
         budgetOptions.settings(spec.commandLine(), request.training(), seed);
     ProgressBar progress = ProgressBar.forTerminal(stderr, quiet);
-    CompileResult result = new CompileJob(Verifier.create()).run(request, budget, progress);
+    Verifier verifier = Verifier.create();
+    CompileResult result = new CompileJob(verifier,
+        languageOptions.language(spec.commandLine(), request.emit(), verifier))
+        .run(request, budget, progress);
     VerificationResult v = result.verification();
     if (!v.passed()) {
       stderr.println("verification failed, nothing written: " + v.verdict() + advice(v));
@@ -321,7 +327,9 @@ final class CompileCommand implements Callable<Integer> {
     }
     parts.add("--layout " + layout.toLowerCase(Locale.ROOT));
     parts.add("--input " + input.toLowerCase(Locale.ROOT));
-    parts.add("--max-method-bytes " + maxMethodBytes);
+    if (!languageOptions.name(spec.commandLine()).equals("c")) {
+      parts.add("--max-method-bytes " + maxMethodBytes);
+    }
     if (namedArgs) {
       parts.add("--named-args");
     }
@@ -332,6 +340,7 @@ final class CompileCommand implements Callable<Integer> {
       parts.add("--bare");
     }
     parts.addAll(budgetOptions.optionsText());
+    parts.addAll(languageOptions.optionsText(spec.commandLine()));
     return String.join(" ", parts);
   }
 
@@ -362,9 +371,7 @@ final class CompileCommand implements Callable<Integer> {
             CheckTable.printable(report.testData().name()), report.testData().sha256(),
             report.testData().rowsWithUnseenCategory(), report.testData().rows());
       }
-      out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
-          + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
-          v.classFileBytes(), result.report().classFileBytesNoDebug(), v.maxMethodBytes());
+      out.println(result.sizes().summary());
       Object choice = result.report().options().get("layoutChoice");
       if (choice != null) {
         out.println("layout: " + choice);
@@ -372,6 +379,7 @@ final class CompileCommand implements Callable<Integer> {
       out.printf(Locale.ROOT, "verified: %d inputs, %d mismatches, branch coverage %s%% "
           + "(%d of %d splits both ways)%n", v.inputsChecked(), v.mismatches(),
           DecimalText.fixed(100 * v.branchCoverage(), 1), v.coveredSplits(), v.splits());
+      out.println("emitted: " + result.report().language());
       for (java.nio.file.Path p : result.written()) {
         out.println("wrote " + p);
       }

@@ -1,5 +1,7 @@
 package dev.splitwright.job;
 
+import dev.splitwright.backend.JavaLanguage;
+import dev.splitwright.backend.SizeFigures;
 import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
@@ -42,22 +44,25 @@ final class BudgetRun {
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
     // The -g:none size was compiled once, for the selection; the report repeats that figure.
+    JavaLanguage.JavaFile emission = JavaLanguage.written(outcome.source(),
+        request.emit().toBuilder().layout(outcome.source().layout()).build());
+    SizeFigures sizes = JavaLanguage.figures(outcome.source(), outcome.verification(),
+        outcome.report().chosen().classFileBytesNoDebug());
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(),
-        Optional.empty(), testLog, tree, options, request.emit(), outcome.source(),
-        outcome.verification(),
-        outcome.report().chosen().classFileBytesNoDebug(), scores, outcome.report());
+        Optional.empty(), testLog, tree, options, "java", emission, sizes,
+        outcome.verification(), Optional.empty(), scores, outcome.report());
     if (!outcome.verification().passed()) {
-      return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
-          List.of());
+      return new CompileResult(tree, outcome.source(), emission, sizes, outcome.verification(),
+          scores, report, List.of());
     }
     String chart = FrontierSvg.render(FrontierChartBuilder.build(loaded.sourceName(), settings,
         outcome));
     SavedModel model = new SavedModel(tree, loaded.file(),
         CompileJob.optionsMap(request));
-    List<Path> written = CompileJob.write(targets, request, model, outcome.source(), report,
+    List<Path> written = CompileJob.write(targets, request, model, emission.files(), report,
         Optional.of(chart));
-    return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
-        written);
+    return new CompileResult(tree, outcome.source(), emission, sizes, outcome.verification(),
+        scores, report, written);
   }
 
   private static HeaderInfo header(LoadedData loaded, Optional<FieldLog> testLog,

@@ -1,6 +1,12 @@
 package dev.splitwright.job;
 
+import dev.splitwright.backend.Emission;
+import dev.splitwright.backend.JavaLanguage;
+import dev.splitwright.backend.OutputLanguage;
+import dev.splitwright.backend.OutputText;
+import dev.splitwright.backend.SizeFigures;
 import dev.splitwright.data.CsvLoader;
+import dev.splitwright.data.DataFile;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.InputException;
@@ -19,9 +25,6 @@ import dev.splitwright.persist.SavedModel;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
 import dev.splitwright.report.TreeSvg;
-import dev.splitwright.select.DebugSizes;
-import dev.splitwright.select.LayoutChoice;
-import dev.splitwright.select.LayoutChooser;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.text.DecimalText;
@@ -48,10 +51,21 @@ public final class CompileJob {
   public static final String SCORED = "scored";
 
   private final Verifier verifier;
+  private final Optional<OutputLanguage<?>> language;
   private final UnaryOperator<DecisionTree> emitFrom;
 
+  /** A job that emits Java, as each request's emit options say. */
   public CompileJob(Verifier verifier) {
     this(verifier, UnaryOperator.identity());
+  }
+
+  /**
+   * A job that emits {@code language}; {@code verifier} still serves the Java budget search.
+   */
+  public CompileJob(Verifier verifier, OutputLanguage<?> language) {
+    this.verifier = Objects.requireNonNull(verifier, "verifier");
+    this.language = Optional.of(language);
+    this.emitFrom = UnaryOperator.identity();
   }
 
   /**
@@ -60,7 +74,12 @@ public final class CompileJob {
    */
   CompileJob(Verifier verifier, UnaryOperator<DecisionTree> emitFrom) {
     this.verifier = Objects.requireNonNull(verifier, "verifier");
+    this.language = Optional.empty();
     this.emitFrom = Objects.requireNonNull(emitFrom, "emitFrom");
+  }
+
+  private OutputLanguage<?> language(CompileRequest request) {
+    return language.isPresent() ? language.get() : new JavaLanguage(request.emit(), verifier);
   }
 
   /**
@@ -82,8 +101,14 @@ public final class CompileJob {
    */
   public CompileResult run(CompileRequest request, Optional<SearchSettings> budget,
       SearchProgress progress) throws InputException, IOException {
-    OutputTargets targets = OutputTargets.of(request, budget.isPresent());
+    OutputLanguage<?> lang = language(request);
+    OutputTargets targets = OutputTargets.of(request, lang, budget.isPresent());
     targets.check();
+    if (budget.isPresent() && !lang.name().equals("java")) {
+      // Before any data is read: the search measures class files only so far.
+      throw new InputException("budget", "the budget search measures Java class files only so far",
+          "leave out --budget and choose --max-depth and --layout, or use --emit java");
+    }
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
     TrainingClasses.requireTwo(request.data().toString(), loaded);
     DataChecks.trainingData(request, loaded);
@@ -122,26 +147,42 @@ public final class CompileJob {
     HeaderInfo header = new HeaderInfo(loaded.sourceName(), loaded.sha256(),
         request.optionsText(), scoreLines(scores), saved.map(SavedModel::trainedOn),
         testLog.map(t -> t.loaded().file()));
-    // --layout smallest is resolved here: both layouts emitted and compiled, the smaller kept.
-    LayoutChoice layout = LayoutChooser.resolve(emitFrom.apply(tree), request.emit(), header,
-        verifier.compiler());
-    EmittedSource source = layout.source();
-    VerificationResult verification = verifier.check(tree, layout.classes(), source,
-        layout.options(), verifyOn, request.seed());
-    Map<String, Object> options = optionsMap(request);
-    if (request.emit().layout() == Layout.SMALLEST) {
-      options.put("layoutChoice", layout.describe());
-    }
-    CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(),
-        saved.map(SavedModel::trainedOn), testLog, tree, options, layout.options(), source,
-        verification, DebugSizes.noDebug(source), scores, null);
-    if (!verification.passed()) {
-      return new CompileResult(tree, source, verification, scores, report, List.of());
-    }
     SavedModel toSave = saved.orElseGet(() -> new SavedModel(tree, loaded.file(),
         optionsMap(request)));
-    List<Path> written = write(targets, request, toSave, source, report, Optional.empty());
-    return new CompileResult(tree, source, verification, scores, report, written);
+    return emitAndCheck(lang, request, targets, loaded, toSave, testLog, verifyOn, scores,
+        header);
+  }
+
+  /** Emits, verifies and measures {@code tree} in {@code lang}; writes all only if it passed. */
+  private <E extends Emission> CompileResult emitAndCheck(OutputLanguage<E> lang,
+      CompileRequest request, OutputTargets targets, LoadedData loaded, SavedModel model,
+      Optional<FieldLog> testLog, List<Dataset> verifyOn, Map<String, Scores> scores,
+      HeaderInfo header) throws InputException, IOException {
+    DecisionTree tree = model.tree();
+    // --layout smallest is resolved here: both layouts emitted and measured, the smaller kept.
+    E emission = lang.emit(emitFrom.apply(tree), header);
+    VerificationResult verification = lang.verify(tree, emission, verifyOn, request.seed());
+    SizeFigures sizes = lang.measure(emission);
+    Map<String, Object> options = optionsMap(request);
+    if (emission instanceof JavaLanguage.JavaEmission java
+        && request.emit().layout() == Layout.SMALLEST) {
+      options.put("layoutChoice", java.choice().describe());
+    }
+    Optional<DataFile> trainedOn = request.model().isPresent()
+        ? Optional.of(model.trainedOn()) : Optional.empty();
+    CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), trainedOn,
+        testLog, tree, options, lang.name(), emission, sizes, verification,
+        lang.verifyingCompiler(), scores, null);
+    EmittedSource source = emission instanceof JavaLanguage.JavaEmission java
+        ? java.source() : null;
+    if (!verification.passed()) {
+      return new CompileResult(tree, source, emission, sizes, verification, scores, report,
+          List.of());
+    }
+    List<Path> written = write(targets, request, model, emission.files(), report,
+        Optional.empty());
+    return new CompileResult(tree, source, emission, sizes, verification, scores, report,
+        written);
   }
 
   /**
@@ -152,14 +193,20 @@ public final class CompileJob {
    * @throws OutputException if a file cannot be written; nothing was changed then
    */
   static List<Path> write(OutputTargets targets, CompileRequest request, SavedModel model,
-      EmittedSource source, CompileReport report, Optional<String> frontierSvg)
+      List<OutputText> files, CompileReport report, Optional<String> frontierSvg)
       throws OutputException {
     DecisionTree tree = model.tree();
     if (targets.frontier().isPresent() != frontierSvg.isPresent()) {
       throw new IllegalArgumentException("a frontier chart goes with a budget search alone");
     }
     OutputFiles out = new OutputFiles();
-    out.add(targets.source(), source.source());
+    if (files.size() != targets.sources().size()) {
+      throw new IllegalArgumentException("emitted " + files.size() + " files, planned "
+          + targets.sources().size());
+    }
+    for (int i = 0; i < files.size(); i++) {
+      out.add(targets.sources().get(i), files.get(i).text());
+    }
     out.add(targets.report(), ReportJson.render(report));
     out.add(targets.tree(), TreeSvg.render(tree, request.emit().className()));
     if (targets.frontier().isPresent()) {

@@ -1,9 +1,10 @@
 package dev.splitwright.job;
 
+import dev.splitwright.backend.OutputLanguage;
 import dev.splitwright.data.InputException;
-import dev.splitwright.emit.EmitOptions;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 
@@ -12,14 +13,15 @@ import java.util.Optional;
  * that cannot work is reported before any loading or training, and nothing is touched meanwhile.
  *
  * @param outDir the {@code --out} directory
- * @param source {@code <out>/<package path>/<Class>.java}
- * @param report {@code <out>/<Class>.report.json}
- * @param tree {@code <out>/<Class>.tree.svg}, the picture of the tree
- * @param frontier {@code <out>/<Class>.frontier.svg}, written by a budget search
+ * @param sources the emitted files: {@code <out>/<package path>/<Class>.java}, or {@code
+ *     <out>/<base>.h} and {@code <out>/<base>.c}
+ * @param report {@code <out>/<stem>.report.json}, the stem being the class or base name
+ * @param tree {@code <out>/<stem>.tree.svg}, the picture of the tree
+ * @param frontier {@code <out>/<stem>.frontier.svg}, written by a budget search
  * @param model the {@code --save-model} file, if any
  */
 record OutputTargets(
-    Path outDir, Path source, Path report, Path tree, Optional<Path> frontier,
+    Path outDir, List<Path> sources, Path report, Path tree, Optional<Path> frontier,
     Optional<Path> model) {
 
   static final String OPTION_OUT = "out";
@@ -27,23 +29,27 @@ record OutputTargets(
 
   OutputTargets {
     Objects.requireNonNull(outDir, "outDir");
-    Objects.requireNonNull(source, "source");
+    sources = List.copyOf(sources);
     Objects.requireNonNull(report, "report");
     Objects.requireNonNull(tree, "tree");
     Objects.requireNonNull(frontier, "frontier");
     Objects.requireNonNull(model, "model");
   }
 
-  /** The targets of {@code request}; {@code budgetSearch} adds the frontier chart. */
-  static OutputTargets of(CompileRequest request, boolean budgetSearch) {
-    EmitOptions emit = request.emit();
+  /**
+   * The targets of {@code request} emitted in {@code language}; {@code budgetSearch} adds the
+   * frontier chart.
+   */
+  static OutputTargets of(CompileRequest request, OutputLanguage<?> language,
+      boolean budgetSearch) {
+    String stem = language.stem();
     Path out = request.outDir();
     Optional<Path> frontier = budgetSearch
-        ? Optional.of(out.resolve(emit.className() + ".frontier.svg"))
+        ? Optional.of(out.resolve(stem + ".frontier.svg"))
         : Optional.empty();
-    return new OutputTargets(out, out.resolve(emit.qualifiedName().replace('.', '/') + ".java"),
-        out.resolve(emit.className() + ".report.json"), treeFile(out, emit.className()), frontier,
-        request.saveModel());
+    List<Path> sources = language.plannedFiles().stream().map(out::resolve).toList();
+    return new OutputTargets(out, sources, out.resolve(stem + ".report.json"),
+        treeFile(out, stem), frontier, request.saveModel());
   }
 
   /** {@code <out>/<Class>.tree.svg}; one place for the name, used by the budget run too. */
@@ -62,7 +68,9 @@ record OutputTargets(
       throw new InputException(OPTION_OUT, outDir + " is a file, not a directory",
           "give a directory path; a missing directory is created");
     }
-    checkFile(OPTION_OUT, source);
+    for (Path source : sources) {
+      checkFile(OPTION_OUT, source);
+    }
     checkFile(OPTION_OUT, report);
     checkFile(OPTION_OUT, tree);
     if (frontier.isPresent()) {

@@ -1,10 +1,10 @@
 package dev.splitwright.job;
 
+import dev.splitwright.backend.Emission;
+import dev.splitwright.backend.SizeFigures;
 import dev.splitwright.data.DataFile;
 import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.Schema;
-import dev.splitwright.emit.EmitOptions;
-import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
@@ -28,36 +28,42 @@ final class ReportBuilder {
   /**
    * The report of a run.
    *
+   * @param language the output language's name
    * @param trainedOn a saved model's training data, when the run scored a model it did not train
    * @param testData the {@code --test-data} file, if one was given
-   * @param noDebugBytes the class file of {@code source} compiled with {@code -g:none}
+   * @param emission the files emitted, with their layout and input type
+   * @param sizes what they weigh
+   * @param compiler the C compiler that built the checked program, if any
    * @param selection the budget search's section, or null without a budget
    */
   static CompileReport build(String dataName, String sha256, Optional<DataFile> trainedOn,
       Optional<FieldLog> testData, DecisionTree tree, Map<String, Object> options,
-      EmitOptions emit, EmittedSource source, VerificationResult verification, int noDebugBytes,
+      String language, Emission emission, SizeFigures sizes,
+      VerificationResult verification, Optional<CompileReport.Compiler> compiler,
       Map<String, Scores> scores, Object selection) {
     Schema schema = tree.schema();
     Map<String, CompileReport.PartScores> parts = new LinkedHashMap<>();
     scores.forEach((part, s) -> parts.put(part, partScores(schema, s)));
-    List<CompileReport.MethodBytes> methods = verification.methods().stream()
-        .map(m -> new CompileReport.MethodBytes(m.name(), m.codeLength()))
-        .toList();
     CompileReport.DataRef trained = trainedOn
         .map(f -> new CompileReport.DataRef(f.name(), f.sha256())).orElse(null);
     CompileReport.TestData test = testData.map(t -> new CompileReport.TestData(
         t.loaded().sourceName(), t.loaded().sha256(), t.loaded().dataRows(),
         t.unseenCategoryRows())).orElse(null);
-    return new CompileReport(TOOL, dataName, sha256, trained, test, schema.target(),
-        schema.classes(),
-        schema.featureNames(), options, emit.layout().optionName(),
-        emit.inputKind().optionName(), tree.depth(), tree.leafCount(), tree.internalNodeCount(),
-        root(tree), source.sourceBytes(), verification.classFileBytes(),
-        noDebugBytes, verification.maxMethodBytes(),
-        verification.methodByteCap(), verification.constantPoolCount(), methods, parts,
-        new CompileReport.Verification(verification.passed(), verification.inputsChecked(),
-            verification.mismatches(), verification.branchCoverage(),
-            verification.coveredSplits(), verification.splits(), verification.firstMismatches()),
+    Optional<SizeFigures.JavaFigures> java = sizes.java();
+    return new CompileReport(TOOL, language, dataName, sha256, trained, test, schema.target(),
+        schema.classes(), schema.featureNames(), options, emission.layout(), emission.input(),
+        tree.depth(), tree.leafCount(), tree.internalNodeCount(), root(tree), sizes.sourceBytes(),
+        java.map(SizeFigures.JavaFigures::classFileBytes).orElse(null),
+        java.map(SizeFigures.JavaFigures::noDebugBytes).orElse(null),
+        java.map(SizeFigures.JavaFigures::maxMethodBytes).orElse(null),
+        java.map(SizeFigures.JavaFigures::methodByteCap).orElse(null),
+        java.map(SizeFigures.JavaFigures::constantPoolCount).orElse(null),
+        java.map(SizeFigures.JavaFigures::methods).orElse(null), sizes.flash().orElse(null),
+        parts,
+        new CompileReport.Verification(verification.passed(), compiler.orElse(null),
+            verification.inputsChecked(), verification.mismatches(),
+            verification.branchCoverage(), verification.coveredSplits(), verification.splits(),
+            verification.firstMismatches()),
         selection);
   }
 

@@ -9,23 +9,26 @@ import java.util.Map;
  * The report written beside each emitted classifier ({@code <Class>.report.json}). Field order is
  * fixed so two runs on the same input give byte-identical files.
  *
+ * @param language the language emitted, {@code java} or {@code c}
  * @param trainedOn for a saved model ({@code --model}), the data it was trained on; {@code data}
  *     is then only scored, and its scores are "scored" rather than "train"
  * @param testData the separate test file ({@code --test-data}), absent without one
  * @param scores "train", "validation" and "test" as present, in that order; for a saved model
  *     "scored" and "test"
- * @param classFileBytes the class file javac writes with its default debug information
- * @param classFileBytesNoDebug the same source compiled with {@code -g:none}
+ * @param classFileBytes the class file javac writes with its default debug information (Java)
+ * @param classFileBytesNoDebug the same source compiled with {@code -g:none} (Java)
+ * @param flash the object file's flash bytes (C)
  * @param selection the budget search's record, absent when no budget was given
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
-@JsonPropertyOrder({"tool", "data", "dataSha256", "trainedOn", "testData", "target", "classes",
-    "features", "options", "layout", "input", "depth", "leaves", "internalNodes", "root",
+@JsonPropertyOrder({"tool", "language", "data", "dataSha256", "trainedOn", "testData", "target",
+    "classes", "features", "options", "layout", "input", "depth", "leaves", "internalNodes", "root",
     "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "maxMethodBytecodeBytes",
-    "methodByteCap", "constantPoolCount",
-    "methods", "scores", "verification", "selection"})
+    "methodByteCap", "constantPoolCount", "methods", "flash", "scores", "verification",
+    "selection"})
 public record CompileReport(
     String tool,
+    String language,
     String data,
     String dataSha256,
     DataRef trainedOn,
@@ -41,12 +44,13 @@ public record CompileReport(
     int internalNodes,
     RootSplit root,
     int sourceBytes,
-    int classFileBytes,
-    int classFileBytesNoDebug,
-    int maxMethodBytecodeBytes,
-    int methodByteCap,
-    int constantPoolCount,
+    Integer classFileBytes,
+    Integer classFileBytesNoDebug,
+    Integer maxMethodBytecodeBytes,
+    Integer methodByteCap,
+    Integer constantPoolCount,
     List<MethodBytes> methods,
+    Flash flash,
     Map<String, PartScores> scores,
     Verification verification,
     Object selection) {
@@ -54,7 +58,7 @@ public record CompileReport(
   public CompileReport {
     classes = List.copyOf(classes);
     features = List.copyOf(features);
-    methods = List.copyOf(methods);
+    methods = methods == null ? null : List.copyOf(methods);
   }
 
   /** A data file: its name, without any directory, and the SHA-256 of its bytes. */
@@ -82,9 +86,48 @@ public record CompileReport(
   public record PartScores(int rows, double accuracy, double balancedAccuracy, double macroF1,
       List<List<Integer>> confusion, Map<String, Double> precision, Map<String, Double> recall) {}
 
-  /** What the in-process check of the emitted code found. */
-  @JsonPropertyOrder({"passed", "inputsChecked", "mismatches", "branchCoverage", "splitsCovered",
-      "splits", "firstMismatches"})
-  public record Verification(boolean passed, long inputsChecked, long mismatches,
-      double branchCoverage, int splitsCovered, int splits, List<String> firstMismatches) {}
+  /**
+   * What the check of the emitted code found.
+   *
+   * @param compiler the C compiler that built the checked program; absent for Java, which is
+   *     checked in this JVM
+   */
+  @JsonInclude(JsonInclude.Include.NON_NULL)
+  @JsonPropertyOrder({"passed", "compiler", "inputsChecked", "mismatches", "branchCoverage",
+      "splitsCovered", "splits", "firstMismatches"})
+  public record Verification(boolean passed, Compiler compiler, long inputsChecked,
+      long mismatches, double branchCoverage, int splitsCovered, int splits,
+      List<String> firstMismatches) {}
+
+  /**
+   * A C compiler as a report names it.
+   *
+   * @param version the first line it prints for {@code --version}
+   */
+  @JsonPropertyOrder({"version", "flags"})
+  public record Compiler(String version, List<String> flags) {
+
+    public Compiler {
+      flags = List.copyOf(flags);
+    }
+  }
+
+  /**
+   * Flash bytes of the object file of the emitted C, read from its ELF section and symbol tables.
+   *
+   * @param compiler the first line of the measuring compiler's {@code --version}
+   * @param sections bytes of each allocated {@code .text*}, {@code .rodata*} and {@code .data*}
+   *     section, by name
+   * @param functions each defined function's {@code st_size}, by name
+   * @param layouts with {@code --layout smallest}, the flash bytes of each layout measured
+   */
+  @JsonInclude(JsonInclude.Include.NON_NULL)
+  @JsonPropertyOrder({"compiler", "flags", "totalBytes", "sections", "functions", "layouts"})
+  public record Flash(String compiler, List<String> flags, long totalBytes,
+      Map<String, Long> sections, Map<String, Long> functions, Map<String, Long> layouts) {
+
+    public Flash {
+      flags = List.copyOf(flags);
+    }
+  }
 }

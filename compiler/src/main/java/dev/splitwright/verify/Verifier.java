@@ -30,7 +30,7 @@ public final class Verifier {
   public static final List<String> JAVAC_OPTIONS =
       List.of("--release", "17", "-Xlint:all", "-Werror");
 
-  private static final int RANDOM_PROBES = 2000;
+  static final int RANDOM_PROBES = 2000;
   private static final int REPORTED_MISMATCHES = 5;
 
   private final InMemoryCompiler compiler;
@@ -139,7 +139,7 @@ public final class Verifier {
    * its size does not grow with the tree (the tree is data there), so only the JVM's own limit of
    * 65,535 bytes (JVMS §4.7.3) applies to it, which javac enforces.
    */
-  static int largestPerCallMethod(ClassFileInfo info) {
+  public static int largestPerCallMethod(ClassFileInfo info) {
     return info.methods().stream()
         .filter(m -> !m.name().equals("<clinit>"))
         .mapToInt(MethodSize::codeLength)

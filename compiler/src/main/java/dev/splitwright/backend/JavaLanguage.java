@@ -1,0 +1,168 @@
+package dev.splitwright.backend;
+
+import dev.splitwright.check.ClassFileInfo;
+import dev.splitwright.check.MethodSize;
+import dev.splitwright.data.Dataset;
+import dev.splitwright.data.InputException;
+import dev.splitwright.emit.EmitOptions;
+import dev.splitwright.emit.EmittedSource;
+import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.report.CompileReport;
+import dev.splitwright.select.DebugSizes;
+import dev.splitwright.select.LayoutChoice;
+import dev.splitwright.select.LayoutChooser;
+import dev.splitwright.verify.VerificationResult;
+import dev.splitwright.verify.Verifier;
+import java.util.List;
+import java.util.Locale;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * Java: one class emitted by {@link dev.splitwright.emit.JavaEmitter}, compiled by javac in
+ * memory, checked by {@link Verifier} and measured as class files.
+ */
+public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmission> {
+  private final EmitOptions options;
+  private final Verifier verifier;
+
+  public JavaLanguage(EmitOptions options, Verifier verifier) {
+    this.options = Objects.requireNonNull(options, "options");
+    this.verifier = Objects.requireNonNull(verifier, "verifier");
+  }
+
+  /**
+   * The emitted class, compiled while its layout was chosen.
+   *
+   * @param choice the source, its options with the layout kept, and its class files
+   */
+  public record JavaEmission(LayoutChoice choice) implements Emission {
+
+    public JavaEmission {
+      Objects.requireNonNull(choice, "choice");
+    }
+
+    public EmittedSource source() {
+      return choice.source();
+    }
+
+    @Override
+    public List<OutputText> files() {
+      return written(choice.source(), choice.options()).files();
+    }
+
+    @Override
+    public String layout() {
+      return choice.options().layout().optionName();
+    }
+
+    @Override
+    public String input() {
+      return choice.options().inputKind().optionName();
+    }
+
+    @Override
+    public int sourceBytes() {
+      return choice.source().sourceBytes();
+    }
+  }
+
+  /**
+   * A Java source as written: {@code <package path>/<Class>.java}.
+   *
+   * @param options the options it was emitted with, a concrete layout
+   */
+  public record JavaFile(EmittedSource source, EmitOptions options) implements Emission {
+
+    public JavaFile {
+      Objects.requireNonNull(source, "source");
+      Objects.requireNonNull(options, "options");
+    }
+
+    @Override
+    public List<OutputText> files() {
+      return List.of(new OutputText(path(source.qualifiedName()), source.source()));
+    }
+
+    @Override
+    public String layout() {
+      return options.layout().optionName();
+    }
+
+    @Override
+    public String input() {
+      return options.inputKind().optionName();
+    }
+
+    @Override
+    public int sourceBytes() {
+      return source.sourceBytes();
+    }
+  }
+
+  /** {@code source} emitted with {@code options} as the files it is written to. */
+  public static JavaFile written(EmittedSource source, EmitOptions options) {
+    return new JavaFile(source, options);
+  }
+
+  /** {@code <package path>/<Class>.java} of a qualified class name. */
+  public static String path(String qualifiedName) {
+    return qualifiedName.replace('.', '/') + ".java";
+  }
+
+  @Override
+  public String name() {
+    return "java";
+  }
+
+  @Override
+  public List<String> plannedFiles() {
+    return List.of(path(options.qualifiedName()));
+  }
+
+  @Override
+  public String stem() {
+    return options.className();
+  }
+
+  @Override
+  public JavaEmission emit(DecisionTree tree, HeaderInfo header) throws InputException {
+    return new JavaEmission(LayoutChooser.resolve(tree, options, header, verifier.compiler()));
+  }
+
+  @Override
+  public VerificationResult verify(DecisionTree tree, JavaEmission emission, List<Dataset> rows,
+      long seed) {
+    LayoutChoice choice = emission.choice();
+    return verifier.check(tree, choice.classes(), choice.source(), choice.options(), rows, seed);
+  }
+
+  @Override
+  public SizeFigures measure(JavaEmission emission) {
+    EmittedSource source = emission.source();
+    byte[] bytes = emission.choice().classes().bytes(source.qualifiedName());
+    ClassFileInfo info = ClassFileInfo.parse(bytes);
+    return figures(source, bytes.length, DebugSizes.noDebug(source),
+        Verifier.largestPerCallMethod(info), emission.choice().options().maxMethodBytes(),
+        info.constantPoolCount(), info.methods());
+  }
+
+  /** The figures of {@code source}, whose compiled class the verifier has already looked at. */
+  public static SizeFigures figures(EmittedSource source, VerificationResult verified,
+      int noDebugBytes) {
+    return figures(source, verified.classFileBytes(), noDebugBytes, verified.maxMethodBytes(),
+        verified.methodByteCap(), verified.constantPoolCount(), verified.methods());
+  }
+
+  private static SizeFigures figures(EmittedSource source, int classFileBytes, int noDebugBytes,
+      int maxMethodBytes, int methodByteCap, int constantPoolCount, List<MethodSize> methods) {
+    String summary = String.format(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d "
+        + "without debug info), largest method %d bytecode bytes", source.sourceBytes(),
+        classFileBytes, noDebugBytes, maxMethodBytes);
+    return new SizeFigures(source.sourceBytes(), Optional.of(new SizeFigures.JavaFigures(
+        classFileBytes, noDebugBytes, maxMethodBytes, methodByteCap, constantPoolCount,
+        methods.stream().map(m -> new CompileReport.MethodBytes(m.name(), m.codeLength()))
+            .toList())), Optional.empty(), summary);
+  }
+}

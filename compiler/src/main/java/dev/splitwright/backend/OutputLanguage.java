@@ -1,0 +1,64 @@
+package dev.splitwright.backend;
+
+import dev.splitwright.data.Dataset;
+import dev.splitwright.data.InputException;
+import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.report.CompileReport;
+import dev.splitwright.verify.VerificationResult;
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * An output language: emits source for a tree, proves the source returns what the model returns,
+ * and measures it. The compile job, the budget search and the report use this and nothing
+ * language-specific; {@link JavaLanguage} and {@link CLanguage} are the implementations, and
+ * {@link Languages} makes one from the command line's choice.
+ *
+ * @param <E> what {@link #emit} hands to {@link #verify} and {@link #measure}
+ */
+public interface OutputLanguage<E extends Emission> {
+
+  /** The name on the command line and in reports: {@code java} or {@code c}. */
+  String name();
+
+  /**
+   * The paths {@link Emission#files()} will have, in order, known from the options alone so that
+   * an unusable output location is reported before any data is read.
+   */
+  List<String> plannedFiles();
+
+  /** The name the report and pictures beside the files start with: {@code <stem>.report.json}. */
+  String stem();
+
+  /**
+   * Emits {@code tree}, choosing the layout first when the options leave it to the smaller.
+   *
+   * @throws InputException if the options cannot hold this tree
+   */
+  E emit(DecisionTree tree, HeaderInfo header) throws InputException;
+
+  /**
+   * Compares the emitted code with {@code tree} on every row of {@code rows}, the boundary
+   * probes of every split and random inputs seeded with {@code seed}.
+   *
+   * @throws InputException if the tool the check needs cannot be found
+   */
+  VerificationResult verify(DecisionTree tree, E emission, List<Dataset> rows, long seed)
+      throws InputException;
+
+  /**
+   * Measures {@code emission} as the report states it; never estimated.
+   *
+   * @throws InputException if the tool the measurement needs cannot be found
+   */
+  SizeFigures measure(E emission) throws InputException;
+
+  /**
+   * The compiler that built the code {@link #verify} ran, once it has run: its first line of
+   * {@code --version} and its flags. Empty when the check runs inside this JVM.
+   */
+  default Optional<CompileReport.Compiler> verifyingCompiler() {
+    return Optional.empty();
+  }
+}

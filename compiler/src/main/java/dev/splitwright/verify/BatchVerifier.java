@@ -1,0 +1,123 @@
+package dev.splitwright.verify;
+
+import dev.splitwright.data.Dataset;
+import dev.splitwright.data.Schema;
+import dev.splitwright.emit.InputKind;
+import dev.splitwright.model.DecisionTree;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Objects;
+
+/**
+ * Verifies a classifier that runs outside this JVM and answers a whole list of inputs at once,
+ * such as an emitted C file built into a native program. The inputs are those {@link Verifier}
+ * uses: every row, the boundary probes of every split, the seeded random inputs and, for int
+ * input, every row and probe converted as Java converts float to int plus {@link IntProbes}.
+ */
+public final class BatchVerifier {
+  private static final int REPORTED_MISMATCHES = 5;
+
+  private BatchVerifier() {}
+
+  /**
+   * What the classifier answered, one entry per input in order.
+   *
+   * @param probabilities per input the class frequencies, or no rows without probabilities
+   */
+  public record Answers(int[] classes, float[][] probabilities) {
+
+    public Answers {
+      Objects.requireNonNull(classes, "classes");
+      Objects.requireNonNull(probabilities, "probabilities");
+    }
+  }
+
+  /** A classifier run over many inputs at once. */
+  public interface BatchClassifier {
+
+    /** Classifies float inputs (never called for int input). */
+    Answers floats(List<float[]> inputs);
+
+    /** Classifies int32 inputs (never called for float input). */
+    Answers ints(List<int[]> inputs);
+  }
+
+  /**
+   * Compares {@code classifier} with {@code tree}: the class of every input and, with {@code
+   * probabilities}, every frequency bit for bit with {@link DecisionTree#probabilities} narrowed
+   * to float.
+   *
+   * @param kind {@link InputKind#FLOAT} or {@link InputKind#INT}
+   */
+  public static VerificationResult check(DecisionTree tree, InputKind kind,
+      boolean probabilities, List<Dataset> rows, long seed, BatchClassifier classifier) {
+    Objects.requireNonNull(tree, "tree");
+    Objects.requireNonNull(classifier, "classifier");
+    List<float[]> probes = Verifier.inputs(tree, rows, seed, Verifier.RANDOM_PROBES);
+    List<float[]> modelInputs = new ArrayList<>();
+    Answers answers;
+    if (kind == InputKind.FLOAT) {
+      modelInputs.addAll(probes);
+      answers = classifier.floats(probes);
+    } else if (kind == InputKind.INT) {
+      List<int[]> ints = new ArrayList<>();
+      for (float[] probe : probes) {
+        ints.add(toInts(tree.schema(), probe));
+      }
+      ints.addAll(IntProbes.of(tree));
+      for (int[] x : ints) {
+        modelInputs.add(EmittedClassifier.modelInput(x));
+      }
+      answers = classifier.ints(ints);
+    } else {
+      throw new IllegalArgumentException("a batch classifier takes float or int input");
+    }
+    if (answers.classes().length != modelInputs.size()
+        || (probabilities && answers.probabilities().length != modelInputs.size())) {
+      throw new IllegalStateException("the classifier answered " + answers.classes().length
+          + " of " + modelInputs.size() + " inputs");
+    }
+    Coverage coverage = new Coverage(tree);
+    long mismatches = 0;
+    List<String> first = new ArrayList<>();
+    for (int i = 0; i < modelInputs.size(); i++) {
+      float[] x = modelInputs.get(i);
+      coverage.record(x);
+      int expected = tree.predict(x);
+      String problem = null;
+      if (answers.classes()[i] != expected) {
+        problem = "class " + answers.classes()[i] + ", model " + expected;
+      } else if (probabilities) {
+        double[] p = tree.probabilities(x);
+        for (int c = 0; c < p.length && problem == null; c++) {
+          float got = answers.probabilities()[i][c];
+          if (Float.floatToRawIntBits(got) != Float.floatToRawIntBits((float) p[c])) {
+            problem = "probability of class " + c + " " + got + ", model " + (float) p[c];
+          }
+        }
+      }
+      if (problem != null) {
+        mismatches++;
+        if (first.size() < REPORTED_MISMATCHES) {
+          first.add("input " + Arrays.toString(x) + ": " + problem);
+        }
+      }
+    }
+    return new VerificationResult(modelInputs.size(), mismatches, first, coverage.splits(),
+        coverage.covered(), 0, 0, 0, List.of(), 0, List.of());
+  }
+
+  /**
+   * Java's float-to-int conversion (JLS §5.1.3), as the Java int classifier's check uses it: NaN
+   * to 0, saturating at the int range; a missing category to -1, which int classifiers read as
+   * missing.
+   */
+  static int[] toInts(Schema schema, float[] probe) {
+    int[] x = new int[probe.length];
+    for (int f = 0; f < x.length; f++) {
+      x[f] = Float.isNaN(probe[f]) && schema.feature(f).isCategorical() ? -1 : (int) probe[f];
+    }
+    return x;
+  }
+}
