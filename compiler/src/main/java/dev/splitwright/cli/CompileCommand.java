@@ -9,6 +9,7 @@ import dev.splitwright.eval.Scores;
 import dev.splitwright.job.CompileJob;
 import dev.splitwright.job.CompileRequest;
 import dev.splitwright.job.CompileResult;
+import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.select.SelectionReport;
 import dev.splitwright.train.ClassWeights;
@@ -23,6 +24,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalInt;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -157,6 +159,8 @@ final class CompileCommand implements Callable<Integer> {
 
   @Mixin BudgetOptions budgetOptions = new BudgetOptions();
 
+  @Mixin DexOptions dexOptions = new DexOptions();
+
   @Option(names = "--quiet", description = "Print nothing on success.")
   boolean quiet;
 
@@ -232,6 +236,7 @@ final class CompileCommand implements Callable<Integer> {
         .probabilities(probabilities)
         .bare(bare)
         .build();
+    OptionalInt dexMinApi = dexOptions.minApi(spec.commandLine(), budgetOptions.countsDex());
     LoadOptions load = LoadOptions.builder()
         .target(target)
         .missingTokens(missing)
@@ -240,7 +245,7 @@ final class CompileCommand implements Callable<Integer> {
         .build();
     return new CompileRequest(data, Optional.ofNullable(testData), Optional.ofNullable(model),
         load, fractions, seed, training, emit, out, Optional.ofNullable(saveModel),
-        optionsText());
+        optionsText(dexMinApi), dexMinApi);
   }
 
   private ClassWeights classWeights() {
@@ -280,7 +285,7 @@ final class CompileCommand implements Callable<Integer> {
   }
 
   /** The options that reproduce this run, without file paths, in a fixed order. */
-  private String optionsText() {
+  private String optionsText(OptionalInt dexMinApi) {
     List<String> parts = new ArrayList<>();
     if (target != null) {
       parts.add("--target " + target);
@@ -326,6 +331,7 @@ final class CompileCommand implements Callable<Integer> {
       parts.add("--bare");
     }
     parts.addAll(budgetOptions.optionsText());
+    parts.addAll(dexOptions.optionsText(dexMinApi));
     return String.join(" ", parts);
   }
 
@@ -344,9 +350,14 @@ final class CompileCommand implements Callable<Integer> {
             s.macroF1());
       }
       RecallLine.of(result).ifPresent(out::println);
+      CompileReport report = result.report();
+      String dex = report.dexBytes() == null ? "" : String.format(Locale.ROOT,
+          ", DEX %d bytes at min-api %d (an empty class %d, the classifier %d more)",
+          report.dexBytes(), report.dexMinApi(), report.dexBytesEmptyClass(),
+          report.dexBytesOverEmptyClass());
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
-          + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
-          v.classFileBytes(), result.report().classFileBytesNoDebug(), v.maxMethodBytes());
+          + "info)%s, largest method %d bytecode bytes%n", result.source().sourceBytes(),
+          v.classFileBytes(), report.classFileBytesNoDebug(), dex, v.maxMethodBytes());
       Object choice = result.report().options().get("layoutChoice");
       if (choice != null) {
         out.println("layout: " + choice);

@@ -8,6 +8,9 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.FrontierSvg;
 import dev.splitwright.select.BudgetSelection;
+import dev.splitwright.select.BudgetUnit;
+import dev.splitwright.select.DexMeter;
+import dev.splitwright.select.DexSizes;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.verify.Verifier;
@@ -29,8 +32,16 @@ final class BudgetRun {
       throw new InputException("budget", "cannot be combined with --model: the budget search "
           + "trains its own trees", "leave out --model or --budget");
     }
+    if (settings.unit() == BudgetUnit.DEX && request.dexMinApi().isEmpty()) {
+      throw new IllegalArgumentException("a DEX budget needs a minimum API level");
+    }
+    // D8 is loaded only when DEX sizes were asked for.
+    Optional<DexMeter> dex = request.dexMinApi().isPresent()
+        ? Optional.of(DexMeter.forMinApi(request.dexMinApi().getAsInt()))
+        : Optional.empty();
+    Optional<DexMeter> searchDex = settings.unit() == BudgetUnit.DEX ? dex : Optional.empty();
     BudgetSelection.Outcome outcome = new BudgetSelection(settings, request.emit(), verifier,
-        progress).run(
+        progress, searchDex).run(
             new BudgetSelection.Data(parts.train(), parts.validation(), parts.all(),
                 request.seed()),
             header(loaded, request, placeholderScores(parts)),
@@ -38,10 +49,11 @@ final class BudgetRun {
     DecisionTree tree = outcome.tree();
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
+    Optional<DexSizes> dexSizes = dex.map(d -> d.measure(outcome.source(), verifier.compiler()));
     // The -g:none size was compiled once, for the selection; the report repeats that figure.
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
         options, request.emit(), outcome.source(), outcome.verification(),
-        outcome.report().chosen().classFileBytesNoDebug(), scores, outcome.report());
+        outcome.report().chosen().classFileBytesNoDebug(), dexSizes, scores, outcome.report());
     if (!outcome.verification().passed()) {
       return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
           List.of());

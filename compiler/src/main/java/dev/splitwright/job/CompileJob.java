@@ -18,6 +18,8 @@ import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
 import dev.splitwright.report.TreeSvg;
 import dev.splitwright.select.DebugSizes;
+import dev.splitwright.select.DexMeter;
+import dev.splitwright.select.DexSizes;
 import dev.splitwright.select.LayoutChoice;
 import dev.splitwright.select.LayoutChooser;
 import dev.splitwright.select.SearchProgress;
@@ -108,9 +110,14 @@ public final class CompileJob {
     if (request.emit().layout() == Layout.SMALLEST) {
       options.put("layoutChoice", layout.describe());
     }
+    // D8 is loaded only here, when DEX sizes were asked for.
+    Optional<DexSizes> dex = request.dexMinApi().isPresent()
+        ? Optional.of(DexMeter.forMinApi(request.dexMinApi().getAsInt())
+            .measure(layout.classes(), source.qualifiedName()))
+        : Optional.empty();
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
-        options, layout.options(), source, verification, DebugSizes.noDebug(source), scores,
-        null);
+        options, layout.options(), source, verification, DebugSizes.noDebug(source), dex,
+        scores, null);
     if (!verification.passed()) {
       return new CompileResult(tree, source, verification, scores, report, List.of());
     }

@@ -10,11 +10,13 @@ import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
 import dev.splitwright.report.CompileReport;
+import dev.splitwright.select.DexSizes;
 import dev.splitwright.verify.VerificationResult;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 
 /** Assembles the report of a compile run from its parts. */
 final class ReportBuilder {
@@ -26,12 +28,13 @@ final class ReportBuilder {
    * The report of a run.
    *
    * @param noDebugBytes the class file of {@code source} compiled with {@code -g:none}
+   * @param dex the DEX sizes of {@code source}'s class, if asked for
    * @param selection the budget search's section, or null without a budget
    */
   static CompileReport build(String dataName, String sha256, DecisionTree tree,
       Map<String, Object> options, EmitOptions emit, EmittedSource source,
-      VerificationResult verification, int noDebugBytes, Map<String, Scores> scores,
-      Object selection) {
+      VerificationResult verification, int noDebugBytes, Optional<DexSizes> dex,
+      Map<String, Scores> scores, Object selection) {
     Schema schema = tree.schema();
     Map<String, CompileReport.PartScores> parts = new LinkedHashMap<>();
     scores.forEach((part, s) -> parts.put(part, partScores(schema, s)));
@@ -42,7 +45,10 @@ final class ReportBuilder {
         schema.featureNames(), options, emit.layout().optionName(),
         emit.inputKind().optionName(), tree.depth(), tree.leafCount(), tree.internalNodeCount(),
         root(tree), source.sourceBytes(), verification.classFileBytes(),
-        noDebugBytes, verification.maxMethodBytes(),
+        noDebugBytes, dex.map(DexSizes::dexBytes).orElse(null),
+        dex.map(DexSizes::emptyClassBytes).orElse(null),
+        dex.map(DexSizes::classifierBytes).orElse(null), dex.map(DexSizes::minApi).orElse(null),
+        verification.maxMethodBytes(),
         verification.methodByteCap(), verification.constantPoolCount(), methods, parts,
         new CompileReport.Verification(verification.passed(), verification.inputsChecked(),
             verification.mismatches(), verification.branchCoverage(),

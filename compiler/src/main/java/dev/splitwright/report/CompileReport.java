@@ -12,12 +12,18 @@ import java.util.Map;
  * @param scores "train", "validation" and "test" as present, in that order
  * @param classFileBytes the class file javac writes with its default debug information
  * @param classFileBytesNoDebug the same source compiled with {@code -g:none}
+ * @param dexBytes the DEX file D8 writes for the class alone in release mode at {@code
+ *     dexMinApi}; absent, like the three fields after it, unless DEX sizes were asked for
+ * @param dexBytesEmptyClass the DEX file of an empty class of the same name, dexed the same way
+ * @param dexBytesOverEmptyClass what the classifier adds to the empty class
+ * @param dexMinApi the minimum Android API level D8 compiled for
  * @param selection the budget search's record, absent when no budget was given
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 @JsonPropertyOrder({"tool", "data", "dataSha256", "target", "classes", "features", "options",
     "layout", "input", "depth", "leaves", "internalNodes", "root", "sourceBytes", "classFileBytes",
-    "classFileBytesNoDebug", "maxMethodBytecodeBytes", "methodByteCap", "constantPoolCount",
+    "classFileBytesNoDebug", "dexBytes", "dexBytesEmptyClass", "dexBytesOverEmptyClass",
+    "dexMinApi", "maxMethodBytecodeBytes", "methodByteCap", "constantPoolCount",
     "methods", "scores", "verification", "selection"})
 public record CompileReport(
     String tool,
@@ -36,6 +42,10 @@ public record CompileReport(
     int sourceBytes,
     int classFileBytes,
     int classFileBytesNoDebug,
+    Integer dexBytes,
+    Integer dexBytesEmptyClass,
+    Integer dexBytesOverEmptyClass,
+    Integer dexMinApi,
     int maxMethodBytecodeBytes,
     int methodByteCap,
     int constantPoolCount,
