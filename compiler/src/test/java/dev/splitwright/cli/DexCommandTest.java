@@ -111,7 +111,8 @@ class DexCommandTest {
         .satisfies(p -> assertThat(p.get("size").asInt()).isEqualTo(dexed));
     int empty = report.get("dexBytesEmptyClass").asInt();
     assertThat(frontier).allSatisfy(p -> assertThat(p.get("size").asInt()).isGreaterThan(empty));
-    assertThat(selection.get("smallestSize").asInt()).isEqualTo(frontier.get(0).get("size").asInt());
+    assertThat(selection.get("smallestSize").asInt())
+        .isEqualTo(frontier.get(0).get("size").asInt());
     assertThat(report.get("classFileBytes").asInt()).isNotEqualTo(dexed);
     assertThat(Files.readString(out.resolve("Fit.frontier.svg"))).contains("DEX size");
   }
