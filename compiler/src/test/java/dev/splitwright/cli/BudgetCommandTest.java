@@ -150,7 +150,7 @@ class BudgetCommandTest {
       throws IOException {
     Path out = dir.resolve("out");
     List<String> args = new ArrayList<>(List.of("compile", "--data",
-        "../generated-samples/data/pump-vibration.csv", "--target", "state", "--package",
+        CompileCommandTest.PUMP.toString(), "--target", "state", "--package",
         "demo.size", "--class", "Pump", "--out", out.toString()));
     if (!budget.isEmpty()) {
       args.addAll(List.of("--budget", budget));
@@ -245,8 +245,8 @@ class BudgetCommandTest {
   void rejectsBadSearchValues(@TempDir Path dir) {
     String[][] cases = {
         {"--folds", "1", "option '--folds' must be at least 2, but it is 1"},
-        {"--budget-unit", "bits", "option '--budget-unit' must be class, bytecode or source, but "
-            + "it is 'bits'"},
+        {"--budget-unit", "bits", "option '--budget-unit' must be class, bytecode, source or dex, "
+            + "but it is 'bits'"},
         {"--metric", "f2", "option '--metric' must be accuracy, balanced-accuracy or macro-f1, but "
             + "it is 'f2'"}};
     for (String[] c : cases) {
