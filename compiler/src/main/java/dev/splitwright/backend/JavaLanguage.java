@@ -10,6 +10,8 @@ import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.DebugSizes;
+import dev.splitwright.select.DexMeter;
+import dev.splitwright.select.DexSizes;
 import dev.splitwright.select.LayoutChoice;
 import dev.splitwright.select.LayoutChooser;
 import dev.splitwright.verify.VerificationResult;
@@ -18,6 +20,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.OptionalInt;
 
 /**
  * Java: one class emitted by {@link dev.splitwright.emit.JavaEmitter}, compiled by javac in
@@ -26,10 +29,17 @@ import java.util.Optional;
 public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmission> {
   private final EmitOptions options;
   private final Verifier verifier;
+  private final OptionalInt dexMinApi;
 
   public JavaLanguage(EmitOptions options, Verifier verifier) {
+    this(options, verifier, OptionalInt.empty());
+  }
+
+  /** Java as above, its class also measured in DEX bytes at {@code dexMinApi} when present. */
+  public JavaLanguage(EmitOptions options, Verifier verifier, OptionalInt dexMinApi) {
     this.options = Objects.requireNonNull(options, "options");
     this.verifier = Objects.requireNonNull(verifier, "verifier");
+    this.dexMinApi = Objects.requireNonNull(dexMinApi, "dexMinApi");
   }
 
   /**
@@ -143,26 +153,35 @@ public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmiss
     EmittedSource source = emission.source();
     byte[] bytes = emission.choice().classes().bytes(source.qualifiedName());
     ClassFileInfo info = ClassFileInfo.parse(bytes);
+    // D8 is loaded only here, and only when DEX sizes were asked for.
+    Optional<DexSizes> dex = dexMinApi.isPresent()
+        ? Optional.of(DexMeter.forMinApi(dexMinApi.getAsInt())
+            .measure(emission.choice().classes(), source.qualifiedName()))
+        : Optional.empty();
     return figures(source, bytes.length, DebugSizes.noDebug(source),
         Verifier.largestPerCallMethod(info), emission.choice().options().maxMethodBytes(),
-        info.constantPoolCount(), info.methods());
+        info.constantPoolCount(), info.methods(), dex);
   }
 
   /** The figures of {@code source}, whose compiled class the verifier has already looked at. */
   public static SizeFigures figures(EmittedSource source, VerificationResult verified,
-      int noDebugBytes) {
+      int noDebugBytes, Optional<DexSizes> dex) {
     return figures(source, verified.classFileBytes(), noDebugBytes, verified.maxMethodBytes(),
-        verified.methodByteCap(), verified.constantPoolCount(), verified.methods());
+        verified.methodByteCap(), verified.constantPoolCount(), verified.methods(), dex);
   }
 
   private static SizeFigures figures(EmittedSource source, int classFileBytes, int noDebugBytes,
-      int maxMethodBytes, int methodByteCap, int constantPoolCount, List<MethodSize> methods) {
+      int maxMethodBytes, int methodByteCap, int constantPoolCount, List<MethodSize> methods,
+      Optional<DexSizes> dex) {
+    String dexText = dex.map(d -> String.format(Locale.ROOT,
+        ", DEX %d bytes at min-api %d (an empty class %d, the classifier %d more)",
+        d.dexBytes(), d.minApi(), d.emptyClassBytes(), d.classifierBytes())).orElse("");
     String summary = String.format(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d "
-        + "without debug info), largest method %d bytecode bytes", source.sourceBytes(),
-        classFileBytes, noDebugBytes, maxMethodBytes);
+        + "without debug info)%s, largest method %d bytecode bytes", source.sourceBytes(),
+        classFileBytes, noDebugBytes, dexText, maxMethodBytes);
     return new SizeFigures(source.sourceBytes(), Optional.of(new SizeFigures.JavaFigures(
         classFileBytes, noDebugBytes, maxMethodBytes, methodByteCap, constantPoolCount,
         methods.stream().map(m -> new CompileReport.MethodBytes(m.name(), m.codeLength()))
-            .toList())), Optional.empty(), summary);
+            .toList(), dex)), Optional.empty(), summary);
   }
 }

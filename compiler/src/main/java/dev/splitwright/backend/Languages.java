@@ -10,6 +10,7 @@ import dev.splitwright.emit.Layout;
 import dev.splitwright.verify.Verifier;
 import java.util.List;
 import java.util.Objects;
+import java.util.OptionalInt;
 
 /** Makes the {@link OutputLanguage} a run asks for: {@code --emit java} or {@code --emit c}. */
 public final class Languages {
@@ -19,8 +20,9 @@ public final class Languages {
   private Languages() {}
 
   /** Java with {@code options}, checked and measured with {@code verifier}'s javac. */
-  public static OutputLanguage<?> java(EmitOptions options, Verifier verifier) {
-    return new JavaLanguage(options, verifier);
+  public static OutputLanguage<?> java(EmitOptions options, Verifier verifier,
+      OptionalInt dexMinApi) {
+    return new JavaLanguage(options, verifier, dexMinApi);
   }
 
   /**

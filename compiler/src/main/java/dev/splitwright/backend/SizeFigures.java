@@ -1,6 +1,7 @@
 package dev.splitwright.backend;
 
 import dev.splitwright.report.CompileReport;
+import dev.splitwright.select.DexSizes;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
@@ -27,12 +28,15 @@ public record SizeFigures(int sourceBytes, Optional<JavaFigures> java,
    * Sizes of the compiled Java class.
    *
    * @param noDebugBytes the class file compiled with {@code -g:none}
+   * @param dex the class dexed by D8, when DEX sizes were asked for
    */
   public record JavaFigures(int classFileBytes, int noDebugBytes, int maxMethodBytes,
-      int methodByteCap, int constantPoolCount, List<CompileReport.MethodBytes> methods) {
+      int methodByteCap, int constantPoolCount, List<CompileReport.MethodBytes> methods,
+      Optional<DexSizes> dex) {
 
     public JavaFigures {
       methods = List.copyOf(methods);
+      Objects.requireNonNull(dex, "dex");
     }
   }
 }

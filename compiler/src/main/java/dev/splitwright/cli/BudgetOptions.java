@@ -26,7 +26,8 @@ final class BudgetOptions {
 
   @Option(names = "--budget-unit", defaultValue = "class", paramLabel = "UNIT",
       description = "What --budget counts: the .class file javac writes with --release 17 and "
-          + "its default debug info, the methods' bytecode, or the .java file's UTF-8 bytes "
+          + "its default debug info, the methods' bytecode, the .java file's UTF-8 bytes, or the "
+          + "DEX file D8 writes for the class alone in release mode at --min-api "
           + "(default: ${DEFAULT-VALUE}).")
   String unit;
 
@@ -87,6 +88,11 @@ final class BudgetOptions {
         .training(training)
         .seed(seed)
         .build());
+  }
+
+  /** Whether a budget is given and counts DEX bytes. */
+  boolean countsDex() {
+    return budget != null && BudgetUnit.parse(unit).orElse(null) == BudgetUnit.DEX;
   }
 
   /** The search options for the reproducing command line, or nothing without a budget. */

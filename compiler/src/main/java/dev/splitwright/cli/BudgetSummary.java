@@ -28,9 +28,10 @@ final class BudgetSummary {
       out.println("budget: " + fallback);
     }
     if (stats != null) {
-      out.printf(Locale.ROOT, "search: %d settings, %d distinct trees measured in %d javac runs, "
+      String d8 = stats.d8Runs() == 0 ? "" : " and " + stats.d8Runs() + " D8 runs";
+      out.printf(Locale.ROOT, "search: %d settings, %d distinct trees measured in %d javac runs%s, "
           + "frontier of %d; %.1f s%n", stats.settingsTried(), stats.distinctTrees(),
-          stats.javacRuns(), selection.frontier().size(), stats.seconds());
+          stats.javacRuns(), d8, selection.frontier().size(), stats.seconds());
     }
   }
 }

@@ -25,6 +25,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalInt;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -162,6 +163,7 @@ final class CompileCommand implements Callable<Integer> {
   @Mixin BudgetOptions budgetOptions = new BudgetOptions();
 
   @Mixin LanguageOptions languageOptions = new LanguageOptions();
+  @Mixin DexOptions dexOptions = new DexOptions();
 
   @Option(names = "--quiet", description = "Print nothing on success.")
   boolean quiet;
@@ -180,7 +182,8 @@ final class CompileCommand implements Callable<Integer> {
     ProgressBar progress = ProgressBar.forTerminal(stderr, quiet);
     Verifier verifier = Verifier.create();
     CompileResult result = new CompileJob(verifier,
-        languageOptions.language(spec.commandLine(), request.emit(), verifier))
+        languageOptions.language(spec.commandLine(), request.emit(), request.dexMinApi(),
+            verifier))
         .run(request, budget, progress);
     VerificationResult v = result.verification();
     if (!v.passed()) {
@@ -242,6 +245,7 @@ final class CompileCommand implements Callable<Integer> {
         .probabilities(probabilities)
         .bare(bare)
         .build();
+    OptionalInt dexMinApi = dexOptions.minApi(spec.commandLine(), budgetOptions.countsDex());
     LoadOptions load = LoadOptions.builder()
         .target(target)
         .missingTokens(missing)
@@ -250,7 +254,7 @@ final class CompileCommand implements Callable<Integer> {
         .build();
     return new CompileRequest(data, Optional.ofNullable(testData), Optional.ofNullable(model),
         load, fractions, seed, training, emit, out, Optional.ofNullable(saveModel),
-        optionsText());
+        optionsText(dexMinApi), dexMinApi);
   }
 
   private ClassWeights classWeights() {
@@ -290,7 +294,7 @@ final class CompileCommand implements Callable<Integer> {
   }
 
   /** The options that reproduce this run, without file paths, in a fixed order. */
-  private String optionsText() {
+  private String optionsText(OptionalInt dexMinApi) {
     List<String> parts = new ArrayList<>();
     if (target != null) {
       parts.add("--target " + target);
@@ -341,6 +345,7 @@ final class CompileCommand implements Callable<Integer> {
     }
     parts.addAll(budgetOptions.optionsText());
     parts.addAll(languageOptions.optionsText(spec.commandLine()));
+    parts.addAll(dexOptions.optionsText(dexMinApi));
     return String.join(" ", parts);
   }
 

@@ -10,6 +10,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.OptionalInt;
 import picocli.CommandLine;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
@@ -17,7 +18,8 @@ import picocli.CommandLine.ParameterException;
 /** The {@code compile} options choosing the output language, mixed into {@link CompileCommand}. */
 final class LanguageOptions {
   /** Options that shape Java alone; given with {@code --emit c} they are refused. */
-  static final List<String> JAVA_ONLY = List.of("--package", "--named-args", "--max-method-bytes");
+  static final List<String> JAVA_ONLY = List.of("--package", "--named-args", "--max-method-bytes",
+      "--dex-size", "--min-api");
   private static final List<String> C_ONLY = List.of("--host-cc", "--cc", "--cflags");
 
   @Option(names = "--emit", defaultValue = "java", paramLabel = "LANGUAGE",
@@ -72,10 +74,10 @@ final class LanguageOptions {
    *
    * @throws InputException naming {@code --host-cc} or {@code --cc} if one is not found
    */
-  OutputLanguage<?> language(CommandLine cli, EmitOptions options, Verifier verifier)
-      throws InputException {
+  OutputLanguage<?> language(CommandLine cli, EmitOptions options, OptionalInt dexMinApi,
+      Verifier verifier) throws InputException {
     if (name(cli).equals("java")) {
-      return Languages.java(options, verifier);
+      return Languages.java(options, verifier, dexMinApi);
     }
     return Languages.c(options, new Languages.CTools(hostCc, cc == null ? hostCc : cc, flags()));
   }

@@ -12,6 +12,9 @@ import dev.splitwright.persist.SavedModel;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.FrontierSvg;
 import dev.splitwright.select.BudgetSelection;
+import dev.splitwright.select.BudgetUnit;
+import dev.splitwright.select.DexMeter;
+import dev.splitwright.select.DexSizes;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.verify.Verifier;
@@ -34,8 +37,16 @@ final class BudgetRun {
       throw new InputException("budget", "cannot be combined with --model: the budget search "
           + "trains its own trees", "leave out --model or --budget");
     }
+    if (settings.unit() == BudgetUnit.DEX && request.dexMinApi().isEmpty()) {
+      throw new IllegalArgumentException("a DEX budget needs a minimum API level");
+    }
+    // D8 is loaded only when DEX sizes were asked for.
+    Optional<DexMeter> dex = request.dexMinApi().isPresent()
+        ? Optional.of(DexMeter.forMinApi(request.dexMinApi().getAsInt()))
+        : Optional.empty();
+    Optional<DexMeter> searchDex = settings.unit() == BudgetUnit.DEX ? dex : Optional.empty();
     BudgetSelection.Outcome outcome = new BudgetSelection(settings, request.emit(), verifier,
-        progress).run(
+        progress, searchDex).run(
             new BudgetSelection.Data(parts.train(), parts.validation(), parts.all(),
                 request.seed()),
             header(loaded, testLog, request, placeholderScores(parts)),
@@ -43,11 +54,12 @@ final class BudgetRun {
     DecisionTree tree = outcome.tree();
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
+    Optional<DexSizes> dexSizes = dex.map(d -> d.measure(outcome.source(), verifier.compiler()));
     // The -g:none size was compiled once, for the selection; the report repeats that figure.
     JavaLanguage.JavaFile emission = JavaLanguage.written(outcome.source(),
         request.emit().toBuilder().layout(outcome.source().layout()).build());
     SizeFigures sizes = JavaLanguage.figures(outcome.source(), outcome.verification(),
-        outcome.report().chosen().classFileBytesNoDebug());
+        outcome.report().chosen().classFileBytesNoDebug(), dexSizes);
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(),
         Optional.empty(), testLog, tree, options, "java", emission, sizes,
         outcome.verification(), Optional.empty(), scores, outcome.report());

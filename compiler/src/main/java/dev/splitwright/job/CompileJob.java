@@ -79,7 +79,8 @@ public final class CompileJob {
   }
 
   private OutputLanguage<?> language(CompileRequest request) {
-    return language.isPresent() ? language.get() : new JavaLanguage(request.emit(), verifier);
+    return language.isPresent() ? language.get()
+        : new JavaLanguage(request.emit(), verifier, request.dexMinApi());
   }
 
   /**

@@ -6,6 +6,7 @@ import dev.splitwright.train.TrainingOptions;
 import java.nio.file.Path;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.OptionalInt;
 
 /**
  * Everything one compile run needs. Paths are used to read and write only; what is recorded in the
@@ -18,6 +19,8 @@ import java.util.Optional;
  * @param fractions train, validation and test fractions, summing to 1
  * @param saveModel where to write the model file
  * @param optionsText the options that reproduce the run, without paths, for headers and reports
+ * @param dexMinApi measure the emitted class in DEX bytes for this minimum Android API level;
+ *     needed for a DEX budget, and empty otherwise keeps D8 unloaded
  */
 public record CompileRequest(
     Path data,
@@ -30,7 +33,8 @@ public record CompileRequest(
     EmitOptions emit,
     Path outDir,
     Optional<Path> saveModel,
-    String optionsText) {
+    String optionsText,
+    OptionalInt dexMinApi) {
 
   public CompileRequest {
     Objects.requireNonNull(data, "data");
@@ -46,6 +50,15 @@ public record CompileRequest(
     Objects.requireNonNull(outDir, "outDir");
     Objects.requireNonNull(saveModel, "saveModel");
     Objects.requireNonNull(optionsText, "optionsText");
+    Objects.requireNonNull(dexMinApi, "dexMinApi");
+  }
+
+  /** A request that measures no DEX bytes. */
+  public CompileRequest(Path data, Optional<Path> testData, Optional<Path> model,
+      LoadOptions load, double[] fractions, long seed, TrainingOptions training, EmitOptions emit,
+      Path outDir, Optional<Path> saveModel, String optionsText) {
+    this(data, testData, model, load, fractions, seed, training, emit, outDir, saveModel,
+        optionsText, OptionalInt.empty());
   }
 
   @Override

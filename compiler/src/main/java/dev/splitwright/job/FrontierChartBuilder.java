@@ -19,6 +19,7 @@ final class FrontierChartBuilder {
       case CLASS -> "class file size (bytes; javac --release 17, default debug info)";
       case BYTECODE -> "bytecode size (bytes, sum of method code lengths)";
       case SOURCE -> "source size (bytes, UTF-8)";
+      case DEX -> "DEX size (bytes; D8 release mode, the class alone)";
     };
     List<FrontierSvg.Dot> all = outcome.candidates().stream()
         .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();

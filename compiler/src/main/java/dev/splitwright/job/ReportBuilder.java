@@ -12,6 +12,7 @@ import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
 import dev.splitwright.report.CompileReport;
+import dev.splitwright.select.DexSizes;
 import dev.splitwright.verify.VerificationResult;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -50,11 +51,14 @@ final class ReportBuilder {
         t.loaded().sourceName(), t.loaded().sha256(), t.loaded().dataRows(),
         t.unseenCategoryRows())).orElse(null);
     Optional<SizeFigures.JavaFigures> java = sizes.java();
+    Optional<DexSizes> dex = java.flatMap(SizeFigures.JavaFigures::dex);
     return new CompileReport(TOOL, language, dataName, sha256, trained, test, schema.target(),
         schema.classes(), schema.featureNames(), options, emission.layout(), emission.input(),
         tree.depth(), tree.leafCount(), tree.internalNodeCount(), root(tree), sizes.sourceBytes(),
         java.map(SizeFigures.JavaFigures::classFileBytes).orElse(null),
         java.map(SizeFigures.JavaFigures::noDebugBytes).orElse(null),
+        dex.map(DexSizes::dexBytes).orElse(null), dex.map(DexSizes::emptyClassBytes).orElse(null),
+        dex.map(DexSizes::classifierBytes).orElse(null), dex.map(DexSizes::minApi).orElse(null),
         java.map(SizeFigures.JavaFigures::maxMethodBytes).orElse(null),
         java.map(SizeFigures.JavaFigures::methodByteCap).orElse(null),
         java.map(SizeFigures.JavaFigures::constantPoolCount).orElse(null),

@@ -17,15 +17,20 @@ import java.util.Map;
  *     "scored" and "test"
  * @param classFileBytes the class file javac writes with its default debug information (Java)
  * @param classFileBytesNoDebug the same source compiled with {@code -g:none} (Java)
+ * @param dexBytes the DEX file D8 writes for the class alone in release mode at {@code
+ *     dexMinApi}; absent, like the three fields after it, unless DEX sizes were asked for
+ * @param dexBytesEmptyClass the DEX file of an empty class of the same name, dexed the same way
+ * @param dexBytesOverEmptyClass what the classifier adds to the empty class
+ * @param dexMinApi the minimum Android API level D8 compiled for
  * @param flash the object file's flash bytes (C)
  * @param selection the budget search's record, absent when no budget was given
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 @JsonPropertyOrder({"tool", "language", "data", "dataSha256", "trainedOn", "testData", "target",
     "classes", "features", "options", "layout", "input", "depth", "leaves", "internalNodes", "root",
-    "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "maxMethodBytecodeBytes",
-    "methodByteCap", "constantPoolCount", "methods", "flash", "scores", "verification",
-    "selection"})
+    "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "dexBytes", "dexBytesEmptyClass",
+    "dexBytesOverEmptyClass", "dexMinApi", "maxMethodBytecodeBytes", "methodByteCap",
+    "constantPoolCount", "methods", "flash", "scores", "verification", "selection"})
 public record CompileReport(
     String tool,
     String language,
@@ -46,6 +51,10 @@ public record CompileReport(
     int sourceBytes,
     Integer classFileBytes,
     Integer classFileBytesNoDebug,
+    Integer dexBytes,
+    Integer dexBytesEmptyClass,
+    Integer dexBytesOverEmptyClass,
+    Integer dexMinApi,
     Integer maxMethodBytecodeBytes,
     Integer methodByteCap,
     Integer constantPoolCount,

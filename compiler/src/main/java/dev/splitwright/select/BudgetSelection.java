@@ -10,6 +10,7 @@ import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 import java.util.function.Function;
 
 /**
@@ -20,7 +21,8 @@ import java.util.function.Function;
  *       cost-complexity pruning path; equal trees are kept once ({@link CandidateGenerator}).
  *   <li>Scores: the metric on the validation part, or the mean over stratified folds of train and
  *       validation together ({@link CandidateScorer}). Test rows are never looked at.
- *   <li>Sizes: every distinct candidate is emitted and compiled, in batches ({@link SizeMeter}).
+ *   <li>Sizes: every distinct candidate is emitted and compiled, in batches ({@link SizeMeter}),
+ *       and for a DEX budget dexed, one D8 run per batch ({@link DexMeter}).
  *       Nothing is estimated, so the frontier also shows what larger budgets would buy.
  *   <li>Choice: among candidates within the budget the best score, ties to the smaller size, then
  *       fewer leaves, then generation order ({@link Ranking}); steps 1 to 4 are {@link
@@ -40,14 +42,29 @@ public final class BudgetSelection {
   private final EmitOptions emit;
   private final Verifier verifier;
   private final SearchProgress progress;
+  private final Optional<DexMeter> dex;
 
   /** Searches with {@code settings}, emits with {@code emit}, checks with {@code verifier}. */
   public BudgetSelection(SearchSettings settings, EmitOptions emit, Verifier verifier,
       SearchProgress progress) {
+    this(settings, emit, verifier, progress, Optional.empty());
+  }
+
+  /**
+   * As above, measuring every candidate in DEX bytes with {@code dex} too.
+   *
+   * @throws IllegalArgumentException if the budget counts DEX bytes but {@code dex} is empty
+   */
+  public BudgetSelection(SearchSettings settings, EmitOptions emit, Verifier verifier,
+      SearchProgress progress, Optional<DexMeter> dex) {
     this.settings = Objects.requireNonNull(settings, "settings");
     this.emit = Objects.requireNonNull(emit, "emit");
     this.verifier = Objects.requireNonNull(verifier, "verifier");
     this.progress = Objects.requireNonNull(progress, "progress");
+    this.dex = Objects.requireNonNull(dex, "dex");
+    if (settings.unit() == BudgetUnit.DEX && dex.isEmpty()) {
+      throw new IllegalArgumentException("a DEX budget needs a DexMeter");
+    }
   }
 
   /**
@@ -98,7 +115,7 @@ public final class BudgetSelection {
   public Outcome run(Data data, HeaderInfo candidateHeader,
       Function<DecisionTree, HeaderInfo> finalHeader) throws InputException {
     long start = System.nanoTime();
-    SizeMeter meter = new SizeMeter(verifier.compiler());
+    SizeMeter meter = new SizeMeter(verifier.compiler(), dex);
     CandidateSearch.Result search = null;
     try {
       search = new CandidateSearch(settings, emit, progress).run(data, candidateHeader, meter);
@@ -118,9 +135,9 @@ public final class BudgetSelection {
     }
   }
 
-  private static SearchStats stats(CandidateSearch.Result search, SizeMeter meter, long start) {
+  private SearchStats stats(CandidateSearch.Result search, SizeMeter meter, long start) {
     return new SearchStats(search == null ? 0 : search.settingsTried(),
         search == null ? 0 : search.candidates().size(), meter.sourcesCompiled(),
-        meter.javacRuns(), System.nanoTime() - start);
+        meter.javacRuns(), dex.map(DexMeter::d8Runs).orElse(0), System.nanoTime() - start);
   }
 }

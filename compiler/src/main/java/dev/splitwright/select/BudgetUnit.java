@@ -14,7 +14,12 @@ public enum BudgetUnit {
   /** Sum of every method's {@code code_length} (JVM Specification §4.7.3). */
   BYTECODE("bytecode", "bytecode size"),
   /** UTF-8 bytes of the {@code .java} file. */
-  SOURCE("source", "source size");
+  SOURCE("source", "source size"),
+  /**
+   * Bytes of the DEX file Android's D8 writes for the class alone in release mode at a minimum
+   * API level ({@link DexMeter}): what an app ships before R8 shrinking.
+   */
+  DEX("dex", "DEX size");
 
   private final String optionName;
   private final String description;

@@ -82,7 +82,7 @@ final class ChoiceEmitter {
     Choice best = null;
     for (EmittedSource source : emitter.emit(tree, header)) {
       CompiledClasses classes = meter.compileAlone(source);
-      Sizes sizes = SizeMeter.sizesOf(classes, source.qualifiedName(), source.sourceBytes());
+      Sizes sizes = meter.measured(classes, source);
       if (best == null || sizes.in(settings.unit()) < best.sizes().in(settings.unit())) {
         best = new Choice(candidate, tree, source, classes, sizes, fallbacks);
       }

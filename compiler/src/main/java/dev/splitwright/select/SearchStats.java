@@ -8,10 +8,17 @@ package dev.splitwright.select;
  * @param distinctTrees candidates left after removing equal trees
  * @param sourcesCompiled emitted sources compiled to measure them
  * @param javacRuns compiler runs the measuring took
+ * @param d8Runs D8 runs the measuring took, 0 unless the budget counts DEX bytes
  * @param elapsedNanos wall time of the whole search, refit and final check included
  */
 public record SearchStats(int settingsTried, int distinctTrees, int sourcesCompiled,
-    int javacRuns, long elapsedNanos) {
+    int javacRuns, int d8Runs, long elapsedNanos) {
+
+  /** Statistics of a search that ran no D8. */
+  public SearchStats(int settingsTried, int distinctTrees, int sourcesCompiled, int javacRuns,
+      long elapsedNanos) {
+    this(settingsTried, distinctTrees, sourcesCompiled, javacRuns, 0, elapsedNanos);
+  }
 
   /** Elapsed seconds. */
   public double seconds() {

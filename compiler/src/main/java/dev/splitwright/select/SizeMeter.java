@@ -9,13 +9,15 @@ import dev.splitwright.emit.EmittedSource;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 
 /**
  * Measures emitted sources by compiling them, many per javac run: each run costs a fixed 20 ms or
  * so with {@code --release 17} and about a millisecond per small class (see {@link
  * InMemoryCompiler}), so batches of a hundred make the fixed cost negligible. Sources are renamed
  * by {@link BatchRenamer} to share a run; should a batch fail to compile anyway, its sources are
- * compiled one by one under their own names.
+ * compiled one by one under their own names. With a {@link DexMeter}, each batch's classes are also
+ * dexed, in one D8 run.
  */
 final class SizeMeter {
   /** Sources per javac run. */
@@ -24,11 +26,18 @@ final class SizeMeter {
   static final int BATCH_CHARS = 2_000_000;
 
   private final InMemoryCompiler compiler;
+  private final Optional<DexMeter> dex;
   private int javacRuns;
   private int sourcesCompiled;
 
   SizeMeter(InMemoryCompiler compiler) {
+    this(compiler, Optional.empty());
+  }
+
+  /** Measures DEX bytes too when {@code dex} is present. */
+  SizeMeter(InMemoryCompiler compiler, Optional<DexMeter> dex) {
     this.compiler = Objects.requireNonNull(compiler, "compiler");
+    this.dex = Objects.requireNonNull(dex, "dex");
   }
 
   int javacRuns() {
@@ -78,15 +87,36 @@ final class SizeMeter {
       return sizes;
     }
     List<Sizes> sizes = new ArrayList<>(batch.size());
+    List<String> names = new ArrayList<>(batch.size());
     for (int i = 0; i < batch.size(); i++) {
-      sizes.add(sizesOf(classes, files.get(i).binaryClassName(), batch.get(i).sourceBytes()));
+      names.add(files.get(i).binaryClassName());
+      sizes.add(sizesOf(classes, names.get(i), batch.get(i).sourceBytes()));
     }
-    return sizes;
+    return withDex(sizes, classes, names);
   }
 
   /** Compiles {@code source} under its own name and measures it. */
   Sizes measureAlone(EmittedSource source) {
-    return sizesOf(compileAlone(source), source.qualifiedName(), source.sourceBytes());
+    return measured(compileAlone(source), source);
+  }
+
+  /** The sizes of {@code source}, already compiled under its own name into {@code classes}. */
+  Sizes measured(CompiledClasses classes, EmittedSource source) {
+    Sizes sizes = sizesOf(classes, source.qualifiedName(), source.sourceBytes());
+    return withDex(List.of(sizes), classes, List.of(source.qualifiedName())).get(0);
+  }
+
+  /** {@code sizes} with the DEX bytes of the classes {@code names}, if DEX is measured. */
+  private List<Sizes> withDex(List<Sizes> sizes, CompiledClasses classes, List<String> names) {
+    if (dex.isEmpty()) {
+      return sizes;
+    }
+    int[] dexBytes = dex.get().measure(classes, names);
+    List<Sizes> all = new ArrayList<>(sizes.size());
+    for (int i = 0; i < sizes.size(); i++) {
+      all.add(sizes.get(i).withDexBytes(dexBytes[i]));
+    }
+    return all;
   }
 
   /** Compiles {@code source} under its own name. */
