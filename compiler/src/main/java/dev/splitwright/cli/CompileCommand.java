@@ -178,10 +178,12 @@ final class CompileCommand implements Callable<Integer> {
       return ExitCodes.VERIFICATION_FAILED;
     }
     if (!quiet) {
+      // What was chosen first, then the search, and the files written last.
       Summary.print(stdout, result);
       if (result.report().selection() instanceof SelectionReport selection) {
         BudgetSummary.print(stdout, selection, progress.stats());
       }
+      Summary.written(stdout, result);
     }
     return ExitCodes.OK;
   }
@@ -354,6 +356,9 @@ final class CompileCommand implements Callable<Integer> {
       out.printf(Locale.ROOT, "verified: %d inputs, %d mismatches, branch coverage %.1f%% "
           + "(%d of %d splits both ways)%n", v.inputsChecked(), v.mismatches(),
           100 * v.branchCoverage(), v.coveredSplits(), v.splits());
+    }
+
+    static void written(PrintWriter out, CompileResult result) {
       for (java.nio.file.Path p : result.written()) {
         out.println("wrote " + p);
       }

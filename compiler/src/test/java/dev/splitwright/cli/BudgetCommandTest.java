@@ -17,6 +17,7 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
 import javax.tools.ToolProvider;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -211,6 +212,53 @@ class BudgetCommandTest {
       assertThat(frontier.get(i).get("validationScore").asDouble())
           .isGreaterThan(frontier.get(i - 1).get("validationScore").asDouble());
     }
+    checkConsoleFrontier(run.out(), frontier);
+  }
+
+  /**
+   * The console's frontier table is a run of consecutive report frontier points around the chosen
+   * one, each line its size, score and leaves; the {@code wrote} lines come after it, last.
+   */
+  private static void checkConsoleFrontier(String out, List<JsonNode> frontier) {
+    List<String> lines = out.lines().toList();
+    int header = -1;
+    for (int i = 0; i < lines.size(); i++) {
+      if (lines.get(i).startsWith("frontier (size -> validation balanced-accuracy -> leaves")) {
+        header = i;
+      }
+    }
+    assertThat(header).as(out).isNotNegative();
+    Pattern row = Pattern.compile("  ([> ]) +(\\d+) B  (\\d\\.\\d{4}) +(\\d+) (leaf|leaves)"
+        + "(  chosen|  over budget)?");
+    List<Matcher> rows = new ArrayList<>();
+    for (int i = header + 1; i < lines.size() && lines.get(i).startsWith("  ")
+        && !lines.get(i).startsWith("  ("); i++) {
+      Matcher m = row.matcher(lines.get(i));
+      assertThat(m.matches()).as(lines.get(i)).isTrue();
+      rows.add(m);
+    }
+    assertThat(rows).hasSizeBetween(2, BudgetSummary.BELOW + BudgetSummary.ABOVE + 1);
+    int first = -1;
+    for (int i = 0; i < frontier.size(); i++) {
+      if (frontier.get(i).get("size").asInt() == Integer.parseInt(rows.get(0).group(2))) {
+        first = i;
+      }
+    }
+    assertThat(first).as("first row is a frontier point").isNotNegative();
+    for (int k = 0; k < rows.size(); k++) {
+      JsonNode p = frontier.get(first + k);
+      Matcher m = rows.get(k);
+      assertThat(Integer.parseInt(m.group(2))).isEqualTo(p.get("size").asInt());
+      assertThat(Double.parseDouble(m.group(3)))
+          .isCloseTo(p.get("validationScore").asDouble(), Offset.offset(5e-5));
+      assertThat(Integer.parseInt(m.group(4))).isEqualTo(p.get("leaves").asInt());
+      assertThat(m.group(1).equals(">")).isEqualTo(p.get("chosen").asBoolean());
+      assertThat("  over budget".equals(m.group(6))).isEqualTo(p.get("size").asInt() > 2048);
+    }
+    assertThat(rows).anyMatch(m -> m.group(1).equals(">"));
+    List<String> wrote = lines.stream().filter(l -> l.startsWith("wrote ")).toList();
+    assertThat(wrote).isNotEmpty();
+    assertThat(lines.subList(lines.size() - wrote.size(), lines.size())).isEqualTo(wrote);
   }
 
   @ParameterizedTest
