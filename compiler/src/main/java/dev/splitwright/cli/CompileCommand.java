@@ -36,6 +36,7 @@ import picocli.CommandLine.Spec;
     name = "compile",
     mixinStandardHelpOptions = true,
     sortOptions = false,
+    customSynopsis = "splitwright compile --data FILE --class NAME --out DIR [options]",
     modelTransformer = Choices.Labels.class,
     description = "Trains a CART tree on the CSV (or reads a saved model), emits it as Java, "
         + "checks the compiled code against the model on every row and every threshold boundary, "

@@ -23,6 +23,7 @@ public final class Main {
     cli.setParameterExceptionHandler(new ErrorHandlers.Usage());
     cli.setExecutionExceptionHandler(new ErrorHandlers.Execution());
     cli.setExecutionStrategy(new CommandLine.RunLast());
+    HelpGroups.install(cli.getSubcommands().get("compile"), HelpGroups.COMPILE);
     try {
       return cli.execute(args);
     } catch (OutOfMemoryError e) {
