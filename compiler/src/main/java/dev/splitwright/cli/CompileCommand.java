@@ -175,7 +175,8 @@ final class CompileCommand implements Callable<Integer> {
     CompileResult result = new CompileJob(Verifier.create()).run(request, budget, progress);
     VerificationResult v = result.verification();
     if (!v.passed()) {
-      stderr.println("verification failed, nothing written: " + v.verdict() + advice(v));
+      stderr.println(ErrorHandlers.PREFIX + "verification failed, nothing written: " + v.verdict()
+          + advice(v));
       return ExitCodes.VERIFICATION_FAILED;
     }
     if (!quiet) {

@@ -32,8 +32,8 @@ public final class Main {
       ErrorHandlers.traceIfDebug(e, args, err);
       return ExitCodes.BAD_INPUT;
     } catch (StackOverflowError e) {
-      err.println("internal error: stack overflow (rerun with --debug for details and please"
-          + " report it)");
+      err.println(ErrorHandlers.PREFIX + "internal: stack overflow (rerun with --debug for details"
+          + " and please report it)");
       ErrorHandlers.traceIfDebug(e, args, err);
       return ExitCodes.INTERNAL;
     } finally {

@@ -2,12 +2,16 @@ package dev.splitwright.job;
 
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
+import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.FrontierSvg;
 import dev.splitwright.select.BudgetSelection;
+import dev.splitwright.select.LayoutChoice;
+import dev.splitwright.select.LayoutChooser;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.verify.Verifier;
@@ -15,8 +19,10 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.StringJoiner;
 
 /** The compile job with a byte budget: search, emit the choice, write it with report and chart. */
 final class BudgetRun {
@@ -38,9 +44,19 @@ final class BudgetRun {
     DecisionTree tree = outcome.tree();
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
+    EmitOptions emitted = request.emit();
+    if (emitted.layout() == Layout.SMALLEST) {
+      // The report names the layout that won, with the class-file bytes of both as without a
+      // budget: one more javac run, only for this option.
+      Layout won = outcome.source().layout();
+      LayoutChoice both = LayoutChooser.resolve(tree, emitted,
+          header(loaded, request, scores), verifier.compiler());
+      options.put("layoutChoice", describe(won, both));
+      emitted = emitted.toBuilder().layout(won).build();
+    }
     // The -g:none size was compiled once, for the selection; the report repeats that figure.
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), tree,
-        options, request.emit(), outcome.source(), outcome.verification(),
+        options, emitted, outcome.source(), outcome.verification(),
         outcome.report().chosen().classFileBytesNoDebug(), scores, outcome.report());
     if (!outcome.verification().passed()) {
       return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
@@ -52,6 +68,22 @@ final class BudgetRun {
         Optional.of(chart));
     return new CompileResult(tree, outcome.source(), outcome.verification(), scores, report,
         written);
+  }
+
+  /** Like {@link LayoutChoice#describe()}, naming the layout the budget search kept. */
+  static String describe(Layout won, LayoutChoice both) {
+    if (both.options().layout() == won) {
+      return both.describe();
+    }
+    StringJoiner others = new StringJoiner(", ", " (", ")").setEmptyValue("");
+    both.classFileBytes().forEach((layout, bytes) -> {
+      if (layout != won) {
+        others.add(String.format(Locale.ROOT, "%s %d bytes", layout.optionName(), bytes));
+      }
+    });
+    Integer bytes = both.classFileBytes().get(won);
+    return won.optionName() + (bytes == null ? "" : ": " + bytes + " bytes") + others
+        + "; smallest in the budget's unit";
   }
 
   private static HeaderInfo header(LoadedData loaded, CompileRequest request,

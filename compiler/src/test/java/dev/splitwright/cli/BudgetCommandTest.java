@@ -28,9 +28,12 @@ import org.junit.jupiter.params.provider.ValueSource;
 /** The budget search through the real command line, {@link Main#run}. */
 class BudgetCommandTest {
   private static final ObjectMapper JSON = new ObjectMapper();
+  /** Groups: budget, least size, size with --bare (fits), least budget, size with --bare. */
   private static final Pattern TOO_SMALL = Pattern.compile("error: option --budget: (\\d+) bytes "
       + "is too small: the smallest classifier for this data \\(1 leaf\\) has a class file size "
-      + "of (\\d+) bytes; give --budget (\\d+) or more");
+      + "of (\\d+) bytes; (?:add --bare \\(no label and feature tables\\), which makes this "
+      + "classifier (\\d+) bytes; or )?give --budget (\\d+) or more(?:, or (\\d+) or more with "
+      + "--bare \\(no label and feature tables\\))?");
 
   /** Output of one run. */
   record Run(int exit, String out, String err) {}
@@ -75,8 +78,15 @@ class BudgetCommandTest {
         Matcher m = TOO_SMALL.matcher(run.err().strip());
         assertThat(m.matches()).as(run.err()).isTrue();
         assertThat(Integer.parseInt(m.group(1))).isEqualTo(budget);
-        int least = Integer.parseInt(m.group(3));
+        int least = Integer.parseInt(m.group(4));
         assertThat(Integer.parseInt(m.group(2))).isGreaterThan(budget).isEqualTo(least);
+        String bare = m.group(3) != null ? m.group(3) : m.group(5);
+        // Without --bare the message measures how small --bare gets, and offers it when it fits.
+        assertThat(bare != null).as(run.err()).isEqualTo(!extra.contains("--bare"));
+        if (bare != null) {
+          assertThat(Integer.parseInt(bare)).isLessThan(least);
+          assertThat(m.group(3) != null).isEqualTo(Integer.parseInt(bare) <= budget);
+        }
         assertThat(out).doesNotExist();
         if (!leastTried) {
           // The least budget named must itself be enough, by an independent javac recompile.
@@ -86,6 +96,16 @@ class BudgetCommandTest {
           assertThat(fits.exit()).as(fits.err()).isZero();
           assertThat(classFileOnDisk(leastOut.resolve("demo/budget/Fit.java"),
               dir.resolve("javac-least"))).isLessThanOrEqualTo(least);
+          if (bare != null) {
+            // And the --bare figure is a budget that --bare meets, by the same recompile.
+            List<String> withBare = new ArrayList<>(extra);
+            withBare.add("--bare");
+            Path bareOut = dir.resolve("least-bare");
+            Run bareFits = compile(data, withBare, Integer.parseInt(bare), bareOut);
+            assertThat(bareFits.exit()).as(bareFits.err()).isZero();
+            assertThat(classFileOnDisk(bareOut.resolve("demo/budget/Fit.java"),
+                dir.resolve("javac-bare"))).isLessThanOrEqualTo(Integer.parseInt(bare));
+          }
         }
         continue;
       }
@@ -269,7 +289,7 @@ class BudgetCommandTest {
 
     assertThat(run.exit()).isEqualTo(2);
     assertThat(run.err().strip()).doesNotContain("\n")
-        .startsWith("splitwright compile: option '--budget' ")
+        .startsWith("error: option '--budget' ")
         .endsWith("(see 'splitwright compile --help')");
     assertThat(run.out()).isEmpty();
   }
@@ -284,7 +304,7 @@ class BudgetCommandTest {
       args.addAll(List.of(option));
       Run run = run(args.toArray(new String[0]));
       assertThat(run.exit()).isEqualTo(2);
-      assertThat(run.err().strip()).isEqualTo("splitwright compile: option '" + option[0]
+      assertThat(run.err().strip()).isEqualTo("error: option '" + option[0]
           + "' only applies together with --budget (see 'splitwright compile --help')");
     }
   }
@@ -302,7 +322,7 @@ class BudgetCommandTest {
           "--budget", "4KiB", c[0], c[1], "--class", "Pump", "--out", dir.toString());
       assertThat(run.exit()).isEqualTo(2);
       assertThat(run.err().strip())
-          .isEqualTo("splitwright compile: " + c[2] + " (see 'splitwright compile --help')");
+          .isEqualTo("error: " + c[2] + " (see 'splitwright compile --help')");
     }
   }
 
