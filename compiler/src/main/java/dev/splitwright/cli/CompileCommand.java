@@ -348,6 +348,11 @@ final class CompileCommand implements Callable<Integer> {
             s.macroF1());
       }
       RecallLine.of(result).ifPresent(out::println);
+      Scores validation = result.scores().get("validation");
+      if (validation != null) {
+        NoisyScores.warning("validation", result.tree().schema().classes(), validation)
+            .ifPresent(out::println);
+      }
       out.printf(Locale.ROOT, "size: source %d bytes, class file %d bytes (%d without debug "
           + "info), largest method %d bytecode bytes%n", result.source().sourceBytes(),
           v.classFileBytes(), result.report().classFileBytesNoDebug(), v.maxMethodBytes());
