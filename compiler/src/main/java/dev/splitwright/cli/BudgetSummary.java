@@ -5,10 +5,16 @@ import dev.splitwright.select.SearchStats;
 import dev.splitwright.select.SelectionReport;
 import dev.splitwright.text.DecimalText;
 import java.io.PrintWriter;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 
-/** Prints what the budget search chose and what it took. */
+/** Prints what the budget search chose, the frontier around it and what the search took. */
 final class BudgetSummary {
+  /** Frontier points shown below the chosen one, and above it (what a larger budget buys). */
+  static final int BELOW = 3;
+  static final int ABOVE = 4;
+
   private BudgetSummary() {}
 
   static void print(PrintWriter out, SelectionReport selection, SearchStats stats) {
@@ -27,11 +33,53 @@ final class BudgetSummary {
     for (String fallback : selection.fallbacks()) {
       out.println("budget: " + fallback);
     }
+    frontier(selection).forEach(out::println);
     if (stats != null) {
       String d8 = stats.d8Runs() == 0 ? "" : " and " + stats.d8Runs() + " D8 runs";
       out.printf(Locale.ROOT, "search: %d settings, %d distinct trees measured in %d javac runs%s, "
           + "frontier of %d; %.1f s%n", stats.settingsTried(), stats.distinctTrees(),
           stats.javacRuns(), d8, selection.frontier().size(), stats.seconds());
     }
+  }
+
+  /**
+   * A short table of the frontier next to the chosen point: size, score and leaves, a few points
+   * smaller and a few larger, the larger ones marked when they break the budget.
+   */
+  static List<String> frontier(SelectionReport selection) {
+    List<SelectionReport.Point> points = selection.frontier();
+    if (points.isEmpty()) {
+      return List.of();
+    }
+    // The chosen point, or, if a refit moved it off the frontier, the largest within budget.
+    int chosen = 0;
+    for (int i = 0; i < points.size(); i++) {
+      if (points.get(i).chosen()) {
+        chosen = i;
+        break;
+      }
+      if (points.get(i).size() <= selection.budget()) {
+        chosen = i;
+      }
+    }
+    int from = Math.max(0, chosen - BELOW);
+    int to = Math.min(points.size(), chosen + ABOVE + 1);
+    List<String> lines = new ArrayList<>();
+    String hidden = from == 0 && to == points.size() ? ""
+        : String.format(Locale.ROOT, "; %d of %d points", to - from, points.size());
+    lines.add(String.format(Locale.ROOT, "frontier (size -> %s %s -> leaves%s):",
+        selection.scoredOn(), selection.metric(), hidden));
+    int width = String.valueOf(points.get(to - 1).size()).length();
+    for (int i = from; i < to; i++) {
+      SelectionReport.Point p = points.get(i);
+      String note = p.chosen() ? "  chosen" : p.size() > selection.budget() ? "  over budget" : "";
+      lines.add(String.format(Locale.ROOT, "  %s %" + width + "d B  %.4f  %4d %s%s",
+          p.chosen() ? ">" : " ", p.size(), p.validationScore(), p.leaves(),
+          p.leaves() == 1 ? "leaf  " : "leaves", note).stripTrailing());
+    }
+    if (to == points.size() && points.get(to - 1).chosen()) {
+      lines.add("  (no larger candidate scores higher: a larger budget would buy nothing)");
+    }
+    return lines;
   }
 }

@@ -39,6 +39,7 @@ import picocli.CommandLine.Spec;
     name = "compile",
     mixinStandardHelpOptions = true,
     sortOptions = false,
+    customSynopsis = "splitwright compile --data FILE --class NAME --out DIR [options]",
     modelTransformer = Choices.Labels.class,
     description = "Trains a CART tree on the CSV (or reads a saved model), emits it as Java, "
         + "checks the compiled code against the model on every row and every threshold boundary, "
@@ -187,14 +188,17 @@ final class CompileCommand implements Callable<Integer> {
         .run(request, budget, progress);
     VerificationResult v = result.verification();
     if (!v.passed()) {
-      stderr.println("verification failed, nothing written: " + v.verdict() + advice(v));
+      stderr.println(ErrorHandlers.PREFIX + "verification failed, nothing written: " + v.verdict()
+          + advice(v));
       return ExitCodes.VERIFICATION_FAILED;
     }
     if (!quiet) {
+      // What was chosen first, then the search, and the files written last.
       Summary.print(stdout, result);
       if (result.report().selection() instanceof SelectionReport selection) {
         BudgetSummary.print(stdout, selection, progress.stats());
       }
+      Summary.written(stdout, result);
     }
     return ExitCodes.OK;
   }
@@ -376,6 +380,11 @@ final class CompileCommand implements Callable<Integer> {
             CheckTable.printable(report.testData().name()), report.testData().sha256(),
             report.testData().rowsWithUnseenCategory(), report.testData().rows());
       }
+      Scores validation = result.scores().get("validation");
+      if (validation != null) {
+        NoisyScores.warning("validation", result.tree().schema().classes(), validation)
+            .ifPresent(out::println);
+      }
       out.println(result.sizes().summary());
       Object choice = result.report().options().get("layoutChoice");
       if (choice != null) {
@@ -385,6 +394,9 @@ final class CompileCommand implements Callable<Integer> {
           + "(%d of %d splits both ways)%n", v.inputsChecked(), v.mismatches(),
           DecimalText.fixed(100 * v.branchCoverage(), 1), v.coveredSplits(), v.splits());
       out.println("emitted: " + result.report().language());
+    }
+
+    static void written(PrintWriter out, CompileResult result) {
       for (java.nio.file.Path p : result.written()) {
         out.println("wrote " + p);
       }

@@ -14,24 +14,31 @@ import picocli.CommandLine.Spec;
 @Command(
     name = "demo",
     mixinStandardHelpOptions = true,
+    sortOptions = false,
     description = "Writes a seeded, invented demo data set as CSV: 'pump-vibration' (field pump "
         + "vibration monitor) or 'gesture-band' (wrist-worn gesture band).")
 final class DemoCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
-  @Option(names = "--scenario", required = true, paramLabel = "pump-vibration|gesture-band")
+  @Option(names = "--scenario", required = true, paramLabel = "pump-vibration|gesture-band",
+      description = "Which invented device the rows come from (required).")
   String scenario;
 
-  @Option(names = "--rows", defaultValue = "3000", paramLabel = "N")
+  @Option(names = "--rows", defaultValue = "3000", paramLabel = "N",
+      description = "How many data rows to write, besides the header (default: "
+          + "${DEFAULT-VALUE}).")
   int rows;
 
-  @Option(names = "--seed", defaultValue = "7", paramLabel = "N")
+  @Option(names = "--seed", defaultValue = "7", paramLabel = "N",
+      description = "Seed of the generator; the same seed and rows give the same file "
+          + "(default: ${DEFAULT-VALUE}).")
   long seed;
 
-  @Option(names = "--out", required = true, paramLabel = "FILE")
+  @Option(names = "--out", required = true, paramLabel = "FILE",
+      description = "CSV file to write, replaced whole if it exists (required).")
   Path out;
 
-  @Option(names = "--debug", description = "Print stack traces of errors.")
+  @Option(names = "--debug", description = "Print stack traces of errors (default: off).")
   boolean debug;
 
   @Override

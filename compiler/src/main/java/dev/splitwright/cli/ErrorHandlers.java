@@ -7,6 +7,9 @@ import picocli.CommandLine;
 
 /** Turns every failure into one line on stderr and an exit code; traces only with --debug. */
 final class ErrorHandlers {
+  /** How every error line starts, whether picocli or the run found it. */
+  static final String PREFIX = "error: ";
+
   private ErrorHandlers() {}
 
   static boolean debug(String[] args) {
@@ -18,13 +21,16 @@ final class ErrorHandlers {
     return false;
   }
 
-  /** Bad options: picocli's message, one line, and where to find help. */
+  /**
+   * Bad options: picocli's message, one line, and where to find help, with the same {@code error:}
+   * prefix as every other error, so that one pattern finds them all in a build log.
+   */
   static final class Usage implements CommandLine.IParameterExceptionHandler {
     @Override
     public int handleParseException(CommandLine.ParameterException e, String[] args) {
       PrintWriter err = e.getCommandLine().getErr();
       String name = e.getCommandLine().getCommandSpec().qualifiedName();
-      err.println(name + ": " + oneLine(e.getMessage()) + " (see '" + name + " --help')");
+      err.println(PREFIX + oneLine(e.getMessage()) + " (see '" + name + " --help')");
       if (debug(args)) {
         e.printStackTrace(err);
       }
@@ -41,16 +47,16 @@ final class ErrorHandlers {
       boolean debug = debug(parseResult.originalArgs().toArray(new String[0]));
       int code;
       if (e instanceof InputException) {
-        err.println("error: " + oneLine(e.getMessage()));
+        err.println(PREFIX + oneLine(e.getMessage()));
         code = ExitCodes.BAD_INPUT;
       } else if (e instanceof OutputException) {
-        err.println("error: " + oneLine(e.getMessage()));
+        err.println(PREFIX + oneLine(e.getMessage()));
         code = ExitCodes.BAD_INPUT;
       } else if (e instanceof java.io.IOException) {
-        err.println("error: cannot write output: " + oneLine(String.valueOf(e.getMessage())));
+        err.println(PREFIX + "cannot write output: " + oneLine(String.valueOf(e.getMessage())));
         code = ExitCodes.BAD_INPUT;
       } else {
-        err.println("internal error: " + oneLine(String.valueOf(e)) + " (rerun with --debug "
+        err.println(PREFIX + "internal: " + oneLine(String.valueOf(e)) + " (rerun with --debug "
             + "for details and please report it)");
         code = ExitCodes.INTERNAL;
       }
@@ -65,7 +71,7 @@ final class ErrorHandlers {
     long maxMb = Runtime.getRuntime().maxMemory() / (1024 * 1024);
     // 30 bytes a cell: 4 to hold it, the rest for the split copies, training and verification
     // (measured in this project: 1000000 rows x 7 columns need a heap of 192 MB).
-    return "error: out of memory (Java heap limit " + maxMb + " MB); a compile needs about 30"
+    return PREFIX + "out of memory (Java heap limit " + maxMb + " MB); a compile needs about 30"
         + " bytes per CSV cell: run java with a larger -Xmx (e.g. java -Xmx4g -jar"
         + " splitwright.jar ...), or use fewer rows or columns";
   }

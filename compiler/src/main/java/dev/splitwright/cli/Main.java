@@ -23,6 +23,7 @@ public final class Main {
     cli.setParameterExceptionHandler(new ErrorHandlers.Usage());
     cli.setExecutionExceptionHandler(new ErrorHandlers.Execution());
     cli.setExecutionStrategy(new CommandLine.RunLast());
+    HelpGroups.install(cli.getSubcommands().get("compile"), HelpGroups.COMPILE);
     try {
       return cli.execute(args);
     } catch (OutOfMemoryError e) {
@@ -31,8 +32,8 @@ public final class Main {
       ErrorHandlers.traceIfDebug(e, args, err);
       return ExitCodes.BAD_INPUT;
     } catch (StackOverflowError e) {
-      err.println("internal error: stack overflow (rerun with --debug for details and please"
-          + " report it)");
+      err.println(ErrorHandlers.PREFIX + "internal: stack overflow (rerun with --debug for details"
+          + " and please report it)");
       ErrorHandlers.traceIfDebug(e, args, err);
       return ExitCodes.INTERNAL;
     } finally {

@@ -86,9 +86,28 @@ final class LoadRules {
 
   static void requireLabel(CsvRows rows, int c, String text, LoadOptions options)
       throws InputException {
+    requireLabel(rows, c, text, options, List.of(), "");
+  }
+
+  /**
+   * Like {@link #requireLabel(CsvRows, int, String, LoadOptions)}; when {@code --target} was not
+   * given, a missing label also says that the target defaulted to the last column and names the
+   * first column if this row's cell there ({@code firstCell}) looks like a label.
+   */
+  static void requireLabel(CsvRows rows, int c, String text, LoadOptions options,
+      List<String> header, String firstCell) throws InputException {
     if (options.isMissing(text)) {
-      throw new InputException(
-          rows.cell(c), "missing class label", "give every row a label, or remove the row");
+      String remedy = "give every row a label, or remove the row";
+      if (options.target().isEmpty() && !header.isEmpty()) {
+        remedy = "--target was not given, so the target is the last column "
+            + InputException.quote(header.get(header.size() - 1))
+            + (looksLikeLabel(firstCell, options) && c != 0
+                ? "; the first column " + InputException.quote(header.get(0)) + " holds text such "
+                    + "as " + InputException.quote(firstCell) + ": if it holds the labels, give "
+                    + "--target " + header.get(0)
+                : "; name the label column with --target, or " + remedy);
+      }
+      throw new InputException(rows.cell(c), "missing class label", remedy);
     }
     if (text.length() > CsvLoader.MAX_NAME_LENGTH) {
       throw new InputException(
@@ -100,6 +119,19 @@ final class LoadRules {
               text.length(),
               CsvLoader.MAX_NAME_LENGTH),
           "check that --target names the class-label column");
+    }
+  }
+
+  /** Text that is neither missing nor a number, as class labels usually are. */
+  private static boolean looksLikeLabel(String text, LoadOptions options) {
+    if (text.isEmpty() || options.isMissing(text)) {
+      return false;
+    }
+    try {
+      Double.parseDouble(text);
+      return false;
+    } catch (NumberFormatException e) {
+      return true;
     }
   }
 

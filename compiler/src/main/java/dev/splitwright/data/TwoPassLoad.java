@@ -67,7 +67,7 @@ final class TwoPassLoad {
         for (int c = 0; c < columns.length; c++) {
           String text = record.get(c).trim();
           if (c == target) {
-            LoadRules.requireLabel(rows, c, text, options);
+            LoadRules.requireLabel(rows, c, text, options, header, record.get(0).trim());
           } else if (!columns[c].categorical() && !options.isMissing(text)) {
             surveyCell(rows, c, text, columns[c]);
           }
@@ -151,7 +151,8 @@ final class TwoPassLoad {
         for (int c = 0; c < width; c++) {
           String text = record.get(c).trim();
           if (c == survey.target()) {
-            LoadRules.requireLabel(rows, c, text, options);
+            LoadRules.requireLabel(rows, c, text, options, survey.header(),
+                record.get(0).trim());
             labels[row] = classes.code(text);
             if (classes.size() > CsvLoader.MAX_CLASSES) {
               throw new InputException(

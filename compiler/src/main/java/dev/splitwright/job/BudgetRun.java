@@ -5,7 +5,9 @@ import dev.splitwright.backend.SizeFigures;
 import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
+import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.SavedModel;
@@ -15,6 +17,8 @@ import dev.splitwright.select.BudgetSelection;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.DexMeter;
 import dev.splitwright.select.DexSizes;
+import dev.splitwright.select.LayoutChoice;
+import dev.splitwright.select.LayoutChooser;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.verify.Verifier;
@@ -22,8 +26,10 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.StringJoiner;
 
 /** The compile job with a byte budget: search, emit the choice, write it with report and chart. */
 final class BudgetRun {
@@ -55,9 +61,18 @@ final class BudgetRun {
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
     Optional<DexSizes> dexSizes = dex.map(d -> d.measure(outcome.source(), verifier.compiler()));
+    EmitOptions emitted = request.emit();
+    if (emitted.layout() == Layout.SMALLEST) {
+      // The report names the layout that won, with the class-file bytes of both as without a
+      // budget: one more javac run, only for this option.
+      Layout won = outcome.source().layout();
+      LayoutChoice both = LayoutChooser.resolve(tree, emitted,
+          header(loaded, testLog, request, scores), verifier.compiler());
+      options.put("layoutChoice", describe(won, both));
+      emitted = emitted.toBuilder().layout(won).build();
+    }
     // The -g:none size was compiled once, for the selection; the report repeats that figure.
-    JavaLanguage.JavaFile emission = JavaLanguage.written(outcome.source(),
-        request.emit().toBuilder().layout(outcome.source().layout()).build());
+    JavaLanguage.JavaFile emission = JavaLanguage.written(outcome.source(), emitted);
     SizeFigures sizes = JavaLanguage.figures(outcome.source(), outcome.verification(),
         outcome.report().chosen().classFileBytesNoDebug(), dexSizes);
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(),
@@ -75,6 +90,22 @@ final class BudgetRun {
         Optional.of(chart));
     return new CompileResult(tree, outcome.source(), emission, sizes, outcome.verification(),
         scores, report, written);
+  }
+
+  /** Like {@link LayoutChoice#describe()}, naming the layout the budget search kept. */
+  static String describe(Layout won, LayoutChoice both) {
+    if (both.options().layout() == won) {
+      return both.describe();
+    }
+    StringJoiner others = new StringJoiner(", ", " (", ")").setEmptyValue("");
+    both.classFileBytes().forEach((layout, bytes) -> {
+      if (layout != won) {
+        others.add(String.format(Locale.ROOT, "%s %d bytes", layout.optionName(), bytes));
+      }
+    });
+    Integer bytes = both.classFileBytes().get(won);
+    return won.optionName() + (bytes == null ? "" : ": " + bytes + " bytes") + others
+        + "; smallest in the budget's unit";
   }
 
   private static HeaderInfo header(LoadedData loaded, Optional<FieldLog> testLog,

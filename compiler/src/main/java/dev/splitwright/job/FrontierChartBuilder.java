@@ -27,6 +27,7 @@ final class FrontierChartBuilder {
         .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();
     return new FrontierSvg.Chart(name, scored + " vs " + settings.unit().description(),
         xLabel, scored, settings.budget(), all, frontier,
-        new FrontierSvg.Dot(outcome.chosenSize(), outcome.chosen().score()));
+        new FrontierSvg.Dot(outcome.chosenSize(), outcome.chosen().score()),
+        outcome.report().chosen().leaves());
   }
 }

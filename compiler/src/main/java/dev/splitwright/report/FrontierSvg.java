@@ -9,16 +9,18 @@ import java.util.Objects;
 /**
  * Draws the budget search's trade-off as a plain SVG chart: validation score against measured
  * size, every candidate as a grey dot, the Pareto frontier as a blue staircase, the budget as a
- * dashed red line and the chosen classifier as a green ring. Numbers are formatted with {@link
- * Locale#ROOT} and nothing depends on time or platform, so equal inputs give equal bytes.
+ * dashed red line with the sizes past it shaded, and the chosen classifier as a green ring
+ * labelled with its size, score and leaves. Both axes are zoomed to the data and the budget, with
+ * round, labelled ticks. Numbers are formatted with {@link Locale#ROOT} and nothing depends on
+ * time or platform, so equal inputs give equal bytes.
  */
 public final class FrontierSvg {
   private static final int WIDTH = 760;
-  private static final int HEIGHT = 460;
+  private static final int HEIGHT = 480;
   private static final int LEFT = 78;
   private static final int RIGHT = 24;
-  private static final int TOP = 60;
-  private static final int BOTTOM = 64;
+  private static final int TOP = 64;
+  private static final int BOTTOM = 84;
 
   private final Chart chart;
   private final Scale x;
@@ -39,9 +41,10 @@ public final class FrontierSvg {
    * @param candidates every measured candidate
    * @param frontier the Pareto-optimal candidates, by size ascending
    * @param chosen the candidate emitted
+   * @param chosenLeaves the leaves of the chosen candidate's tree
    */
   public record Chart(String title, String subtitle, String xLabel, String yLabel, int budget,
-      List<Dot> candidates, List<Dot> frontier, Dot chosen) {
+      List<Dot> candidates, List<Dot> frontier, Dot chosen, int chosenLeaves) {
 
     public Chart {
       Objects.requireNonNull(title, "title");
@@ -54,30 +57,37 @@ public final class FrontierSvg {
       if (frontier.isEmpty()) {
         throw new IllegalArgumentException("frontier is empty");
       }
+      if (chosenLeaves < 1) {
+        throw new IllegalArgumentException("a tree has at least one leaf: " + chosenLeaves);
+      }
     }
   }
 
   private FrontierSvg(Chart chart) {
     this.chart = chart;
-    // The size axis spans the frontier and the budget, not zero: the detail is in between.
-    int smallest = Math.min(chart.budget(), chart.frontier().get(0).size());
-    int largest =
-        Math.max(chart.budget(), chart.frontier().get(chart.frontier().size() - 1).size());
-    double margin = (largest - smallest) * 0.05 + 1;
-    this.x = Scale.of(Math.max(0, smallest - margin), largest + margin, LEFT, WIDTH - RIGHT);
+    // Both axes span every candidate and the budget, and no more: zero is left out when the data
+    // is far from it, since the detail is in between.
+    double smallest = chart.budget();
+    double largest = chart.budget();
     double low = chart.chosen().score();
     double high = low;
-    for (Dot d : chart.candidates()) {
-      if (x.contains(d.size())) {
-        low = Math.min(low, d.score());
-        high = Math.max(high, d.score());
-      }
-    }
-    for (Dot d : chart.frontier()) {
+    for (Dot d : points(chart)) {
+      smallest = Math.min(smallest, d.size());
+      largest = Math.max(largest, d.size());
       low = Math.min(low, d.score());
       high = Math.max(high, d.score());
     }
-    this.y = Scale.of(Math.max(0, low - 0.02), Math.min(1, high + 0.02), HEIGHT - BOTTOM, TOP);
+    double margin = (largest - smallest) * 0.03 + 1;
+    this.x = Scale.of(Math.max(0, smallest - margin), largest + margin, LEFT, WIDTH - RIGHT);
+    double pad = Math.max(0.005, (high - low) * 0.04);
+    this.y = Scale.of(Math.max(0, low - pad), Math.min(1, high + pad), HEIGHT - BOTTOM, TOP);
+  }
+
+  private static List<Dot> points(Chart chart) {
+    List<Dot> all = new ArrayList<>(chart.candidates());
+    all.addAll(chart.frontier());
+    all.add(chart.chosen());
+    return all;
   }
 
   /** Renders {@code chart} as an SVG document ending in a newline. */
@@ -96,6 +106,7 @@ public final class FrontierSvg {
         escape(shorten(chart.title())));
     line("  <text x=\"%d\" y=\"40\" fill=\"#555555\">%s</text>", LEFT,
         escape(shorten(chart.subtitle())));
+    overBudget();
     axes();
     candidates();
     frontier();
@@ -140,7 +151,7 @@ public final class FrontierSvg {
           num(y.map(t) + 4), y.label(t));
     }
     line("    <text x=\"%s\" y=\"%d\" text-anchor=\"middle\">%s</text>",
-        num((LEFT + WIDTH - RIGHT) / 2.0), HEIGHT - 18, escape(chart.xLabel()));
+        num((LEFT + WIDTH - RIGHT) / 2.0), HEIGHT - BOTTOM + 40, escape(chart.xLabel()));
     line("    <text transform=\"translate(20 %s) rotate(-90)\" text-anchor=\"middle\">%s</text>",
         num((TOP + HEIGHT - BOTTOM) / 2.0), escape(chart.yLabel()));
     line("  </g>");
@@ -149,10 +160,8 @@ public final class FrontierSvg {
   private void candidates() {
     line("  <g fill=\"#9a9a9a\" fill-opacity=\"0.6\">");
     for (Dot d : chart.candidates()) {
-      if (x.contains(d.size())) {
-        line("    <circle cx=\"%s\" cy=\"%s\" r=\"2.2\"/>", num(x.map(d.size())),
-            num(y.map(d.score())));
-      }
+      line("    <circle cx=\"%s\" cy=\"%s\" r=\"2.2\"/>", num(x.map(d.size())),
+          num(y.map(d.score())));
     }
     line("  </g>");
   }
@@ -180,8 +189,11 @@ public final class FrontierSvg {
     String bx = num(x.map(chart.budget()));
     line("  <line x1=\"%s\" y1=\"%d\" x2=\"%s\" y2=\"%d\" stroke=\"#c62828\" stroke-width=\"1.5\""
         + " stroke-dasharray=\"6 4\"/>", bx, TOP, bx, HEIGHT - BOTTOM);
-    line("  <text x=\"%s\" y=\"%d\" fill=\"#c62828\" text-anchor=\"end\">budget %d B</text>",
-        num(x.map(chart.budget()) - 4), TOP + 12, chart.budget());
+    // Above the plot, where no point can hide it, and within the chart's width.
+    double at = x.map(chart.budget());
+    String anchor = at > WIDTH - RIGHT - 50 ? "end" : at < LEFT + 50 ? "start" : "middle";
+    line("  <text x=\"%s\" y=\"%d\" fill=\"#c62828\" text-anchor=\"%s\">budget %d B</text>",
+        bx, TOP - 6, anchor, chart.budget());
   }
 
   private void chosen() {
@@ -193,29 +205,44 @@ public final class FrontierSvg {
     // Below the point, where the rising frontier is not; a white halo keeps it readable.
     boolean leftOfCentre = cx < (LEFT + WIDTH - RIGHT) / 2.0;
     line("  <text x=\"%s\" y=\"%s\" fill=\"#2e7d32\" text-anchor=\"%s\" stroke=\"#ffffff\""
-        + " stroke-width=\"4\" paint-order=\"stroke\">chosen: %d B, %s</text>",
-        num(cx + (leftOfCentre ? 6 : -6)), num(cy + 24), leftOfCentre ? "start" : "end",
-        c.size(), DecimalText.fixed(c.score(), 4));
+        + " stroke-width=\"4\" paint-order=\"stroke\">chosen: %d B, %s, %d %s</text>",
+        num(cx + (leftOfCentre ? 6 : -6)), num(Math.min(cy + 24, HEIGHT - BOTTOM - 6)),
+        leftOfCentre ? "start" : "end", c.size(), DecimalText.fixed(c.score(), 4),
+        chart.chosenLeaves(), chart.chosenLeaves() == 1 ? "leaf" : "leaves");
   }
 
+  /** Sizes past the budget, faintly shaded: what a larger budget would buy. */
+  private void overBudget() {
+    double bx = x.map(chart.budget());
+    double right = WIDTH - RIGHT;
+    if (bx < right) {
+      line("  <rect x=\"%s\" y=\"%d\" width=\"%s\" height=\"%d\" fill=\"#c62828\""
+          + " fill-opacity=\"0.06\"/>", num(bx), TOP, num(right - bx), HEIGHT - BOTTOM - TOP);
+    }
+  }
+
+  /** One row centred under the size axis's label, so it never covers a point. */
   private void legend() {
-    int lx = WIDTH - RIGHT - 170;
-    int ly = HEIGHT - BOTTOM - 82;
-    line("  <g font-size=\"11\">");
-    line("    <rect x=\"%d\" y=\"%d\" width=\"162\" height=\"74\" fill=\"#ffffff\""
-        + " stroke=\"#cccccc\"/>", lx - 8, ly - 6);
-    line("    <circle cx=\"%d\" cy=\"%d\" r=\"2.5\" fill=\"#9a9a9a\"/>", lx + 6, ly + 6);
-    line("    <text x=\"%d\" y=\"%d\">candidate</text>", lx + 20, ly + 10);
-    line("    <path d=\"M%d %d H%d\" stroke=\"#1f5fbf\" stroke-width=\"1.8\"/>", lx, ly + 22,
+    int lx = (LEFT + WIDTH - RIGHT) / 2 - 180;
+    int ly = HEIGHT - 14;
+    line("  <g font-size=\"11\" fill=\"#333333\">");
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"2.5\" fill=\"#9a9a9a\"/>", lx + 6, ly);
+    line("    <text x=\"%d\" y=\"%d\">candidate</text>", lx + 14, ly + 4);
+    lx += 78;
+    line("    <path d=\"M%d %d H%d\" stroke=\"#1f5fbf\" stroke-width=\"1.8\"/>", lx, ly,
         lx + 12);
-    line("    <circle cx=\"%d\" cy=\"%d\" r=\"3.5\" fill=\"#1f5fbf\"/>", lx + 6, ly + 22);
-    line("    <text x=\"%d\" y=\"%d\">Pareto frontier</text>", lx + 20, ly + 26);
-    line("    <path d=\"M%d %d H%d\" stroke=\"#c62828\" stroke-width=\"1.5\""
-        + " stroke-dasharray=\"4 3\"/>", lx, ly + 38, lx + 12);
-    line("    <text x=\"%d\" y=\"%d\">budget</text>", lx + 20, ly + 42);
-    line("    <circle cx=\"%d\" cy=\"%d\" r=\"6\" fill=\"none\" stroke=\"#2e7d32\""
-        + " stroke-width=\"2\"/>", lx + 6, ly + 55);
-    line("    <text x=\"%d\" y=\"%d\">chosen</text>", lx + 20, ly + 59);
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"3.5\" fill=\"#1f5fbf\"/>", lx + 6, ly);
+    line("    <text x=\"%d\" y=\"%d\">Pareto frontier</text>", lx + 18, ly + 4);
+    lx += 112;
+    line("    <rect x=\"%d\" y=\"%d\" width=\"12\" height=\"12\" fill=\"#c62828\""
+        + " fill-opacity=\"0.12\"/>", lx, ly - 6);
+    line("    <path d=\"M%d %d V%d\" stroke=\"#c62828\" stroke-width=\"1.5\""
+        + " stroke-dasharray=\"3 2\"/>", lx, ly - 6, ly + 6);
+    line("    <text x=\"%d\" y=\"%d\">over budget</text>", lx + 18, ly + 4);
+    lx += 96;
+    line("    <circle cx=\"%d\" cy=\"%d\" r=\"5\" fill=\"none\" stroke=\"#2e7d32\""
+        + " stroke-width=\"2\"/>", lx + 6, ly);
+    line("    <text x=\"%d\" y=\"%d\">chosen</text>", lx + 16, ly + 4);
     line("  </g>");
   }
 
@@ -281,10 +308,6 @@ public final class FrontierSvg {
       double min = Math.floor(lo / step + 1e-9) * step;
       double max = Math.ceil(hi / step - 1e-9) * step;
       return new Scale(min, max, from, to, step);
-    }
-
-    boolean contains(double v) {
-      return v >= min && v <= max;
     }
 
     double map(double v) {

@@ -69,7 +69,7 @@ final class CandidateSearch {
         .toList();
     List<Candidate> ranked = Ranking.withinBudget(usable, settings.unit(), settings.budget());
     if (ranked.isEmpty()) {
-      throw tooSmall(usable.isEmpty() ? candidates : usable);
+      throw tooSmall(usable.isEmpty() ? candidates : usable, candidateHeader, meter);
     }
     return new Result(generated.settingsTried(), candidates, ranked,
         Ranking.frontier(usable, settings.unit()));
@@ -108,7 +108,8 @@ final class CandidateSearch {
     return candidates;
   }
 
-  private InputException tooSmall(List<Candidate> candidates) {
+  private InputException tooSmall(List<Candidate> candidates, HeaderInfo header,
+      SizeMeter meter) {
     Candidate smallest = candidates.stream()
         .min(Comparator.comparingInt((Candidate c) -> c.size(settings.unit()))
             .thenComparingInt(c -> c.tree().leafCount())
@@ -116,9 +117,23 @@ final class CandidateSearch {
         .orElseThrow();
     int least = smallest.size(settings.unit());
     int leaves = smallest.tree().leafCount();
-    return new InputException("budget", String.format(Locale.ROOT,
+    String problem = String.format(Locale.ROOT,
         "%d bytes is too small: the smallest classifier for this data (%d %s) has a %s of %d "
             + "bytes", settings.budget(), leaves, leaves == 1 ? "leaf" : "leaves",
-        settings.unit().description(), least), "give --budget " + least + " or more");
+        settings.unit().description(), least);
+    if (emit.bare()) {
+      return new InputException("budget", problem, "give --budget " + least + " or more");
+    }
+    // Measured, not estimated: the same tree emitted with --bare and compiled once.
+    int bare = CandidateEmitter.of(emit.toBuilder().bare(true).build())
+        .emit(smallest.tree(), header).stream()
+        .mapToInt(source -> meter.measureAlone(source).in(settings.unit()))
+        .min().orElse(least);
+    String remedy = bare <= settings.budget()
+        ? String.format(Locale.ROOT, "add --bare (no label and feature tables), which makes "
+            + "this classifier %d bytes; or give --budget %d or more", bare, least)
+        : String.format(Locale.ROOT, "give --budget %d or more, or %d or more with --bare (no "
+            + "label and feature tables)", least, bare);
+    return new InputException("budget", problem, remedy);
   }
 }

@@ -17,6 +17,7 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
 import javax.tools.ToolProvider;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -27,9 +28,12 @@ import org.junit.jupiter.params.provider.ValueSource;
 /** The budget search through the real command line, {@link Main#run}. */
 class BudgetCommandTest {
   private static final ObjectMapper JSON = new ObjectMapper();
+  /** Groups: budget, least size, size with --bare (fits), least budget, size with --bare. */
   private static final Pattern TOO_SMALL = Pattern.compile("error: option --budget: (\\d+) bytes "
       + "is too small: the smallest classifier for this data \\(1 leaf\\) has a class file size "
-      + "of (\\d+) bytes; give --budget (\\d+) or more");
+      + "of (\\d+) bytes; (?:add --bare \\(no label and feature tables\\), which makes this "
+      + "classifier (\\d+) bytes; or )?give --budget (\\d+) or more(?:, or (\\d+) or more with "
+      + "--bare \\(no label and feature tables\\))?");
 
   /** Output of one run. */
   record Run(int exit, String out, String err) {}
@@ -74,8 +78,15 @@ class BudgetCommandTest {
         Matcher m = TOO_SMALL.matcher(run.err().strip());
         assertThat(m.matches()).as(run.err()).isTrue();
         assertThat(Integer.parseInt(m.group(1))).isEqualTo(budget);
-        int least = Integer.parseInt(m.group(3));
+        int least = Integer.parseInt(m.group(4));
         assertThat(Integer.parseInt(m.group(2))).isGreaterThan(budget).isEqualTo(least);
+        String bare = m.group(3) != null ? m.group(3) : m.group(5);
+        // Without --bare the message measures how small --bare gets, and offers it when it fits.
+        assertThat(bare != null).as(run.err()).isEqualTo(!extra.contains("--bare"));
+        if (bare != null) {
+          assertThat(Integer.parseInt(bare)).isLessThan(least);
+          assertThat(m.group(3) != null).isEqualTo(Integer.parseInt(bare) <= budget);
+        }
         assertThat(out).doesNotExist();
         if (!leastTried) {
           // The least budget named must itself be enough, by an independent javac recompile.
@@ -85,6 +96,16 @@ class BudgetCommandTest {
           assertThat(fits.exit()).as(fits.err()).isZero();
           assertThat(classFileOnDisk(leastOut.resolve("demo/budget/Fit.java"),
               dir.resolve("javac-least"))).isLessThanOrEqualTo(least);
+          if (bare != null) {
+            // And the --bare figure is a budget that --bare meets, by the same recompile.
+            List<String> withBare = new ArrayList<>(extra);
+            withBare.add("--bare");
+            Path bareOut = dir.resolve("least-bare");
+            Run bareFits = compile(data, withBare, Integer.parseInt(bare), bareOut);
+            assertThat(bareFits.exit()).as(bareFits.err()).isZero();
+            assertThat(classFileOnDisk(bareOut.resolve("demo/budget/Fit.java"),
+                dir.resolve("javac-bare"))).isLessThanOrEqualTo(Integer.parseInt(bare));
+          }
         }
         continue;
       }
@@ -211,6 +232,53 @@ class BudgetCommandTest {
       assertThat(frontier.get(i).get("validationScore").asDouble())
           .isGreaterThan(frontier.get(i - 1).get("validationScore").asDouble());
     }
+    checkConsoleFrontier(run.out(), frontier);
+  }
+
+  /**
+   * The console's frontier table is a run of consecutive report frontier points around the chosen
+   * one, each line its size, score and leaves; the {@code wrote} lines come after it, last.
+   */
+  private static void checkConsoleFrontier(String out, List<JsonNode> frontier) {
+    List<String> lines = out.lines().toList();
+    int header = -1;
+    for (int i = 0; i < lines.size(); i++) {
+      if (lines.get(i).startsWith("frontier (size -> validation balanced-accuracy -> leaves")) {
+        header = i;
+      }
+    }
+    assertThat(header).as(out).isNotNegative();
+    Pattern row = Pattern.compile("  ([> ]) +(\\d+) B  (\\d\\.\\d{4}) +(\\d+) (leaf|leaves)"
+        + "(  chosen|  over budget)?");
+    List<Matcher> rows = new ArrayList<>();
+    for (int i = header + 1; i < lines.size() && lines.get(i).startsWith("  ")
+        && !lines.get(i).startsWith("  ("); i++) {
+      Matcher m = row.matcher(lines.get(i));
+      assertThat(m.matches()).as(lines.get(i)).isTrue();
+      rows.add(m);
+    }
+    assertThat(rows).hasSizeBetween(2, BudgetSummary.BELOW + BudgetSummary.ABOVE + 1);
+    int first = -1;
+    for (int i = 0; i < frontier.size(); i++) {
+      if (frontier.get(i).get("size").asInt() == Integer.parseInt(rows.get(0).group(2))) {
+        first = i;
+      }
+    }
+    assertThat(first).as("first row is a frontier point").isNotNegative();
+    for (int k = 0; k < rows.size(); k++) {
+      JsonNode p = frontier.get(first + k);
+      Matcher m = rows.get(k);
+      assertThat(Integer.parseInt(m.group(2))).isEqualTo(p.get("size").asInt());
+      assertThat(Double.parseDouble(m.group(3)))
+          .isCloseTo(p.get("validationScore").asDouble(), Offset.offset(5e-5));
+      assertThat(Integer.parseInt(m.group(4))).isEqualTo(p.get("leaves").asInt());
+      assertThat(m.group(1).equals(">")).isEqualTo(p.get("chosen").asBoolean());
+      assertThat("  over budget".equals(m.group(6))).isEqualTo(p.get("size").asInt() > 2048);
+    }
+    assertThat(rows).anyMatch(m -> m.group(1).equals(">"));
+    List<String> wrote = lines.stream().filter(l -> l.startsWith("wrote ")).toList();
+    assertThat(wrote).isNotEmpty();
+    assertThat(lines.subList(lines.size() - wrote.size(), lines.size())).isEqualTo(wrote);
   }
 
   @ParameterizedTest
@@ -221,7 +289,7 @@ class BudgetCommandTest {
 
     assertThat(run.exit()).isEqualTo(2);
     assertThat(run.err().strip()).doesNotContain("\n")
-        .startsWith("splitwright compile: option '--budget' ")
+        .startsWith("error: option '--budget' ")
         .endsWith("(see 'splitwright compile --help')");
     assertThat(run.out()).isEmpty();
   }
@@ -236,7 +304,7 @@ class BudgetCommandTest {
       args.addAll(List.of(option));
       Run run = run(args.toArray(new String[0]));
       assertThat(run.exit()).isEqualTo(2);
-      assertThat(run.err().strip()).isEqualTo("splitwright compile: option '" + option[0]
+      assertThat(run.err().strip()).isEqualTo("error: option '" + option[0]
           + "' only applies together with --budget (see 'splitwright compile --help')");
     }
   }
@@ -254,7 +322,7 @@ class BudgetCommandTest {
           "--budget", "4KiB", c[0], c[1], "--class", "Pump", "--out", dir.toString());
       assertThat(run.exit()).isEqualTo(2);
       assertThat(run.err().strip())
-          .isEqualTo("splitwright compile: " + c[2] + " (see 'splitwright compile --help')");
+          .isEqualTo("error: " + c[2] + " (see 'splitwright compile --help')");
     }
   }
 

@@ -62,7 +62,7 @@ class CompileCommandLogOptionsTest {
     assertThat(run("--data", file.toString(), "--int-inputs", "--input", "double"))
         .isEqualTo(ExitCodes.BAD_INPUT);
     assertThat(stderr.toString()).startsWith(
-        "splitwright compile: option '--int-inputs' contradicts --input double");
+        "error: option '--int-inputs' contradicts --input double");
   }
 
   @Test
@@ -78,7 +78,7 @@ class CompileCommandLogOptionsTest {
   void rejectsMalformedClassWeightBeforeReadingData() {
     assertThat(run("--data", "no-such-file.csv", "--class-weight", "pos=heavy"))
         .isEqualTo(ExitCodes.BAD_INPUT);
-    assertThat(stderr.toString()).startsWith("splitwright compile: option '--class-weight':"
+    assertThat(stderr.toString()).startsWith("error: option '--class-weight':"
         + " weight of class 'pos' must be a positive decimal number, but it is 'heavy'");
   }
 

@@ -43,7 +43,9 @@ class CsvLoaderErrorTest {
     write("a,b,label\n1,2,x\n3,4,\n");
 
     assertLoadFails(
-        ":3:3: missing class label (column 'label'); give every row a label, or remove the row");
+        ":3:3: missing class label (column 'label'); --target was not given, so the target is "
+            + "the last column 'label'; name the label column with --target, or give every row a "
+            + "label, or remove the row");
   }
 
   @Test
@@ -205,7 +207,9 @@ class CsvLoaderErrorTest {
     write("a,b,label\r\n1,2,x\r\n\r\n3,4,y\r\n5,,\r\n");
 
     assertLoadFails(
-        ":5:3: missing class label (column 'label'); give every row a label, or remove the row");
+        ":5:3: missing class label (column 'label'); --target was not given, so the target is "
+            + "the last column 'label'; name the label column with --target, or give every row a "
+            + "label, or remove the row");
   }
 
   @Test

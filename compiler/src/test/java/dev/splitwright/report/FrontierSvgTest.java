@@ -21,7 +21,7 @@ class FrontierSvgTest {
           new FrontierSvg.Dot(2300, 0.81), new FrontierSvg.Dot(90000, 0.5)),
       List.of(new FrontierSvg.Dot(1400, 0.2), new FrontierSvg.Dot(1500, 0.7),
           new FrontierSvg.Dot(1900, 0.82)),
-      new FrontierSvg.Dot(1900, 0.82));
+      new FrontierSvg.Dot(1900, 0.82), 9);
 
   private static Document parse(String svg) throws Exception {
     DocumentBuilderFactory factory = DocumentBuilderFactory.newInstance();
@@ -42,21 +42,75 @@ class FrontierSvgTest {
     List<String> texts = texts(svg);
     assertThat(texts).contains("pump <A&B>.csv", "validation balanced accuracy vs class file size",
         "class file size (bytes)",
-        "validation balanced accuracy", "budget 2048 B", "chosen: 1900 B, 0.8200");
+        "validation balanced accuracy", "budget 2048 B",
+        "chosen: 1900 B, 0.8200, 9 leaves");
   }
 
   @Test
-  void drawsEveryCandidateInRangeAndTheFrontierAsSteps() throws Exception {
+  void drawsEveryCandidateAndTheFrontierAsSteps() throws Exception {
     String text = FrontierSvg.render(CHART);
     Document svg = parse(text);
 
-    // The size axis runs from 1200 to 2200 (round ticks around the frontier and the budget), so
-    // 4 candidates are drawn and 2300 and 90000 are not; then 3 frontier points, the chosen ring
-    // and 3 legend circles.
-    assertThat(svg.getElementsByTagName("circle").getLength()).isEqualTo(4 + 3 + 1 + 3);
+    // 6 candidates, 3 frontier points, the chosen ring and 3 legend circles.
+    assertThat(svg.getElementsByTagName("circle").getLength()).isEqualTo(6 + 3 + 1 + 3);
     NodeList paths = svg.getElementsByTagName("path");
     String frontier = ((Element) paths.item(0)).getAttribute("d");
     assertThat(frontier).matches("M[\\d.]+ [\\d.]+( H[\\d.]+ V[\\d.]+){2} H[\\d.]+");
+  }
+
+  @Test
+  void axesCoverEveryCandidateAndTheBudgetAndAreZoomedToThem() throws Exception {
+    // Scores between 0.90 and 0.97 and sizes between 5000 and 6400: far from zero on both axes.
+    FrontierSvg.Chart chart = new FrontierSvg.Chart("far.csv", "s", "size", "score", 4800,
+        List.of(new FrontierSvg.Dot(5000, 0.90), new FrontierSvg.Dot(5300, 0.95),
+            new FrontierSvg.Dot(6400, 0.93)),
+        List.of(new FrontierSvg.Dot(5000, 0.90), new FrontierSvg.Dot(5300, 0.95)),
+        new FrontierSvg.Dot(5300, 0.97), 1);
+    Document svg = parse(FrontierSvg.render(chart));
+
+    Axis x = Axis.of(svg, "middle");
+    Axis y = Axis.of(svg, "end");
+    assertThat(x.low()).isLessThanOrEqualTo(4800).isGreaterThan(4000);
+    assertThat(x.high()).isGreaterThanOrEqualTo(6400).isLessThan(7500);
+    assertThat(y.low()).isLessThanOrEqualTo(0.90).isGreaterThan(0.5);
+    assertThat(y.high()).isGreaterThanOrEqualTo(0.97).isLessThanOrEqualTo(1.0);
+    assertThat(x.labels()).hasSizeGreaterThanOrEqualTo(3);
+    assertThat(y.labels()).hasSizeGreaterThanOrEqualTo(3);
+    // Round ticks: every label is a whole multiple of the step between the first two.
+    for (Axis axis : List.of(x, y)) {
+      double step = axis.values().get(1) - axis.values().get(0);
+      for (double v : axis.values()) {
+        assertThat(Math.abs(v / step - Math.rint(v / step))).isLessThan(1e-6);
+      }
+    }
+    assertThat(texts(svg)).contains("chosen: 5300 B, 0.9700, 1 leaf");
+  }
+
+  /**
+   * A value axis read back from the tick labels: the size axis's are centred under the plot, the
+   * score axis's right-aligned beside it.
+   */
+  private record Axis(List<String> labels, List<Double> values) {
+    static Axis of(Document svg, String anchor) {
+      List<String> labels = new java.util.ArrayList<>();
+      NodeList nodes = svg.getElementsByTagName("text");
+      for (int i = 0; i < nodes.getLength(); i++) {
+        Element e = (Element) nodes.item(i);
+        if (e.getAttribute("text-anchor").equals(anchor)
+            && e.getTextContent().matches("-?\\d+(\\.\\d+)?")) {
+          labels.add(e.getTextContent());
+        }
+      }
+      return new Axis(labels, labels.stream().map(Double::valueOf).toList());
+    }
+
+    double low() {
+      return values.stream().mapToDouble(Double::doubleValue).min().orElseThrow();
+    }
+
+    double high() {
+      return values.stream().mapToDouble(Double::doubleValue).max().orElseThrow();
+    }
   }
 
   @Test

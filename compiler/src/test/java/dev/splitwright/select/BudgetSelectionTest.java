@@ -208,8 +208,10 @@ class BudgetSelectionTest {
     assertThatThrownBy(() -> selection.run(data, HeaderInfo.none(), tree -> HeaderInfo.none()))
         .isInstanceOf(InputException.class)
         .hasMessageMatching("option --budget: 1000 bytes is too small: the smallest classifier "
-            + "for this data \\(1 leaf\\) has a class file size of \\d+ bytes; give --budget \\d+ "
-            + "or more");
+            + "for this data \\(1 leaf\\) has a class file size of \\d+ bytes; (add --bare \\(no "
+            + "label and feature tables\\), which makes this classifier \\d+ bytes; or )?give "
+            + "--budget \\d+ or more(, or \\d+ or more with --bare \\(no label and feature "
+            + "tables\\))?");
     // A progress bar must be cleared before the error is printed.
     assertThat(finished).hasSize(1);
   }
