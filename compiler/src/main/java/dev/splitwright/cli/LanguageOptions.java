@@ -19,7 +19,7 @@ import picocli.CommandLine.ParameterException;
 final class LanguageOptions {
   /** Options that shape Java alone; given with {@code --emit c} they are refused. */
   static final List<String> JAVA_ONLY = List.of("--package", "--named-args", "--max-method-bytes",
-      "--dex-size", "--min-api");
+      "--dex-size", "--min-api", "--budget-unit");
   private static final List<String> C_ONLY = List.of("--host-cc", "--cc", "--cflags");
 
   @Option(names = "--emit", defaultValue = "java", paramLabel = "LANGUAGE",
@@ -63,8 +63,10 @@ final class LanguageOptions {
     for (String option : c ? JAVA_ONLY : C_ONLY) {
       if (cli.getParseResult().hasMatchedOption(option)) {
         throw new ParameterException(cli, "option '" + option + "' "
-            + (c ? "shapes Java code and means nothing with --emit c"
-                : "only applies together with --emit c"));
+            + (!c ? "only applies together with --emit c"
+                : option.equals("--budget-unit") ? "counts Java class, bytecode, source or DEX "
+                    + "bytes and means nothing with --emit c"
+                : "shapes Java code and means nothing with --emit c"));
       }
     }
   }

@@ -26,7 +26,8 @@ class EmitCCommandTest {
   }
 
   @ParameterizedTest
-  @ValueSource(strings = {"--package=com.example", "--named-args", "--max-method-bytes=9000"})
+  @ValueSource(strings = {"--package=com.example", "--named-args", "--max-method-bytes=9000",
+      "--dex-size", "--min-api=30", "--budget-unit=dex", "--budget-unit=class"})
   void javaOnlyOptionsAreRefusedBeforeAnyDataIsRead(String option) {
     // The data file does not exist: an error naming the option, not the file, proves the option
     // was refused before the data was read.
