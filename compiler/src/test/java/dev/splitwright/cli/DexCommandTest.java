@@ -126,7 +126,7 @@ class DexCommandTest {
     Matcher m = Pattern.compile("error: option --budget: 300 bytes is too small: the smallest "
         + "classifier for this data \\(1 leaf\\) has a DEX size of (\\d+) bytes; give --budget "
         + "(\\d+) or more").matcher(run.err().strip());
-    assertThat(m.matches()).as(run.err()).isTrue();
+    assertThat(m.lookingAt()).as(run.err()).isTrue();
     assertThat(m.group(1)).isEqualTo(m.group(2));
     assertThat(Integer.parseInt(m.group(1))).isGreaterThan(Dexer.forMinApi(24)
         .emptyClassSize(CLASS));

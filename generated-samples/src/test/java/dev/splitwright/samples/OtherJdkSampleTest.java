@@ -149,7 +149,7 @@ class OtherJdkSampleTest {
     return System.getProperty("surefire.test.class.path", System.getProperty("java.class.path"));
   }
 
-  /** The newest JDK of another feature version (17 or later), or the one {@link #PROPERTY} names. */
+  /** The newest JDK of another feature version (17 or later), or the one {@link #PROPERTY} says. */
   static Optional<Path> otherJdk(int running) throws IOException {
     String named = System.getProperty(PROPERTY, "");
     if (!named.isBlank()) {
