@@ -26,7 +26,8 @@ final class SelectionReportBuilder {
     for (Candidate c : search.frontier()) {
       frontier.add(new SelectionReport.Point(c.size(settings.unit()), validation(settings, c),
           crossValidated(settings, c), c.tree().depth(), c.tree().leafCount(),
-          c.recipe().maxDepth(), c.recipe().minLeaf(), c.recipe().alpha(), c.index() == choice.candidate().index()));
+          c.recipe().maxDepth(), c.recipe().minLeaf(), c.recipe().alpha(),
+          c.index() == choice.candidate().index()));
     }
     // Sorted by size, the frontier starts with the smallest usable candidate.
     int smallest = search.frontier().get(0).size(settings.unit());
