@@ -22,8 +22,7 @@ final class BudgetSummary {
     out.printf(Locale.ROOT, "budget: %d bytes (%s); chosen max-depth %d, min-leaf %d, alpha %s "
         + "(depth %d, %d leaves): %d bytes, %s %s (%s)%n", selection.budget(),
         selection.budgetUnit(), c.maxDepth(), c.minLeaf(), CandidateRecipe.formatAlpha(c.alpha()),
-        c.depth(), c.leaves(), c.size(), selection.metric(),
-        DecimalText.fixed(c.validationScore(), 4),
+        c.depth(), c.leaves(), c.size(), selection.metric(), DecimalText.fixed(c.score(), 4),
         selection.scoredOn());
     if (selection.budgetUnit().equals("class")) {
       out.printf(Locale.ROOT, "budget: the class file weighs %d bytes with javac -g:none and %d "

@@ -99,10 +99,10 @@ final class CompileCommand implements Callable<Integer> {
   String impurity;
 
   @Option(names = "--class-weight", defaultValue = "none",
-      paramLabel = "balanced|none|LABEL=W,...",
-      description = "How much a training row of each class counts: balanced (inversely to class "
-          + "frequency), none, or per label, e.g. fault=5,normal=1; unnamed labels weigh 1 "
-          + "(default: ${DEFAULT-VALUE}).")
+      paramLabel = "inverse-frequency|none|LABEL=W,...",
+      description = "How much a training row of each class counts: inverse-frequency (rare "
+          + "classes count more, every class the same in total), none, or per label, e.g. "
+          + "fault=5,normal=1; unnamed labels weigh 1 (default: ${DEFAULT-VALUE}).")
   String classWeight;
 
   @Option(names = "--model", paramLabel = "FILE",

@@ -13,6 +13,7 @@ import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import javax.lang.model.element.Modifier;
@@ -25,6 +26,8 @@ final class BranchesWriter {
   private final TypeSpec.Builder type;
   private final SupportMethods support;
   private final LeafTable leaves;
+  /** The constant each leaf returns, or null to return the bare number. */
+  private final ConstantNames names;
   /** Code sets of more than 64 categories, by content, with their offset in {@code SETS}. */
   private final Map<String, Integer> wideSets = new LinkedHashMap<>();
   private final PackedInts setData = new PackedInts();
@@ -36,6 +39,10 @@ final class BranchesWriter {
     this.type = type;
     this.support = support;
     this.leaves = new LeafTable(options.probabilities());
+    // Leaves return CLASS_... constants: compile-time constants, so the bytecode is the same as
+    // with the number (JLS §13.1); a bare class has no constants, leaf numbers are no classes.
+    this.names = options.bare() || options.probabilities() ? null
+        : ConstantNames.of(tree.schema());
     this.plan = MethodPlan.of(tree.root(), options.maxMethodBytes(),
         MethodPlan.ENTRY_CHECK_BYTES, input.callBytes());
   }
@@ -63,7 +70,7 @@ final class BranchesWriter {
     MethodSpec.Builder root = classify;
     if (leaves.probabilities()) {
       // The tree returns a leaf number; classify and classProbabilities look it up.
-      String leafCall = "leaf(" + input.arguments() + ")";
+      CodeBlock leafCall = CodeBlock.of("leaf($L)", input.arguments());
       classify.addStatement("return $L", leaves.classOf(leafCall));
       type.addMethod(classify.build());
       type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
@@ -79,7 +86,8 @@ final class BranchesWriter {
           .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
           .returns(TypeName.INT)
           .addJavadoc(EntryDoc.walk(plan.methodName(node) + " (a method of its own to keep "
-              + "methods under the bytecode cap)", input, leaves.probabilities()));
+              + "methods under the bytecode cap and their nesting readable)", input,
+              leaves.probabilities()));
       input.addParameters(helper);
       type.addMethod(helper.addCode(body(node)).build());
     }
@@ -99,26 +107,87 @@ final class BranchesWriter {
   /** The statements of a method whose tree starts at {@code root}. */
   private CodeBlock body(Node root) {
     CodeBlock.Builder code = CodeBlock.builder();
-    writeNode(root, code, true);
+    writeNode(root, code, true, 0);
     return code.build();
   }
 
-  private void writeNode(Node node, CodeBlock.Builder code, boolean methodRoot) {
+  /** Columns before a statement of a method body at nesting {@code depth}. */
+  private static int indent(int depth) {
+    return 8 + 4 * depth;
+  }
+
+  private void writeNode(Node node, CodeBlock.Builder code, boolean methodRoot, int depth) {
     if (!methodRoot && plan.isOutlined(node)) {
       code.addStatement("return $L($L)", plan.methodName(node), input.arguments());
       return;
     }
     if (node instanceof Leaf leaf) {
       int payload = leaves.payload(leaf);
-      code.addStatement("return $L", payload);
+      code.addStatement("return $L", names == null ? payload : names.classConstant(payload));
       return;
     }
     Split split = (Split) node;
-    code.beginControlFlow("if ($L)", condition(split));
-    writeNode(split.left(), code, false);
+    String condition = condition(split);
+    String trailing = "";
+    if (split instanceof CategoricalSplit categorical) {
+      addCommentLines(code, depth, setComment(categorical));
+    } else if (!input.named()) {
+      // Named parameters carry the feature's name already.
+      String name = " // " + JavaText.comment(SourceLines.shortName(
+          tree.schema().feature(split.feature()).name(), COMMENT_NAME_CHARS));
+      String line = "if (" + condition.replace(WRAP, ' ') + ") {" + name;
+      if (indent(depth) + SourceLines.width(line) <= SourceLines.MAX_COLUMNS) {
+        trailing = name;
+      } else {
+        addCommentLines(code, depth, name.substring(4));
+      }
+    }
+    code.add("if ($L) {$L\n", wrappable(condition), trailing).indent();
+    writeNode(split.left(), code, false, depth + 1);
     code.nextControlFlow("else");
-    writeNode(split.right(), code, false);
+    writeNode(split.right(), code, false, depth + 1);
     code.endControlFlow();
+  }
+
+  /** Characters of a feature or category name in a comment beside the code. */
+  private static final int COMMENT_NAME_CHARS = 24;
+  /** Category names listed in a set's comment; the rest are counted. */
+  private static final int COMMENT_CATEGORIES = 6;
+
+  /** {@code mode in {manual, remote}, or missing}: the codes that take the if branch. */
+  private String setComment(CategoricalSplit split) {
+    List<String> categories = tree.schema().feature(split.feature()).categories();
+    int[] codes = split.leftCodes().toArray();
+    StringBuilder out = new StringBuilder(JavaText.comment(SourceLines.shortName(
+        tree.schema().feature(split.feature()).name(), COMMENT_NAME_CHARS))).append(" in {");
+    for (int i = 0; i < codes.length && i < COMMENT_CATEGORIES; i++) {
+      out.append(i == 0 ? "" : ", ").append(JavaText.comment(
+          SourceLines.shortName(categories.get(codes[i]), COMMENT_NAME_CHARS)));
+    }
+    if (codes.length > COMMENT_CATEGORIES) {
+      out.append(", and ").append(codes.length - COMMENT_CATEGORIES).append(" more");
+    }
+    return out.append(split.missingLeft() ? "}, or missing" : "}").toString();
+  }
+
+  /** Escaped comment text as {@code //} lines that fit beside the indentation. */
+  private static void addCommentLines(CodeBlock.Builder code, int depth, String text) {
+    for (String line : SourceLines.wrap(text, SourceLines.MAX_COLUMNS - indent(depth) - 3)) {
+      code.add("// $L\n", line);
+    }
+  }
+
+  /** Marks where a condition may wrap onto the next line; a space when it does not. */
+  private static final char WRAP = '\u0001';
+
+  /** The condition with each {@link #WRAP} as a wrapping space. */
+  private static CodeBlock wrappable(String condition) {
+    CodeBlock.Builder out = CodeBlock.builder();
+    String[] parts = condition.split(String.valueOf(WRAP), -1);
+    for (int i = 0; i < parts.length; i++) {
+      out.add(i == 0 ? "$L" : "$W$L", parts[i]);
+    }
+    return out.build();
   }
 
   private String condition(Split split) {
@@ -138,8 +207,8 @@ final class BranchesWriter {
       for (int code : codes) {
         mask |= 1L << code;
       }
-      return String.format(Locale.ROOT, "inSet(%s, %d, 0x%xL, %b)", value, k, mask,
-          split.missingLeft());
+      return String.format(Locale.ROOT, "inSet(%s,%c%d,%c0x%xL,%c%b)", value, WRAP, k, WRAP,
+          mask, WRAP, split.missingLeft());
     }
     support.need(SupportMethods.Kind.IN_SET_WIDE);
     String key = k + ":" + categorical.leftCodes();
@@ -149,7 +218,8 @@ final class BranchesWriter {
       CategoryHelper.pack(setData, k, codes);
       wideSets.put(key, at);
     }
-    return String.format(Locale.ROOT, "inSet(%s, %d, %b)", value, at, split.missingLeft());
+    return String.format(Locale.ROOT, "inSet(%s,%c%d,%c%b)", value, WRAP, at, WRAP,
+        split.missingLeft());
   }
 
   private String numericCondition(String value, NumericSplit split) {
@@ -157,17 +227,18 @@ final class BranchesWriter {
     return switch (input.kind()) {
       // NaN fails every comparison, so "<=" sends it right and "!(>)" sends it left.
       case FLOAT -> split.missingLeft()
-          ? "!(" + value + " > " + JavaText.floatLiteral(t) + ")"
-          : value + " <= " + JavaText.floatLiteral(t);
+          ? "!(" + value + " >" + WRAP + JavaText.floatLiteral(t) + ")"
+          : value + " <=" + WRAP + JavaText.floatLiteral(t);
       case DOUBLE -> {
         double d = Thresholds.forDouble(t);
         yield split.missingLeft()
-            ? "!(" + value + " > " + JavaText.doubleLiteral(d) + ")"
-            : value + " <= " + JavaText.doubleLiteral(d);
+            ? "!(" + value + " >" + WRAP + JavaText.doubleLiteral(d) + ")"
+            : value + " <=" + WRAP + JavaText.doubleLiteral(d);
       }
       case INT -> {
         long n = Thresholds.forInt(t);
-        yield n == Long.MIN_VALUE ? value + " < " + Integer.MIN_VALUE : value + " <= " + n;
+        yield n == Long.MIN_VALUE ? value + " <" + WRAP + Integer.MIN_VALUE
+            : value + " <=" + WRAP + n;
       }
     };
   }

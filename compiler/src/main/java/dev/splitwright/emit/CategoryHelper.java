@@ -41,7 +41,7 @@ final class CategoryHelper {
         .addParameter(TypeName.INT, "at")
         .addParameter(TypeName.BOOLEAN, "missingLeft")
         .addJavadoc("Tells whether category code {@code v} goes left: whether it is in the code "
-            + "set at {@code SETS[at]}.\n\n@param v the category code as passed in\n"
+            + "set\nat {@code SETS[at]}.\n\n@param v the category code as passed in\n"
             + "@param at where the set starts in {@code SETS}: the number of categories, then the "
             + "bit words\n@param missingLeft whether a missing code goes left\n"
             + "@return whether the input goes left\n")

@@ -67,6 +67,8 @@ final class ConstantCount {
     count.addOther(3L * helperMethods);
     // Per class a constant's name and value; per label and feature at most a string and its text.
     count.addOther(2L * classes + 2L * (classes + tree.schema().featureCount()));
+    // Per FEATURE_ index constant, like a class constant: its name and its value.
+    count.addOther(2L * tree.schema().featureCount());
     // Per named category code constant, like a class constant: its name and its value.
     count.addOther(2L * ClassScaffold.namedCategoryCount(tree.schema()));
     return count.bound();

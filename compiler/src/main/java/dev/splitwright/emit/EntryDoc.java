@@ -12,22 +12,25 @@ final class EntryDoc {
   static CodeBlock classify(Schema schema, InputAccess input) {
     // A bare class has no label method; its class comment lists the classes by index.
     CodeBlock.Builder doc = CodeBlock.builder()
-        .add("Returns the class index (0 to $L) for one input; $L.\n\n", schema.classCount() - 1,
-            input.bare()
-                ? "the class comment lists the classes by index"
-                : "see {@link #label(int)}");
+        .add("$L\n\n", ClassScaffold.memberDoc("Returns the class index (0 to "
+            + (schema.classCount() - 1) + ") for one input; " + (input.bare()
+                ? "the class comment lists the classes by index."
+                : "see {@link #label(int)}.")));
+    boolean categorical = schema.features().stream().anyMatch(Feature::isCategorical);
     String missing = switch (input.kind()) {
       case FLOAT, DOUBLE -> "NaN marks a missing value";
-      case INT -> "a numeric value cannot be missing, a category code outside its table "
-          + "(such as -1) marks a missing category";
+      case INT -> categorical
+          ? "a numeric value cannot be missing, a category code outside its table (such as -1) "
+              + "marks a missing category"
+          : "no value can be missing";
     };
     if (input.named()) {
-      for (int f = 0; f < schema.featureCount(); f++) {
-        doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
-      }
+      addNamedParams(doc, schema, input);
     } else {
-      doc.add("@param x the $L feature values in the order of the class comment; $L;\n"
-          + "    categorical features take their code\n", schema.featureCount(), missing);
+      String index = input.bare() ? "" : " (the FEATURE_ constants give each index)";
+      doc.add("$L\n", param("@param x the " + schema.featureCount() + " feature values in the "
+          + "order of the class comment" + index + "; " + missing
+          + (categorical ? "; categorical features take their code" : "")));
     }
     return doc.add("@return the class index\n").build();
   }
@@ -39,9 +42,7 @@ final class EntryDoc {
             + "The class {@link #classify} returns is not always the most frequent one when\n"
             + "class weights were used in training.\n\n");
     if (input.named()) {
-      for (int f = 0; f < schema.featureCount(); f++) {
-        doc.add("@param $L $L\n", input.parameterNames().get(f), paramText(schema.feature(f)));
-      }
+      addNamedParams(doc, schema, input);
     } else {
       doc.add("@param x the $L feature values, as for {@link #classify}\n", schema.featureCount());
     }
@@ -55,7 +56,8 @@ final class EntryDoc {
    * cover private methods too.
    */
   static CodeBlock walk(String from, InputAccess input, boolean leafNumbers) {
-    CodeBlock.Builder doc = CodeBlock.builder().add("Walks the tree from $L on.\n\n", from);
+    CodeBlock.Builder doc = CodeBlock.builder()
+        .add("$L\n\n", ClassScaffold.memberDoc("Walks the tree from " + from + " on."));
     if (input.named()) {
       for (String name : input.parameterNames()) {
         doc.add("@param $L as for {@link #classify}\n", name);
@@ -67,8 +69,18 @@ final class EntryDoc {
         leafNumbers ? "the number of the leaf reached" : "the class index").build();
   }
 
-  private static String paramText(Feature feature) {
-    return JavaText.javadoc(feature.name()) + (feature.isCategorical() ? " (category code)" : "");
+  private static void addNamedParams(CodeBlock.Builder doc, Schema schema, InputAccess input) {
+    for (int f = 0; f < schema.featureCount(); f++) {
+      Feature feature = schema.feature(f);
+      doc.add("$L\n", param("@param " + input.parameterNames().get(f) + " "
+          + JavaText.javadoc(feature.name())
+          + (feature.isCategorical() ? " (category code)" : "")));
+    }
+  }
+
+  /** A tag line wrapped to fit, continuation lines indented. */
+  private static String param(String text) {
+    return String.join("\n    ", SourceLines.wrap(text, ClassScaffold.MEMBER_DOC_WIDTH - 4));
   }
 
   /** Rejects an input array of the wrong length before any comparison. */

@@ -1,7 +1,7 @@
 package dev.splitwright.emit;
 
-import com.palantir.javapoet.NameAllocator;
-import java.util.Locale;
+import java.util.Set;
+import javax.lang.model.SourceVersion;
 
 /** Makes ASCII Java identifiers out of user text such as column headers and class labels. */
 final class Identifiers {
@@ -34,13 +34,15 @@ final class Identifiers {
     return out.length() == 0 ? fallback : out.toString();
   }
 
-  /** A constant name such as {@code CLASS_BEARING_WEAR}, unique within {@code names}. */
-  static String constant(NameAllocator names, String prefix, String text, Object tag) {
-    return names.newName(prefix + ascii(text, "").toUpperCase(Locale.ROOT), tag);
-  }
+  /** Longest parameter name before a repeat's number: a call still wraps within a line. */
+  static final int MAX_PARAMETER_LENGTH = 32;
 
-  /** A lower camel case name such as {@code vibrationRmsMmS}, unique within {@code names}. */
-  static String parameter(NameAllocator names, String text, Object tag) {
+  /**
+   * A lower camel case name such as {@code vibrationRmsMmS}, not in {@code used} and not a
+   * keyword; a repeat gets a number ({@code speed2}), so many similar names stay short. The name
+   * is added to {@code used}.
+   */
+  static String parameter(Set<String> used, String text) {
     String[] words = ascii(text, "feature").split("_");
     StringBuilder out = new StringBuilder();
     for (String word : words) {
@@ -53,7 +55,18 @@ final class Identifiers {
         out.append(Character.toUpperCase(word.charAt(0))).append(word.substring(1));
       }
     }
-    // NameAllocator prefixes a digit start with '_' and suffixes keywords and repeats.
-    return names.newName(out.toString(), tag);
+    String base = out.length() <= MAX_PARAMETER_LENGTH ? out.toString()
+        : out.substring(0, MAX_PARAMETER_LENGTH);
+    if (Character.isDigit(base.charAt(0))) {
+      base = "_" + base;
+    }
+    if (SourceVersion.isKeyword(base)) {
+      base = base + "_";
+    }
+    String name = base;
+    for (int n = 2; !used.add(name); n++) {
+      name = base + n;
+    }
+    return name;
   }
 }

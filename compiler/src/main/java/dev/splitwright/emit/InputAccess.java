@@ -1,13 +1,15 @@
 package dev.splitwright.emit;
 
 import com.palantir.javapoet.ArrayTypeName;
+import com.palantir.javapoet.CodeBlock;
 import com.palantir.javapoet.MethodSpec;
-import com.palantir.javapoet.NameAllocator;
 import com.palantir.javapoet.ParameterSpec;
 import com.palantir.javapoet.TypeName;
 import dev.splitwright.data.Schema;
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.List;
+import java.util.Set;
 
 /**
  * How emitted code reads feature {@code f}: {@code x[f]} from one array parameter, or a named
@@ -30,7 +32,6 @@ final class InputAccess {
    */
   private static final List<String> RESERVED = List.of("x", "out", "leaf", "node", "left",
       "i", "j", "c", "v", "at", "var", "yield", "record", "sealed", "permits");
-  private static final String RESERVED_TAG = "reserved:";
 
   static InputAccess of(Schema schema, EmitOptions options) {
     if (!options.namedArgs()) {
@@ -41,13 +42,10 @@ final class InputAccess {
           + EmitOptions.MAX_NAMED_ARGS + " features, but there are " + schema.featureCount(),
           "pass the features as an array (leave out --named-args)");
     }
-    NameAllocator names = new NameAllocator();
-    for (String reserved : RESERVED) {
-      names.newName(reserved, RESERVED_TAG + reserved);
-    }
+    Set<String> used = new HashSet<>(RESERVED);
     List<String> params = new ArrayList<>();
     for (int f = 0; f < schema.featureCount(); f++) {
-      params.add(Identifiers.parameter(names, schema.feature(f).name(), f));
+      params.add(Identifiers.parameter(used, schema.feature(f).name()));
     }
     return new InputAccess(options.inputKind(), List.copyOf(params), options.bare());
   }
@@ -99,16 +97,26 @@ final class InputAccess {
   }
 
   /** An array of the inputs: {@code x}, or {@code new float[] {a, b}} for named parameters. */
-  String asArray() {
+  CodeBlock asArray() {
     if (!named()) {
-      return "x";
+      return CodeBlock.of("x");
     }
-    return "new " + elementType() + "[] {" + String.join(", ", parameterNames) + "}";
+    return CodeBlock.of("new $L[] {$L}", elementType(), arguments());
   }
 
-  /** The argument list that passes the inputs on to a helper method. */
-  String arguments() {
-    return named() ? String.join(", ", parameterNames) : "x";
+  /**
+   * The argument list that passes the inputs on to a helper method; named arguments may wrap
+   * between each other, so a call stays within a line.
+   */
+  CodeBlock arguments() {
+    if (!named()) {
+      return CodeBlock.of("x");
+    }
+    CodeBlock.Builder out = CodeBlock.builder();
+    for (int p = 0; p < parameterNames.size(); p++) {
+      out.add(p == 0 ? "$L" : ",$W$L", parameterNames.get(p));
+    }
+    return out.build();
   }
 
   List<String> parameterNames() {

@@ -40,8 +40,8 @@ final class LeafTable {
   }
 
   /** The expression {@code classify} returns for a tree result {@code leafCall}. */
-  String classOf(String leafCall) {
-    return probabilities ? "LEAF_CLASS[" + leafCall + "]" : leafCall;
+  CodeBlock classOf(CodeBlock leafCall) {
+    return probabilities ? CodeBlock.of("LEAF_CLASS[$L]", leafCall) : leafCall;
   }
 
   /**
@@ -124,7 +124,8 @@ final class LeafTable {
    * {@code classProbabilities(<inputs>, float[] out)}, which fills {@code out} from the leaf that
    * {@code leaf(<inputs>)} returns.
    */
-  static MethodSpec probabilitiesMethod(Schema schema, InputAccess input, String leafCall) {
+  static MethodSpec probabilitiesMethod(Schema schema, InputAccess input,
+      CodeBlock leafCall) {
     MethodSpec.Builder m = MethodSpec.methodBuilder("classProbabilities")
         .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
         .addJavadoc(EntryDoc.probabilities(schema, input));

@@ -17,8 +17,11 @@ final class LongStrings {
    * of 65,535 or more chars ("constant string too long"; measured, see LongStringsTest).
    */
   static final int MAX_CONSTANT_BYTES = 65534;
-  /** Characters per source line of a literal, for readable diffs. */
-  private static final int LINE_CHARS = 100;
+  /**
+   * Columns of one literal, quotes and escapes included: with the {@code + } and a continuation
+   * indent in front and {@code , n);} after it, a line stays within 100 columns.
+   */
+  private static final int LITERAL_COLUMNS = 66;
 
   private LongStrings() {}
 
@@ -77,15 +80,35 @@ final class LongStrings {
     return n;
   }
 
-  /** One constant written as literals of {@link #LINE_CHARS} joined by {@code +}. */
-  private static CodeBlock lines(String constant) {
-    if (constant.length() <= LINE_CHARS) {
+  /**
+   * One constant written as literals of at most {@link #LITERAL_COLUMNS} joined by {@code +}, each
+   * on a line of its own when there are several. javac folds them into one constant (JLS §15.29),
+   * so the class file is the same as with one long literal.
+   */
+  static CodeBlock lines(String constant) {
+    List<String> pieces = new ArrayList<>();
+    StringBuilder piece = new StringBuilder();
+    int columns = 2;
+    for (int i = 0; i < constant.length(); i++) {
+      char c = constant.charAt(i);
+      int width = JavaText.stringLiteral(String.valueOf(c)).length() - 2;
+      boolean pair = Character.isLowSurrogate(c) && i > 0
+          && Character.isHighSurrogate(constant.charAt(i - 1));
+      if (columns + width > LITERAL_COLUMNS && piece.length() > 0 && !pair) {
+        pieces.add(piece.toString());
+        piece.setLength(0);
+        columns = 2;
+      }
+      piece.append(c);
+      columns += width;
+    }
+    pieces.add(piece.toString());
+    if (pieces.size() == 1) {
       return CodeBlock.of("$L", JavaText.stringLiteral(constant));
     }
     CodeBlock.Builder out = CodeBlock.builder();
-    for (int i = 0; i < constant.length(); i += LINE_CHARS) {
-      String piece = constant.substring(i, Math.min(constant.length(), i + LINE_CHARS));
-      out.add(i == 0 ? "$L" : "\n+ $L", JavaText.stringLiteral(piece));
+    for (String p : pieces) {
+      out.add(out.isEmpty() ? "\n$L" : "\n+ $L", JavaText.stringLiteral(p));
     }
     return out.build();
   }

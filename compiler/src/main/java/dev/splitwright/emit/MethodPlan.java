@@ -26,6 +26,11 @@ final class MethodPlan {
   private static final int CATEGORICAL_SPLIT_BYTES = 20;
   /** {@code ldc_w (3), ireturn}. */
   private static final int LEAF_BYTES = 4;
+  /**
+   * Most nested {@code if}s in one method: deeper subtrees get methods of their own, so that the
+   * indentation leaves room for the code on each line (at most 100 columns).
+   */
+  static final int MAX_NESTING = 9;
   /** Bytes the entry method spends checking the input length before the tree. */
   static final int ENTRY_CHECK_BYTES = 32;
 
@@ -65,18 +70,36 @@ final class MethodPlan {
     }
   }
 
+  /** A subtree's inline bytecode bytes and its nesting of {@code if}s once children are fitted. */
+  private record Fit(int bytes, int nesting) {}
+
   /**
-   * Returns the inline cost of {@code node} after outlining children so it fits {@code room}.
-   * Children are fitted to the cap first, so an outlined child fits a method of its own.
+   * Returns the inline cost of {@code node} after outlining children so it fits {@code room} and
+   * {@link #MAX_NESTING}. Children are fitted to the cap first, so an outlined child fits a method
+   * of its own.
    */
-  private int fit(Node node, int room) {
+  private Fit fit(Node node, int room) {
     if (node instanceof Leaf) {
-      return LEAF_BYTES;
+      return new Fit(LEAF_BYTES, 0);
     }
     Split split = (Split) node;
     int own = split instanceof CategoricalSplit ? CATEGORICAL_SPLIT_BYTES : NUMERIC_SPLIT_BYTES;
-    int left = fit(split.left(), cap);
-    int right = fit(split.right(), cap);
+    Fit leftFit = fit(split.left(), cap);
+    Fit rightFit = fit(split.right(), cap);
+    int left = leftFit.bytes();
+    int right = rightFit.bytes();
+    int leftNesting = leftFit.nesting();
+    int rightNesting = rightFit.nesting();
+    // Too deep for the lines: outline the deeper child (a split, as a leaf nests nothing).
+    while (1 + Math.max(leftNesting, rightNesting) > MAX_NESTING) {
+      if (leftNesting >= rightNesting) {
+        left = outline(split.left());
+        leftNesting = 0;
+      } else {
+        right = outline(split.right());
+        rightNesting = 0;
+      }
+    }
     // Outline the larger child first: it frees the most room. Only a child that costs more than
     // the call replacing it is outlined, so none is outlined twice (an outlined one costs exactly
     // a call) and a leaf never is.
@@ -90,11 +113,13 @@ final class MethodPlan {
       }
       if (left >= right) {
         left = outline(split.left());
+        leftNesting = 0;
       } else {
         right = outline(split.right());
+        rightNesting = 0;
       }
     }
-    return own + left + right;
+    return new Fit(own + left + right, 1 + Math.max(leftNesting, rightNesting));
   }
 
   private int outline(Node child) {

@@ -33,9 +33,10 @@ final class StringTable {
     FieldSpec.Builder field = FieldSpec.builder(ArrayTypeName.of(String.class), name,
         Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL);
     if (!packed(values)) {
-      CodeBlock.Builder init = CodeBlock.builder().add("{");
+      // A zero-width wrap after the brace: a long first element may start the next line.
+      CodeBlock.Builder init = CodeBlock.builder().add("{$Z");
       for (int i = 0; i < values.size(); i++) {
-        init.add(i == 0 ? "$L" : ",$W$L", JavaText.stringLiteral(values.get(i)));
+        init.add(i == 0 ? "$L" : ",$W$L", LongStrings.lines(values.get(i)));
       }
       return field.initializer(init.add("}").build()).build();
     }

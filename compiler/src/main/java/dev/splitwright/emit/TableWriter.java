@@ -225,7 +225,7 @@ final class TableWriter {
   }
 
   private void addMethods() {
-    String leafCall = "leaf(" + input.asArray() + ")";
+    CodeBlock leafCall = CodeBlock.of("leaf($L)", input.asArray());
     MethodSpec.Builder classify = MethodSpec.methodBuilder("classify")
         .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
         .returns(TypeName.INT)

@@ -1,5 +1,6 @@
 package dev.splitwright.select;
 
+import com.fasterxml.jackson.annotation.JsonIgnore;
 import com.fasterxml.jackson.annotation.JsonInclude;
 import com.fasterxml.jackson.annotation.JsonPropertyOrder;
 import java.util.List;
@@ -50,25 +51,64 @@ public record SelectionReport(
   }
 
   /**
-   * The emitted classifier: its settings, its tree's depth and leaves, the candidate's validation
-   * score and the measured sizes of the file written.
+   * A candidate's score under the name of what it was scored on: {@code validationScore} on the
+   * validation part, {@code crossValidatedScore} (the mean over the folds) with {@code --folds}.
+   * Exactly one is present.
+   */
+  static void checkOneScore(Double validationScore, Double crossValidatedScore) {
+    if ((validationScore == null) == (crossValidatedScore == null)) {
+      throw new IllegalArgumentException(
+          "exactly one of validationScore and crossValidatedScore must be given");
+    }
+  }
+
+  /**
+   * The emitted classifier: its settings, its tree's depth and leaves, the candidate's score (see
+   * {@link #checkOneScore}) and the measured sizes of the file written.
    *
    * @param size the emitted classifier's size in the budget's unit
    * @param classFileBytes javac's default debug information: source file and line numbers
    * @param classFileBytesNoDebug compiled with {@code -g:none}
    * @param classFileBytesFullDebug compiled with {@code -g}, as a default Maven build does
    */
+  @JsonInclude(JsonInclude.Include.NON_NULL)
   @JsonPropertyOrder({"maxDepth", "minLeaf", "alpha", "depth", "leaves", "validationScore",
-      "size", "layout", "classFileBytes", "classFileBytesNoDebug", "classFileBytesFullDebug",
-      "bytecodeBytes", "sourceBytes"})
+      "crossValidatedScore", "size", "layout", "classFileBytes", "classFileBytesNoDebug",
+      "classFileBytesFullDebug", "bytecodeBytes", "sourceBytes"})
   public record Chosen(int maxDepth, int minLeaf, double alpha, int depth, int leaves,
-      double validationScore, int size, String layout, int classFileBytes,
-      int classFileBytesNoDebug, int classFileBytesFullDebug, int bytecodeBytes,
-      int sourceBytes) {}
+      Double validationScore, Double crossValidatedScore, int size, String layout,
+      int classFileBytes, int classFileBytesNoDebug, int classFileBytesFullDebug,
+      int bytecodeBytes, int sourceBytes) {
 
-  /** One frontier candidate: its measured size, score, tree shape and settings. */
-  @JsonPropertyOrder({"size", "validationScore", "depth", "leaves", "maxDepth", "minLeaf",
-      "alpha", "chosen"})
-  public record Point(int size, double validationScore, int depth, int leaves, int maxDepth,
-      int minLeaf, double alpha, boolean chosen) {}
+    public Chosen {
+      checkOneScore(validationScore, crossValidatedScore);
+    }
+
+    /** The score, whichever it was scored on. */
+    @JsonIgnore
+    public double score() {
+      return validationScore != null ? validationScore : crossValidatedScore;
+    }
+  }
+
+  /**
+   * One frontier candidate: its measured size, score (see {@link #checkOneScore}), shape and
+   * settings.
+   */
+  @JsonInclude(JsonInclude.Include.NON_NULL)
+  @JsonPropertyOrder({"size", "validationScore", "crossValidatedScore", "depth", "leaves",
+      "maxDepth", "minLeaf", "alpha", "chosen"})
+  public record Point(int size, Double validationScore, Double crossValidatedScore, int depth,
+      int leaves, int maxDepth, int minLeaf, double alpha, boolean chosen) {
+
+    public Point {
+      checkOneScore(validationScore, crossValidatedScore);
+    }
+
+    /** The score, whichever it was scored on. */
+    @JsonIgnore
+    public double score() {
+      return validationScore != null ? validationScore : crossValidatedScore;
+    }
+  }
 }

@@ -19,13 +19,15 @@ final class SelectionReportBuilder {
     CandidateRecipe recipe = choice.candidate().recipe();
     SelectionReport.Chosen picked = new SelectionReport.Chosen(recipe.maxDepth(),
         recipe.minLeaf(), recipe.alpha(), choice.tree().depth(), choice.tree().leafCount(),
-        choice.candidate().score(), s.in(settings.unit()), choice.source().layout().optionName(),
+        validation(settings, choice.candidate()), crossValidated(settings, choice.candidate()),
+        s.in(settings.unit()), choice.source().layout().optionName(),
         s.classFileBytes(), noDebugBytes, fullDebugBytes, s.bytecodeBytes(), s.sourceBytes());
     List<SelectionReport.Point> frontier = new ArrayList<>();
     for (Candidate c : search.frontier()) {
-      frontier.add(new SelectionReport.Point(c.size(settings.unit()), c.score(),
-          c.tree().depth(), c.tree().leafCount(), c.recipe().maxDepth(), c.recipe().minLeaf(),
-          c.recipe().alpha(), c.index() == choice.candidate().index()));
+      frontier.add(new SelectionReport.Point(c.size(settings.unit()), validation(settings, c),
+          crossValidated(settings, c), c.tree().depth(), c.tree().leafCount(),
+          c.recipe().maxDepth(), c.recipe().minLeaf(), c.recipe().alpha(),
+          c.index() == choice.candidate().index()));
     }
     // Sorted by size, the frontier starts with the smallest usable candidate.
     int smallest = search.frontier().get(0).size(settings.unit());
@@ -34,6 +36,16 @@ final class SelectionReportBuilder {
         settings.refitAll() ? "train+validation" : "train", settings.maxDepth(),
         settings.minLeafs(), search.settingsTried(), search.candidates().size(), smallest,
         picked, choice.fallbacks(), frontier);
+  }
+
+  /** The score if it was taken on the validation part, else null (left out of the JSON). */
+  private static Double validation(SearchSettings settings, Candidate c) {
+    return settings.folds() == 0 ? c.score() : null;
+  }
+
+  /** The mean score over the folds with cross-validation, else null (left out of the JSON). */
+  private static Double crossValidated(SearchSettings settings, Candidate c) {
+    return settings.folds() == 0 ? null : c.score();
   }
 
   private static String scoredOn(SearchSettings settings) {

@@ -16,13 +16,13 @@ import java.util.regex.Pattern;
 
 /**
  * How much one training row of each class counts in impurity, leaf predictions and pruning
- * costs: all rows alike ({@link #none()}), inversely to class frequency ({@link #balanced()}), or
- * given per class label ({@link #of(Map)}). Immutable.
+ * costs: all rows alike ({@link #none()}), inversely to class frequency ({@link
+ * #inverseFrequency()}), or given per class label ({@link #of(Map)}). Immutable.
  */
 public final class ClassWeights {
   private enum Kind {
     NONE,
-    BALANCED,
+    INVERSE_FREQUENCY,
     EXPLICIT
   }
 
@@ -31,7 +31,14 @@ public final class ClassWeights {
       Pattern.compile("([0-9]+(\\.[0-9]*)?|\\.[0-9]+)([eE][+-]?[0-9]+)?");
 
   private static final ClassWeights NONE = new ClassWeights(Kind.NONE, new TreeMap<>());
-  private static final ClassWeights BALANCED = new ClassWeights(Kind.BALANCED, new TreeMap<>());
+  private static final ClassWeights INVERSE_FREQUENCY =
+      new ClassWeights(Kind.INVERSE_FREQUENCY, new TreeMap<>());
+
+  /** The spelling of {@link #inverseFrequency()} on the command line and in reports. */
+  public static final String INVERSE_FREQUENCY_NAME = "inverse-frequency";
+
+  /** A word another tool uses for these weights; refused with a pointer to our own name. */
+  private static final String FOREIGN_NAME = "balanced";
 
   private final Kind kind;
   private final SortedMap<String, Double> byLabel;
@@ -47,12 +54,13 @@ public final class ClassWeights {
   }
 
   /**
-   * Weighs a row of class {@code c} by {@code n / (k * n_c)}, computed from the training rows: n
-   * rows, k classes that occur in them, n_c rows of class c. A class absent from the training rows
-   * gets weight 1 (it has no rows to weigh).
+   * Gives every class that occurs in the training rows the same total weight, the mean rows per
+   * class: a row of a class with {@code c} rows weighs {@code (rows / classes present) / c}, so a
+   * class with half the mean count weighs 2 per row. A class absent from the training rows gets
+   * weight 1 (it has no rows to weigh).
    */
-  public static ClassWeights balanced() {
-    return BALANCED;
+  public static ClassWeights inverseFrequency() {
+    return INVERSE_FREQUENCY;
   }
 
   /**
@@ -80,7 +88,8 @@ public final class ClassWeights {
   }
 
   /**
-   * Parses the command-line spelling: {@code balanced}, {@code none} (either in any case), or
+   * Parses the command-line spelling: {@code inverse-frequency}, {@code none} (either in any
+   * case), or
    * comma-separated {@code label=weight} pairs such as {@code fault=5,normal=1}. Labels and weights
    * are trimmed; a label therefore cannot contain {@code ','} or {@code '='} or start or end with
    * a space. Labels are checked against the data later, by {@link #unknownLabels}.
@@ -92,8 +101,12 @@ public final class ClassWeights {
     Objects.requireNonNull(text, "text");
     String trimmed = text.trim();
     String keyword = trimmed.toLowerCase(Locale.ROOT);
-    if (keyword.equals("balanced")) {
-      return BALANCED;
+    if (keyword.equals(INVERSE_FREQUENCY_NAME)) {
+      return INVERSE_FREQUENCY;
+    }
+    if (keyword.equals(FOREIGN_NAME)) {
+      throw new IllegalArgumentException("'" + trimmed + "' is not a value of ours; for weights "
+          + "inverse to class frequency write " + INVERSE_FREQUENCY_NAME);
     }
     if (keyword.equals("none")) {
       return NONE;
@@ -102,7 +115,8 @@ public final class ClassWeights {
     for (String pair : trimmed.split(",", -1)) {
       int eq = pair.indexOf('=');
       if (eq < 0 || pair.indexOf('=', eq + 1) >= 0) {
-        throw new IllegalArgumentException("expected balanced, none or label=weight pairs such as "
+        throw new IllegalArgumentException("expected " + INVERSE_FREQUENCY_NAME
+            + ", none or label=weight pairs such as "
             + "fault=5,normal=1, but found '" + pair.trim() + "'");
       }
       String label = pair.substring(0, eq).trim();
@@ -123,7 +137,7 @@ public final class ClassWeights {
 
   /**
    * Returns the labels an explicit weight names that are not among {@code classes}, in label
-   * order; empty for {@link #none()} and {@link #balanced()}.
+   * order; empty for {@link #none()} and {@link #inverseFrequency()}.
    */
   public List<String> unknownLabels(List<String> classes) {
     Objects.requireNonNull(classes, "classes");
@@ -136,10 +150,13 @@ public final class ClassWeights {
     return List.copyOf(unknown);
   }
 
-  /** Renders the spelling {@link #parse} reads: {@code none}, {@code balanced} or the pairs. */
+  /**
+   * Renders the spelling {@link #parse} reads: {@code none}, {@code inverse-frequency} or the
+   * pairs.
+   */
   public String optionText() {
     if (kind != Kind.EXPLICIT) {
-      return kind.name().toLowerCase(Locale.ROOT);
+      return keyword();
     }
     List<String> pairs = new ArrayList<>();
     byLabel.forEach((label, w) -> pairs.add(label + "=" + DecimalText.shortest(w)));
@@ -167,7 +184,7 @@ public final class ClassWeights {
     }
     double[] w = new double[k];
     Arrays.fill(w, 1.0);
-    if (kind == Kind.BALANCED) {
+    if (kind == Kind.INVERSE_FREQUENCY) {
       long n = 0;
       int present = 0;
       for (int c : classCounts) {
@@ -202,11 +219,11 @@ public final class ClassWeights {
     return Objects.hash(kind, byLabel);
   }
 
-  /** Renders {@code none}, {@code balanced} or the labels and weights in label order. */
+  /** Renders {@code none}, {@code inverse-frequency} or the labels and weights in label order. */
   @Override
   public String toString() {
     if (kind != Kind.EXPLICIT) {
-      return kind.name().toLowerCase(Locale.ROOT);
+      return keyword();
     }
     StringBuilder sb = new StringBuilder("{");
     for (Map.Entry<String, Double> e : byLabel.entrySet()) {
@@ -216,5 +233,9 @@ public final class ClassWeights {
       sb.append(e.getKey()).append('=').append(DecimalText.shortest(e.getValue()));
     }
     return sb.append('}').toString();
+  }
+
+  private String keyword() {
+    return kind == Kind.NONE ? "none" : INVERSE_FREQUENCY_NAME;
   }
 }

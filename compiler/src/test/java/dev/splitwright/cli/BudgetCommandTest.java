@@ -281,6 +281,26 @@ class BudgetCommandTest {
     assertThat(lines.subList(lines.size() - wrote.size(), lines.size())).isEqualTo(wrote);
   }
 
+  @Test
+  void foldsStoreTheirScoreUnderACrossValidatedName(@TempDir Path dir) throws IOException {
+    // Issue 12 item 9: a mean over folds is not a validation score, so it must not be named one.
+    Run run = run("compile", "--data", CompileCommandTest.PUMP.toString(), "--target",
+        "state", "--budget", "2KiB", "--max-depth", "3", "--folds", "3", "--class", "Pump",
+        "--out", dir.toString());
+
+    assertThat(run.exit()).as(run.err()).isZero();
+    JsonNode selection = JSON.readTree(dir.resolve("Pump.report.json").toFile()).get("selection");
+    assertThat(selection.get("scoredOn").asText())
+        .isEqualTo("3-fold cross-validation of train+validation");
+    List<JsonNode> scored = new ArrayList<>();
+    scored.add(selection.get("chosen"));
+    selection.get("frontier").forEach(scored::add);
+    for (JsonNode node : scored) {
+      assertThat(node.has("validationScore")).as(node.toString()).isFalse();
+      assertThat(node.get("crossValidatedScore").asDouble()).isBetween(0.0, 1.0);
+    }
+  }
+
   @ParameterizedTest
   @ValueSource(strings = {"abc", "-1", "4 XB", "0", "99999999999KiB", "1e3"})
   void malformedBudgetExitsTwoWithOneLineNamingTheOption(String size, @TempDir Path dir) {

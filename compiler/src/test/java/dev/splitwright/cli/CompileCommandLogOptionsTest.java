@@ -83,6 +83,17 @@ class CompileCommandLogOptionsTest {
   }
 
   @Test
+  void rejectsAnotherToolsWordForClassWeightNamingOurs() {
+    // Exit 2 and one line that names our value; nothing else is accepted silently.
+    assertThat(run("--data", "no-such-file.csv", "--class-weight", "balanced"))
+        .isEqualTo(ExitCodes.BAD_INPUT);
+    assertThat(stderr.toString()).startsWith("splitwright compile: option '--class-weight':"
+        + " 'balanced' is not a value of ours; for weights inverse to class frequency write"
+        + " inverse-frequency");
+    assertThat(stderr.toString().lines().count()).isEqualTo(1);
+  }
+
+  @Test
   void printsTestRecallPerClassAndRecordsWeightsInTheHeader() throws Exception {
     Path file = resource("pima-indians-diabetes-2.csv");
     assertThat(run("--data", file.toString(), "--max-depth", "3", "--class-weight",
@@ -90,6 +101,8 @@ class CompileCommandLogOptionsTest {
     assertThat(stdout.toString()).containsPattern(
         "(?m)^test       recall per class: neg 0\\.\\d{3}, pos 0\\.\\d{3}$");
     String source = Files.readString(out.resolve("Logs.java"));
-    assertThat(source).contains("--impurity gini --class-weight pos=2.0 --layout");
+    // The options line of the class comment, wrapped at 100 columns; joined again here.
+    assertThat(source.replace("\n * ", " "))
+        .contains("--impurity gini --class-weight pos=2.0 --layout");
   }
 }

@@ -235,8 +235,8 @@ class CsvFuzzTest {
       cli.addAll(List.of("--max-leaves", Integer.toString(leaves)));
     }
     if (random.nextInt(4) == 0) {
-      training.weights(ClassWeights.balanced());
-      cli.addAll(List.of("--class-weight", "balanced"));
+      training.weights(ClassWeights.inverseFrequency());
+      cli.addAll(List.of("--class-weight", "inverse-frequency"));
     }
     Layout layout = random.nextBoolean() ? Layout.BRANCHES : Layout.TABLE;
     // The command line also picks between the layouts, and tries other input types and extras.

@@ -130,7 +130,7 @@ class HostileNamesTest {
         .inputKind(input).namedArgs(named).probabilities(probabilities).build();
     EmitOptions twinOptions = EmitOptions.builder("benign", "Names").layout(layout)
         .inputKind(input).namedArgs(named).probabilities(probabilities).build();
-    // The header's text lands in line comments ("// Options: ...") and the class javadoc.
+    // The header's text lands in the file comment (data name) and the class javadoc.
     HeaderInfo header = new HeaderInfo(LINE_ENDER + COMMENT_CLOSER + ".csv", NAMES.get(7),
         "--target " + LINE_ENDER + NAMES.get(8), List.of(COMMENT_CLOSER, NAMES.get(5)));
     EmittedSource source = JavaEmitter.emit(hostile, options, header);

@@ -21,9 +21,9 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /**
- * Balanced class weights on an imbalanced field log: the pump demo with only one in ten
+ * Inverse-frequency class weights on an imbalanced field log: the pump demo with only one in ten
  * misalignment rows kept, making it a rare fault (about 1.4% of rows). Weighting classes
- * inversely to their frequency (the "balanced" heuristic, common practice) should make a
+ * inversely to their frequency (common practice) should make a
  * size-capped tree give the rare fault leaves of its own and find more of it on the test part.
  */
 class ClassWeightPipelineTest {
@@ -54,9 +54,9 @@ class ClassWeightPipelineTest {
   }
 
   @Test
-  void balancedWeightsRaiseRecallOfTheRareFault() throws Exception {
+  void inverseFrequencyWeightsRaiseRecallOfTheRareFault() throws Exception {
     CompileResult plain = compile(ClassWeights.none(), "plain");
-    CompileResult balanced = compile(ClassWeights.balanced(), "balanced");
+    CompileResult balanced = compile(ClassWeights.inverseFrequency(), "inverse");
     assertThat(plain.verification().passed()).isTrue();
     assertThat(balanced.verification().passed()).isTrue();
 
@@ -65,7 +65,7 @@ class ClassWeightPipelineTest {
     Scores after = balanced.scores().get("test");
     int rareTestRows = before.confusion().get(rare).stream().mapToInt(Integer::intValue).sum();
     System.out.printf(Locale.ROOT, "rare '%s': %d of %d rows, %d in test; test recall %.3f"
-            + " unweighted -> %.3f balanced (%+.3f); accuracy %.4f -> %.4f,"
+            + " unweighted -> %.3f inverse-frequency (%+.3f); accuracy %.4f -> %.4f,"
             + " balanced accuracy %.4f -> %.4f%n",
         RARE, rareRows, countRows(), rareTestRows, before.recall().get(rare),
         after.recall().get(rare), after.recall().get(rare) - before.recall().get(rare),

@@ -15,7 +15,7 @@ class DepthCutTest {
   @Test
   void cuttingTheDeepestTreeEqualsGrowingToTheDepth() throws Exception {
     for (Dataset data : List.of(TestData.load(TestData.cancer()), TestData.pump())) {
-      for (ClassWeights weights : List.of(ClassWeights.none(), ClassWeights.balanced())) {
+      for (ClassWeights weights : List.of(ClassWeights.none(), ClassWeights.inverseFrequency())) {
         for (int minLeaf : List.of(1, 5)) {
           TrainingOptions base = TrainingOptions.builder().minLeaf(minLeaf).weights(weights)
               .build();

@@ -17,8 +17,10 @@ class ClassWeightsTest {
 
   @Test
   void parsesKeywordsInAnyCase() {
-    assertThat(ClassWeights.parse("balanced")).isEqualTo(ClassWeights.balanced());
-    assertThat(ClassWeights.parse(" Balanced ")).isEqualTo(ClassWeights.balanced());
+    assertThat(ClassWeights.parse("inverse-frequency"))
+        .isEqualTo(ClassWeights.inverseFrequency());
+    assertThat(ClassWeights.parse(" Inverse-Frequency "))
+        .isEqualTo(ClassWeights.inverseFrequency());
     assertThat(ClassWeights.parse("NONE")).isEqualTo(ClassWeights.none());
   }
 
@@ -31,22 +33,40 @@ class ClassWeightsTest {
 
   @Test
   void optionTextParsesBackToTheSameWeights() {
-    for (String text : List.of("none", "balanced", "worn=2,fault=5.5")) {
+    for (String text : List.of("none", "inverse-frequency", "worn=2,fault=5.5")) {
       ClassWeights w = ClassWeights.parse(text);
       assertThat(ClassWeights.parse(w.optionText())).isEqualTo(w);
     }
     assertThat(ClassWeights.parse("worn=2,fault=5.5").optionText()).isEqualTo("fault=5.5,worn=2.0");
   }
 
+  @Test
+  void refusesAnotherToolsWordForInverseFrequencyNamingOurs() {
+    // The word another library uses for these weights is not ours; it must not pass silently.
+    assertThatThrownBy(() -> ClassWeights.parse(" Balanced "))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessage("'Balanced' is not a value of ours; for weights inverse to class frequency "
+            + "write inverse-frequency");
+  }
+
+  @Test
+  void inverseFrequencyGivesEveryPresentClassTheSameTotalWeight() {
+    // Worked by hand: 6 + 2 rows, 2 classes present, mean 4 rows per class; fault weighs 4/6,
+    // normal 4/2, absent worn 1.
+    assertThat(ClassWeights.inverseFrequency().resolve(SCHEMA, new int[] {6, 2, 0}))
+        .containsExactly(4.0 / 6, 2.0, 1.0);
+    assertThat(ClassWeights.inverseFrequency().optionText()).isEqualTo("inverse-frequency");
+  }
+
   @ParameterizedTest
   @CsvSource(
       delimiter = '|',
       value = {
-        "fault                | expected balanced, none or label=weight pairs such as "
+        "fault                | expected inverse-frequency, none or label=weight pairs such as "
             + "fault=5,normal=1, but found 'fault'",
-        "fault=5,             | expected balanced, none or label=weight pairs such as "
+        "fault=5,             | expected inverse-frequency, none or label=weight pairs such as "
             + "fault=5,normal=1, but found ''",
-        "fault=1=2            | expected balanced, none or label=weight pairs such as "
+        "fault=1=2            | expected inverse-frequency, none or label=weight pairs such as "
             + "fault=5,normal=1, but found 'fault=1=2'",
         "=5                   | class label missing before '=5'",
         "fault=-1             | weight of class 'fault' must be a positive decimal number, "
@@ -71,7 +91,7 @@ class ClassWeightsTest {
   void listsLabelsTheClassesLackInLabelOrder() {
     ClassWeights w = ClassWeights.parse("zap=1,fault=2,broken=3");
     assertThat(w.unknownLabels(SCHEMA.classes())).containsExactly("broken", "zap");
-    assertThat(ClassWeights.balanced().unknownLabels(SCHEMA.classes())).isEmpty();
+    assertThat(ClassWeights.inverseFrequency().unknownLabels(SCHEMA.classes())).isEmpty();
     assertThat(ClassWeights.none().unknownLabels(List.of())).isEmpty();
   }
 }

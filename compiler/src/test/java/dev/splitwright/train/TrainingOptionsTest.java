@@ -34,12 +34,12 @@ class TrainingOptionsTest {
             .maxDepth(3)
             .maxLeaves(5)
             .minLeaf(4)
-            .weights(ClassWeights.balanced())
+            .weights(ClassWeights.inverseFrequency())
             .build();
     assertThat(options.toBuilder().build()).isEqualTo(options).hasSameHashCodeAs(options);
     assertThat(options.toBuilder().maxDepth(4).build()).isNotEqualTo(options);
     assertThat(options).hasToString(
-        "impurity=entropy, maxDepth=3, maxLeaves=5, minLeaf=4, weights=balanced");
+        "impurity=entropy, maxDepth=3, maxLeaves=5, minLeaf=4, weights=inverse-frequency");
   }
 
   @Test
@@ -59,10 +59,10 @@ class TrainingOptionsTest {
   }
 
   @Test
-  void balancedWeightsAreRowsOverClassesTimesClassRows() {
+  void inverseFrequencyWeightsAreRowsOverClassesTimesClassRows() {
     // Worked by hand: n = 8 rows, k = 2 classes present: idle 8/(2*6) = 2/3, fault 8/(2*2) = 2;
     // "worn" has no rows and keeps weight 1.
-    double[] w = ClassWeights.balanced().resolve(SCHEMA, new int[] {6, 2, 0});
+    double[] w = ClassWeights.inverseFrequency().resolve(SCHEMA, new int[] {6, 2, 0});
     assertThat(w[0]).isCloseTo(2.0 / 3, within(1e-15));
     assertThat(w[1]).isEqualTo(2.0);
     assertThat(w[2]).isEqualTo(1.0);
