@@ -55,7 +55,7 @@ class TrainerEquivalenceTest {
     Dataset data = load(file, target);
     int compared = 0;
     for (Impurity impurity : Impurity.values()) {
-      for (ClassWeights weights : List.of(ClassWeights.none(), ClassWeights.balanced())) {
+      for (ClassWeights weights : List.of(ClassWeights.none(), ClassWeights.inverseFrequency())) {
         for (int depth : new int[] {1, 3, 6, 40}) {
           for (int minLeaf : new int[] {1, 7}) {
             for (int maxLeaves : new int[] {2, 9, TrainingOptions.UNLIMITED_LEAVES}) {
@@ -94,7 +94,7 @@ class TrainerEquivalenceTest {
       assertSameTree(data, TrainingOptions.builder().impurity(impurity).maxDepth(14).build(),
           "larger " + impurity);
       assertSameTree(data, TrainingOptions.builder().impurity(impurity).maxDepth(30)
-          .maxLeaves(200).minLeaf(3).weights(ClassWeights.balanced()).build(),
+          .maxLeaves(200).minLeaf(3).weights(ClassWeights.inverseFrequency()).build(),
           "larger best-first " + impurity);
     }
   }
@@ -235,7 +235,7 @@ class TrainerEquivalenceTest {
   private static TrainingOptions randomOptions(Random random, Schema schema) {
     ClassWeights weights = switch (random.nextInt(3)) {
       case 0 -> ClassWeights.none();
-      case 1 -> ClassWeights.balanced();
+      case 1 -> ClassWeights.inverseFrequency();
       default -> {
         Map<String, Double> byLabel = new TreeMap<>();
         for (String label : schema.classes()) {
