@@ -73,7 +73,8 @@ class ProvenanceTest {
 
     String pumpSha = sha256(CompileCommandTest.PUMP);
     String fieldSha = sha256(field);
-    String source = Files.readString(out.resolve("Pump.java"));
+    // The class comment is wrapped at 100 columns: read it as one line.
+    String source = Files.readString(out.resolve("Pump.java")).replace("\n * ", " ");
     assertThat(source).contains(
         "Trained on pump-vibration.csv, SHA-256 " + pumpSha + ";",
         "scored on field.csv, SHA-256 " + fieldSha + " (not trained on).",
@@ -157,7 +158,7 @@ class ProvenanceTest {
     assertThat(run.exitCode()).as(run.err()).isZero();
 
     String testSha = sha256(test);
-    assertThat(Files.readString(out.resolve("Heat.java")))
+    assertThat(Files.readString(out.resolve("Heat.java")).replace("\n * ", " "))
         .contains("Data: train.csv, SHA-256 " + sha256(train) + ".")
         .contains("Test data: test.csv, SHA-256 " + testSha + ".");
     JsonNode testData = JSON.readTree(out.resolve("Heat.report.json").toFile()).get("testData");
