@@ -87,7 +87,7 @@ class CompileCommandLogOptionsTest {
     // Exit 2 and one line that names our value; nothing else is accepted silently.
     assertThat(run("--data", "no-such-file.csv", "--class-weight", "balanced"))
         .isEqualTo(ExitCodes.BAD_INPUT);
-    assertThat(stderr.toString()).startsWith("splitwright compile: option '--class-weight':"
+    assertThat(stderr.toString()).startsWith("error: option '--class-weight':"
         + " 'balanced' is not a value of ours; for weights inverse to class frequency write"
         + " inverse-frequency");
     assertThat(stderr.toString().lines().count()).isEqualTo(1);
