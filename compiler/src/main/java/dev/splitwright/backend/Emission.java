@@ -1,6 +1,7 @@
 package dev.splitwright.backend;
 
 import java.util.List;
+import java.util.Optional;
 
 /** What an {@link OutputLanguage} emitted for one tree: its files and how they were made. */
 public interface Emission {
@@ -13,6 +14,14 @@ public interface Emission {
 
   /** The input type, as spelled on the command line. */
   String input();
+
+  /**
+   * How {@code --layout smallest} was decided (the layouts' sizes and the one kept), for the
+   * report's options; empty where the language reports it elsewhere.
+   */
+  default Optional<String> layoutChoice() {
+    return Optional.empty();
+  }
 
   /** UTF-8 bytes of every file together. */
   default int sourceBytes() {

@@ -68,6 +68,11 @@ public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmiss
     }
 
     @Override
+    public Optional<String> layoutChoice() {
+      return Optional.of(choice.describe());
+    }
+
+    @Override
     public String input() {
       return choice.options().inputKind().optionName();
     }

@@ -165,9 +165,8 @@ public final class CompileJob {
     VerificationResult verification = lang.verify(tree, emission, verifyOn, request.seed());
     SizeFigures sizes = lang.measure(emission);
     Map<String, Object> options = optionsMap(request);
-    if (emission instanceof JavaLanguage.JavaEmission java
-        && request.emit().layout() == Layout.SMALLEST) {
-      options.put("layoutChoice", java.choice().describe());
+    if (request.emit().layout() == Layout.SMALLEST) {
+      emission.layoutChoice().ifPresent(choice -> options.put("layoutChoice", choice));
     }
     Optional<DataFile> trainedOn = request.model().isPresent()
         ? Optional.of(model.trainedOn()) : Optional.empty();
