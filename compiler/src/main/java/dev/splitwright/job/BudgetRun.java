@@ -26,10 +26,8 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
-import java.util.StringJoiner;
 
 /** The compile job with a byte budget: search, emit the choice, write it with report and chart. */
 final class BudgetRun {
@@ -68,7 +66,8 @@ final class BudgetRun {
       Layout won = outcome.source().layout();
       LayoutChoice both = LayoutChooser.resolve(tree, emitted,
           header(loaded, testLog, request, scores), verifier.compiler());
-      options.put("layoutChoice", describe(won, both));
+      options.put("layoutChoice", both.options().layout() == won ? both.describe()
+          : both.describe(won, "smallest in the budget's unit"));
       emitted = emitted.toBuilder().layout(won).build();
     }
     // The -g:none size was compiled once, for the selection; the report repeats that figure.
@@ -90,22 +89,6 @@ final class BudgetRun {
         Optional.of(chart));
     return new CompileResult(tree, outcome.source(), emission, sizes, outcome.verification(),
         scores, report, written);
-  }
-
-  /** Like {@link LayoutChoice#describe()}, naming the layout the budget search kept. */
-  static String describe(Layout won, LayoutChoice both) {
-    if (both.options().layout() == won) {
-      return both.describe();
-    }
-    StringJoiner others = new StringJoiner(", ", " (", ")").setEmptyValue("");
-    both.classFileBytes().forEach((layout, bytes) -> {
-      if (layout != won) {
-        others.add(String.format(Locale.ROOT, "%s %d bytes", layout.optionName(), bytes));
-      }
-    });
-    Integer bytes = both.classFileBytes().get(won);
-    return won.optionName() + (bytes == null ? "" : ": " + bytes + " bytes") + others
-        + "; smallest in the budget's unit";
   }
 
   private static HeaderInfo header(LoadedData loaded, Optional<FieldLog> testLog,

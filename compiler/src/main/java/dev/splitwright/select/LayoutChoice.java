@@ -35,14 +35,19 @@ public record LayoutChoice(EmittedSource source, EmitOptions options, CompiledCl
 
   /** One line such as {@code table: 5210 bytes (branches 9876 bytes)}. */
   public String describe() {
+    return describe(options.layout(), note);
+  }
+
+  /** As {@link #describe()}, naming {@code kept} as the layout kept and ending in {@code note}. */
+  public String describe(Layout kept, String note) {
     StringJoiner others = new StringJoiner(", ", " (", ")").setEmptyValue("");
     classFileBytes.forEach((layout, bytes) -> {
-      if (layout != options.layout()) {
+      if (layout != kept) {
         others.add(String.format(Locale.ROOT, "%s %d bytes", layout.optionName(), bytes));
       }
     });
-    String text = String.format(Locale.ROOT, "%s: %d bytes%s", options.layout().optionName(),
-        classFileBytes.get(options.layout()), others);
+    Integer bytes = classFileBytes.get(kept);
+    String text = kept.optionName() + (bytes == null ? "" : ": " + bytes + " bytes") + others;
     return note.isEmpty() ? text : text + "; " + note;
   }
 }
