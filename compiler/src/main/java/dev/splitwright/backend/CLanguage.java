@@ -20,6 +20,8 @@ import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.report.CompileReport;
+import dev.splitwright.select.BudgetUnit;
+import dev.splitwright.select.SearchMeter;
 import dev.splitwright.verify.BatchVerifier;
 import dev.splitwright.verify.VerificationResult;
 import java.io.IOException;
@@ -49,6 +51,8 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
       "-Werror");
   /** Flags of the measured object file unless {@code --cflags} says otherwise. */
   public static final List<String> DEFAULT_CFLAGS = List.of("-Os");
+  /** What a C budget may count: flash bytes of the object file. */
+  public static final List<BudgetUnit> BUDGET_UNITS = List.of(BudgetUnit.FLASH);
   /** Time limit of one compiler or harness run; a loaded machine needs generous ones. */
   static final Duration TIMEOUT = Duration.ofMinutes(5);
 
@@ -122,14 +126,28 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   }
 
   @Override
-  public CEmission emit(DecisionTree tree, HeaderInfo header) throws InputException {
-    List<CEmitOptions> variants = new ArrayList<>();
-    if (smallest) {
-      variants.add(options.withLayout(Layout.BRANCHES));
-      variants.add(options.withLayout(Layout.TABLE));
-    } else {
-      variants.add(options);
+  public List<BudgetUnit> budgetUnits() {
+    return BUDGET_UNITS;
+  }
+
+  @Override
+  public SearchMeter<CEmission> searchMeter(BudgetUnit unit) {
+    if (unit != BudgetUnit.FLASH) {
+      throw new IllegalArgumentException("C is measured in flash bytes, not " + unit);
     }
+    return new CSearchMeter(this, variants());
+  }
+
+  /** The options of every layout measured: both with {@code smallest}, else the one asked for. */
+  private List<CEmitOptions> variants() {
+    return smallest
+        ? List.of(options.withLayout(Layout.BRANCHES), options.withLayout(Layout.TABLE))
+        : List.of(options);
+  }
+
+  @Override
+  public CEmission emit(DecisionTree tree, HeaderInfo header) throws InputException {
+    List<CEmitOptions> variants = variants();
     List<CSource> sources = new ArrayList<>();
     for (CEmitOptions v : variants) {
       sources.add(CEmitter.emit(tree, v, header));

@@ -9,11 +9,14 @@ import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.report.CompileReport;
+import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.DebugSizes;
 import dev.splitwright.select.DexMeter;
 import dev.splitwright.select.DexSizes;
+import dev.splitwright.select.JavaSearchMeter;
 import dev.splitwright.select.LayoutChoice;
 import dev.splitwright.select.LayoutChooser;
+import dev.splitwright.select.SearchMeter;
 import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
 import java.util.List;
@@ -27,6 +30,10 @@ import java.util.OptionalInt;
  * memory, checked by {@link Verifier} and measured as class files.
  */
 public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmission> {
+  /** What a Java budget may count, the default first. */
+  public static final List<BudgetUnit> BUDGET_UNITS =
+      List.of(BudgetUnit.CLASS, BudgetUnit.BYTECODE, BudgetUnit.SOURCE, BudgetUnit.DEX);
+
   private final EmitOptions options;
   private final Verifier verifier;
   private final OptionalInt dexMinApi;
@@ -147,6 +154,29 @@ public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmiss
   }
 
   @Override
+  public List<BudgetUnit> budgetUnits() {
+    return BUDGET_UNITS;
+  }
+
+  /**
+   * {@inheritDoc}
+   *
+   * @throws IllegalArgumentException if {@code unit} counts DEX bytes but this language was made
+   *     without a minimum API level
+   */
+  @Override
+  public SearchMeter<JavaEmission> searchMeter(BudgetUnit unit) {
+    if (unit == BudgetUnit.DEX && dexMinApi.isEmpty()) {
+      throw new IllegalArgumentException("a DEX budget needs a minimum API level");
+    }
+    // D8 is loaded only when the budget counts DEX bytes.
+    Optional<DexMeter> dex = unit == BudgetUnit.DEX
+        ? Optional.of(DexMeter.forMinApi(dexMinApi.getAsInt())) : Optional.empty();
+    return new JavaSearchMeter(unit, options, verifier, dex)
+        .mapped(JavaEmission::new, JavaEmission::choice);
+  }
+
+  @Override
   public VerificationResult verify(DecisionTree tree, JavaEmission emission, List<Dataset> rows,
       long seed) {
     LayoutChoice choice = emission.choice();
@@ -166,13 +196,6 @@ public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmiss
     return figures(source, bytes.length, DebugSizes.noDebug(source),
         Verifier.largestPerCallMethod(info), emission.choice().options().maxMethodBytes(),
         info.constantPoolCount(), info.methods(), dex);
-  }
-
-  /** The figures of {@code source}, whose compiled class the verifier has already looked at. */
-  public static SizeFigures figures(EmittedSource source, VerificationResult verified,
-      int noDebugBytes, Optional<DexSizes> dex) {
-    return figures(source, verified.classFileBytes(), noDebugBytes, verified.maxMethodBytes(),
-        verified.methodByteCap(), verified.constantPoolCount(), verified.methods(), dex);
   }
 
   private static SizeFigures figures(EmittedSource source, int classFileBytes, int noDebugBytes,

@@ -7,6 +7,7 @@ import dev.splitwright.check.CCompilerNotFoundException;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.Layout;
+import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.verify.Verifier;
 import java.util.List;
 import java.util.Objects;
@@ -18,6 +19,20 @@ public final class Languages {
   public static final List<String> NAMES = List.of("java", "c");
 
   private Languages() {}
+
+  /**
+   * What a budget may count for the language {@code name}, the default first, known before the
+   * language is made (its compilers looked up).
+   *
+   * @throws IllegalArgumentException if {@code name} is not one of {@link #NAMES}
+   */
+  public static List<BudgetUnit> budgetUnits(String name) {
+    return switch (name) {
+      case "java" -> JavaLanguage.BUDGET_UNITS;
+      case "c" -> CLanguage.BUDGET_UNITS;
+      default -> throw new IllegalArgumentException("no language " + name);
+    };
+  }
 
   /** Java with {@code options}, checked and measured with {@code verifier}'s javac. */
   public static OutputLanguage<?> java(EmitOptions options, Verifier verifier,

@@ -5,6 +5,8 @@ import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.report.CompileReport;
+import dev.splitwright.select.BudgetUnit;
+import dev.splitwright.select.SearchMeter;
 import dev.splitwright.verify.VerificationResult;
 import java.util.List;
 import java.util.Optional;
@@ -53,6 +55,17 @@ public interface OutputLanguage<E extends Emission> {
    * @throws InputException if the tool the measurement needs cannot be found
    */
   SizeFigures measure(E emission) throws InputException;
+
+  /** The units a budget for this language may count, the default first. */
+  List<BudgetUnit> budgetUnits();
+
+  /**
+   * What the budget search measures candidates, emits the choice and checks it with, in {@code
+   * unit}, one of {@link #budgetUnits()}.
+   *
+   * @throws InputException if the tool the measurement needs cannot be found
+   */
+  SearchMeter<E> searchMeter(BudgetUnit unit) throws InputException;
 
   /**
    * The compiler that built the code {@link #verify} ran, once it has run: its first line of

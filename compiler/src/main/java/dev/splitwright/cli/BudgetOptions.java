@@ -1,5 +1,6 @@
 package dev.splitwright.cli;
 
+import dev.splitwright.backend.Languages;
 import dev.splitwright.data.InputException;
 import dev.splitwright.eval.Metric;
 import dev.splitwright.select.BudgetUnit;
@@ -24,11 +25,12 @@ final class BudgetOptions {
           + "writes <out>/<Class>.frontier.svg.")
   String budget;
 
-  @Option(names = "--budget-unit", defaultValue = "class", paramLabel = "UNIT",
-      description = "What --budget counts: the .class file javac writes with --release 17 and "
-          + "its default debug info, the methods' bytecode, the .java file's UTF-8 bytes, or the "
-          + "DEX file D8 writes for the class alone in release mode at --min-api "
-          + "(default: ${DEFAULT-VALUE}).")
+  @Option(names = "--budget-unit", paramLabel = "UNIT",
+      description = "What --budget counts. Java: the .class file javac writes with --release 17 "
+          + "and its default debug info (class, the default), the methods' bytecode, the .java "
+          + "file's UTF-8 bytes (source), or the DEX file D8 writes for the class alone in "
+          + "release mode at --min-api (dex). C: the flash bytes (.text, .rodata, .data) of the "
+          + "object file --cc writes with --cflags (flash, the only one).")
   String unit;
 
   @Option(names = "--metric", defaultValue = "balanced-accuracy",
@@ -52,7 +54,8 @@ final class BudgetOptions {
    * @throws ParameterException if a value is malformed, or a search option is given without
    *     {@code --budget}
    */
-  Optional<SearchSettings> settings(CommandLine cli, TrainingOptions training, long seed) {
+  Optional<SearchSettings> settings(CommandLine cli, TrainingOptions training, long seed,
+      String language) {
     if (budget == null) {
       for (String option : List.of("--budget-unit", "--metric", "--folds", "--refit-all")) {
         if (cli.getParseResult().hasMatchedOption(option)) {
@@ -67,8 +70,7 @@ final class BudgetOptions {
     } catch (InputException e) {
       throw bad(cli, "--budget", e.problem() + "; " + e.remedy());
     }
-    BudgetUnit budgetUnit = BudgetUnit.parse(unit).orElseThrow(() -> bad(cli, "--budget-unit",
-        "must be " + Choices.oneOf(Choices.UNITS) + ", but it is '" + unit + "'"));
+    BudgetUnit budgetUnit = unit(cli, language);
     Metric score = Metric.parse(metric).orElseThrow(() -> bad(cli, "--metric",
         "must be " + Choices.oneOf(Choices.METRICS) + ", but it is '" + metric + "'"));
     if (folds != null && folds < 2) {
@@ -90,17 +92,34 @@ final class BudgetOptions {
         .build());
   }
 
+  /**
+   * What the budget counts: {@code --budget-unit}, or the language's default.
+   *
+   * @throws ParameterException if the unit is unknown or not one the language measures
+   */
+  private BudgetUnit unit(CommandLine cli, String language) {
+    List<BudgetUnit> accepted = Languages.budgetUnits(language);
+    if (unit == null) {
+      return accepted.get(0);
+    }
+    List<String> names = accepted.stream().map(BudgetUnit::optionName).toList();
+    return BudgetUnit.parse(unit).filter(accepted::contains).orElseThrow(() -> bad(cli,
+        "--budget-unit", "must be " + Choices.oneOf(names) + " with --emit " + language
+            + ", but it is '" + unit + "'"));
+  }
+
   /** Whether a budget is given and counts DEX bytes. */
   boolean countsDex() {
-    return budget != null && BudgetUnit.parse(unit).orElse(null) == BudgetUnit.DEX;
+    return budget != null && unit != null
+        && BudgetUnit.parse(unit).orElse(null) == BudgetUnit.DEX;
   }
 
   /** The search options for the reproducing command line, or nothing without a budget. */
-  List<String> optionsText() {
+  List<String> optionsText(CommandLine cli, String language) {
     List<String> parts = new ArrayList<>();
     if (budget != null) {
       parts.add("--budget " + budget.replaceAll("\\s", ""));
-      parts.add("--budget-unit " + unit.strip().toLowerCase(Locale.ROOT));
+      parts.add("--budget-unit " + unit(cli, language).optionName());
       parts.add("--metric " + metric.strip().toLowerCase(Locale.ROOT));
       if (folds != null) {
         parts.add("--folds " + folds);

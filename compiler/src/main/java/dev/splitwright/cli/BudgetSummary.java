@@ -35,9 +35,9 @@ final class BudgetSummary {
     frontier(selection).forEach(out::println);
     if (stats != null) {
       String d8 = stats.d8Runs() == 0 ? "" : " and " + stats.d8Runs() + " D8 runs";
-      out.printf(Locale.ROOT, "search: %d settings, %d distinct trees measured in %d javac runs%s, "
+      out.printf(Locale.ROOT, "search: %d settings, %d distinct trees measured in %d %s runs%s, "
           + "frontier of %d; %.1f s%n", stats.settingsTried(), stats.distinctTrees(),
-          stats.javacRuns(), d8, selection.frontier().size(), stats.seconds());
+          stats.compilerRuns(), stats.compiler(), d8, selection.frontier().size(), stats.seconds());
     }
   }
 

@@ -179,7 +179,8 @@ final class CompileCommand implements Callable<Integer> {
     PrintWriter stdout = spec.commandLine().getOut();
     PrintWriter stderr = spec.commandLine().getErr();
     Optional<SearchSettings> budget =
-        budgetOptions.settings(spec.commandLine(), request.training(), seed);
+        budgetOptions.settings(spec.commandLine(), request.training(), seed,
+            languageOptions.name(spec.commandLine()));
     ProgressBar progress = ProgressBar.forTerminal(stderr, quiet);
     Verifier verifier = Verifier.create();
     CompileResult result = new CompileJob(verifier,
@@ -347,7 +348,8 @@ final class CompileCommand implements Callable<Integer> {
     if (bare) {
       parts.add("--bare");
     }
-    parts.addAll(budgetOptions.optionsText());
+    parts.addAll(budgetOptions.optionsText(spec.commandLine(),
+        languageOptions.name(spec.commandLine())));
     parts.addAll(languageOptions.optionsText(spec.commandLine()));
     parts.addAll(dexOptions.optionsText(dexMinApi));
     return String.join(" ", parts);

@@ -19,7 +19,7 @@ import picocli.CommandLine.ParameterException;
 final class LanguageOptions {
   /** Options that shape Java alone; given with {@code --emit c} they are refused. */
   static final List<String> JAVA_ONLY = List.of("--package", "--named-args", "--max-method-bytes",
-      "--dex-size", "--min-api", "--budget-unit");
+      "--dex-size", "--min-api");
   private static final List<String> C_ONLY = List.of("--host-cc", "--cc", "--cflags");
 
   @Option(names = "--emit", defaultValue = "java", paramLabel = "LANGUAGE",
@@ -64,8 +64,6 @@ final class LanguageOptions {
       if (cli.getParseResult().hasMatchedOption(option)) {
         throw new ParameterException(cli, "option '" + option + "' "
             + (!c ? "only applies together with --emit c"
-                : option.equals("--budget-unit") ? "counts Java class, bytecode, source or DEX "
-                    + "bytes and means nothing with --emit c"
                 : "shapes Java code and means nothing with --emit c"));
       }
     }

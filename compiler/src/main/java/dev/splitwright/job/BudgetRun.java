@@ -1,11 +1,11 @@
 package dev.splitwright.job;
 
-import dev.splitwright.backend.JavaLanguage;
+import dev.splitwright.backend.Emission;
+import dev.splitwright.backend.OutputLanguage;
 import dev.splitwright.backend.SizeFigures;
 import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
-import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.Scores;
@@ -14,14 +14,8 @@ import dev.splitwright.persist.SavedModel;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.FrontierSvg;
 import dev.splitwright.select.BudgetSelection;
-import dev.splitwright.select.BudgetUnit;
-import dev.splitwright.select.DexMeter;
-import dev.splitwright.select.DexSizes;
-import dev.splitwright.select.LayoutChoice;
-import dev.splitwright.select.LayoutChooser;
 import dev.splitwright.select.SearchProgress;
 import dev.splitwright.select.SearchSettings;
-import dev.splitwright.verify.Verifier;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
@@ -29,57 +23,41 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 
-/** The compile job with a byte budget: search, emit the choice, write it with report and chart. */
+/**
+ * The compile job with a byte budget: search in the output language's unit, emit the choice, write
+ * it with report and chart. Nothing here knows which language it is.
+ */
 final class BudgetRun {
   private BudgetRun() {}
 
-  static CompileResult run(Verifier verifier, CompileRequest request, OutputTargets targets,
-      LoadedData loaded, Optional<FieldLog> testLog, CompileJob.Parts parts,
-      SearchSettings settings,
-      SearchProgress progress) throws InputException, IOException {
+  static <E extends Emission> CompileResult run(OutputLanguage<E> lang, CompileRequest request,
+      OutputTargets targets, LoadedData loaded, Optional<FieldLog> testLog,
+      CompileJob.Parts parts, SearchSettings settings, SearchProgress progress)
+      throws InputException, IOException {
     if (request.model().isPresent()) {
       throw new InputException("budget", "cannot be combined with --model: the budget search "
           + "trains its own trees", "leave out --model or --budget");
     }
-    if (settings.unit() == BudgetUnit.DEX && request.dexMinApi().isEmpty()) {
-      throw new IllegalArgumentException("a DEX budget needs a minimum API level");
-    }
-    // D8 is loaded only when DEX sizes were asked for.
-    Optional<DexMeter> dex = request.dexMinApi().isPresent()
-        ? Optional.of(DexMeter.forMinApi(request.dexMinApi().getAsInt()))
-        : Optional.empty();
-    Optional<DexMeter> searchDex = settings.unit() == BudgetUnit.DEX ? dex : Optional.empty();
-    BudgetSelection.Outcome outcome = new BudgetSelection(settings, request.emit(), verifier,
-        progress, searchDex).run(
+    BudgetSelection.Outcome<E> outcome = new BudgetSelection<>(settings,
+        lang.searchMeter(settings.unit()), progress).run(
             new BudgetSelection.Data(parts.train(), parts.validation(), parts.all(),
                 request.seed()),
             header(loaded, testLog, request, placeholderScores(parts)),
             tree -> header(loaded, testLog, request, CompileJob.score(tree, parts)));
     DecisionTree tree = outcome.tree();
+    E emission = outcome.emitted();
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
-    Optional<DexSizes> dexSizes = dex.map(d -> d.measure(outcome.source(), verifier.compiler()));
-    EmitOptions emitted = request.emit();
-    if (emitted.layout() == Layout.SMALLEST) {
-      // The report names the layout that won, with the class-file bytes of both as without a
-      // budget: one more javac run, only for this option.
-      Layout won = outcome.source().layout();
-      LayoutChoice both = LayoutChooser.resolve(tree, emitted,
-          header(loaded, testLog, request, scores), verifier.compiler());
-      options.put("layoutChoice", both.options().layout() == won ? both.describe()
-          : both.describe(won, "smallest in the budget's unit"));
-      emitted = emitted.toBuilder().layout(won).build();
+    if (request.emit().layout() == Layout.SMALLEST) {
+      emission.layoutChoice().ifPresent(choice -> options.put("layoutChoice", choice));
     }
-    // The -g:none size was compiled once, for the selection; the report repeats that figure.
-    JavaLanguage.JavaFile emission = JavaLanguage.written(outcome.source(), emitted);
-    SizeFigures sizes = JavaLanguage.figures(outcome.source(), outcome.verification(),
-        outcome.report().chosen().classFileBytesNoDebug(), dexSizes);
+    SizeFigures sizes = lang.measure(emission);
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(),
-        Optional.empty(), testLog, tree, options, "java", emission, sizes,
-        outcome.verification(), Optional.empty(), scores, outcome.report());
+        Optional.empty(), testLog, tree, options, lang.name(), emission, sizes,
+        outcome.verification(), lang.verifyingCompiler(), scores, outcome.report());
     if (!outcome.verification().passed()) {
-      return new CompileResult(tree, outcome.source(), emission, sizes, outcome.verification(),
-          scores, report, List.of());
+      return new CompileResult(tree, emission, sizes, outcome.verification(), scores, report,
+          List.of());
     }
     String chart = FrontierSvg.render(FrontierChartBuilder.build(loaded.sourceName(), settings,
         outcome));
@@ -87,8 +65,8 @@ final class BudgetRun {
         CompileJob.optionsMap(request));
     List<Path> written = CompileJob.write(targets, request, model, emission.files(), report,
         Optional.of(chart));
-    return new CompileResult(tree, outcome.source(), emission, sizes, outcome.verification(),
-        scores, report, written);
+    return new CompileResult(tree, emission, sizes, outcome.verification(), scores, report,
+        written);
   }
 
   private static HeaderInfo header(LoadedData loaded, Optional<FieldLog> testLog,

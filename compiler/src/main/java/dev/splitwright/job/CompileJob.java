@@ -12,7 +12,6 @@ import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.LoadedData;
 import dev.splitwright.data.SourcePosition;
-import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.Evaluator;
@@ -105,10 +104,11 @@ public final class CompileJob {
     OutputLanguage<?> lang = language(request);
     OutputTargets targets = OutputTargets.of(request, lang, budget.isPresent());
     targets.check();
-    if (budget.isPresent() && !lang.name().equals("java")) {
-      // Before any data is read: the search measures class files only so far.
-      throw new InputException("budget", "the budget search measures Java class files only so far",
-          "leave out --budget and choose --max-depth and --layout, or use --emit java");
+    if (budget.isPresent() && !lang.budgetUnits().contains(budget.get().unit())) {
+      // Before any data is read.
+      throw new InputException("budget-unit", "counts " + budget.get().unit().description()
+          + ", which --emit " + lang.name() + " does not measure", "use " + String.join(" or ",
+              lang.budgetUnits().stream().map(u -> u.optionName()).toList()));
     }
     LoadedData loaded = CsvLoader.load(request.data(), request.load());
     TrainingClasses.requireTwo(request.data().toString(), loaded);
@@ -116,7 +116,7 @@ public final class CompileJob {
     Optional<FieldLog> testLog = testData(loaded.dataset(), request);
     if (budget.isPresent()) {
       Parts parts = split(loaded.dataset(), request, testLog);
-      return BudgetRun.run(verifier, request, targets, loaded, testLog, parts, budget.get(),
+      return BudgetRun.run(lang, request, targets, loaded, testLog, parts, budget.get(),
           progress);
     }
     Optional<SavedModel> saved = Optional.empty();
@@ -173,16 +173,12 @@ public final class CompileJob {
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), trainedOn,
         testLog, tree, options, lang.name(), emission, sizes, verification,
         lang.verifyingCompiler(), scores, null);
-    EmittedSource source = emission instanceof JavaLanguage.JavaEmission java
-        ? java.source() : null;
     if (!verification.passed()) {
-      return new CompileResult(tree, source, emission, sizes, verification, scores, report,
-          List.of());
+      return new CompileResult(tree, emission, sizes, verification, scores, report, List.of());
     }
     List<Path> written = write(targets, request, model, emission.files(), report,
         Optional.empty());
-    return new CompileResult(tree, source, emission, sizes, verification, scores, report,
-        written);
+    return new CompileResult(tree, emission, sizes, verification, scores, report, written);
   }
 
   /**

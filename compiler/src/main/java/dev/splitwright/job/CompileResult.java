@@ -2,7 +2,6 @@ package dev.splitwright.job;
 
 import dev.splitwright.backend.Emission;
 import dev.splitwright.backend.SizeFigures;
-import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.report.CompileReport;
@@ -17,12 +16,10 @@ import java.util.Map;
  * The outcome of a compile run. When {@link #verification} did not pass, {@link #written} is empty:
  * nothing was written.
  *
- * @param source the Java source, or null when another language was emitted
  * @param emission the files emitted, in any language
  */
 public record CompileResult(
     DecisionTree tree,
-    EmittedSource source,
     Emission emission,
     SizeFigures sizes,
     VerificationResult verification,

@@ -11,7 +11,7 @@ final class FrontierChartBuilder {
 
   /** The chart of {@code outcome}, searched with {@code settings} on data {@code name}. */
   static FrontierSvg.Chart build(String name, SearchSettings settings,
-      BudgetSelection.Outcome outcome) {
+      BudgetSelection.Outcome<?> outcome) {
     String metric = settings.metric().optionName().replace('-', ' ');
     String scored = settings.folds() == 0 ? "validation " + metric
         : metric + ", mean of " + settings.folds() + " folds";
@@ -20,6 +20,7 @@ final class FrontierChartBuilder {
       case BYTECODE -> "bytecode size (bytes, sum of method code lengths)";
       case SOURCE -> "source size (bytes, UTF-8)";
       case DEX -> "DEX size (bytes; D8 release mode, the class alone)";
+      case FLASH -> "flash size (bytes; .text, .rodata and .data of the object file)";
     };
     List<FrontierSvg.Dot> all = outcome.candidates().stream()
         .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();

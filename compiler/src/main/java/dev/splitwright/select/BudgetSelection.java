@@ -3,7 +3,6 @@ package dev.splitwright.select;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.EmitOptions;
-import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.verify.VerificationResult;
@@ -21,9 +20,10 @@ import java.util.function.Function;
  *       cost-complexity pruning path; equal trees are kept once ({@link CandidateGenerator}).
  *   <li>Scores: the metric on the validation part, or the mean over stratified folds of train and
  *       validation together ({@link CandidateScorer}). Test rows are never looked at.
- *   <li>Sizes: every distinct candidate is emitted and compiled, in batches ({@link SizeMeter}),
- *       and for a DEX budget dexed, one D8 run per batch ({@link DexMeter}).
- *       Nothing is estimated, so the frontier also shows what larger budgets would buy.
+ *   <li>Sizes: every distinct candidate is emitted and compiled, in batches, by the output
+ *       language's {@link SearchMeter}: javac class files ({@link JavaSearchMeter}, for a DEX
+ *       budget dexed, one D8 run per batch) or a C compiler's object files. Nothing is
+ *       estimated, so the frontier also shows what larger budgets would buy.
  *   <li>Choice: among candidates within the budget the best score, ties to the smaller size, then
  *       fewer leaves, then generation order ({@link Ranking}); steps 1 to 4 are {@link
  *       CandidateSearch}.
@@ -37,34 +37,41 @@ import java.util.function.Function;
  * train part, or train and validation with cross-validation and {@code refitAll}. Only with a
  * single validation split and {@code refitAll} does the emitted tree differ from the candidate.
  */
-public final class BudgetSelection {
+public final class BudgetSelection<E> {
   private final SearchSettings settings;
-  private final EmitOptions emit;
-  private final Verifier verifier;
+  private final SearchMeter<E> meter;
   private final SearchProgress progress;
-  private final Optional<DexMeter> dex;
 
-  /** Searches with {@code settings}, emits with {@code emit}, checks with {@code verifier}. */
-  public BudgetSelection(SearchSettings settings, EmitOptions emit, Verifier verifier,
-      SearchProgress progress) {
-    this(settings, emit, verifier, progress, Optional.empty());
+  /**
+   * Searches with {@code settings}, measuring, emitting and checking with {@code meter}.
+   *
+   * @throws IllegalArgumentException if {@code meter} measures another unit than the budget's
+   */
+  public BudgetSelection(SearchSettings settings, SearchMeter<E> meter, SearchProgress progress) {
+    this.settings = Objects.requireNonNull(settings, "settings");
+    this.meter = Objects.requireNonNull(meter, "meter");
+    this.progress = Objects.requireNonNull(progress, "progress");
+    if (meter.unit() != settings.unit()) {
+      throw new IllegalArgumentException("the meter measures " + meter.unit().optionName()
+          + " bytes but the budget counts " + settings.unit().optionName() + " bytes");
+    }
+  }
+
+  /** A search emitting Java with {@code emit}, compiled and checked by {@code verifier}. */
+  public static BudgetSelection<LayoutChoice> java(SearchSettings settings, EmitOptions emit,
+      Verifier verifier, SearchProgress progress) {
+    return java(settings, emit, verifier, progress, Optional.empty());
   }
 
   /**
-   * As above, measuring every candidate in DEX bytes with {@code dex} too.
+   * As above, a DEX budget measuring every candidate with {@code dex}.
    *
    * @throws IllegalArgumentException if the budget counts DEX bytes but {@code dex} is empty
    */
-  public BudgetSelection(SearchSettings settings, EmitOptions emit, Verifier verifier,
-      SearchProgress progress, Optional<DexMeter> dex) {
-    this.settings = Objects.requireNonNull(settings, "settings");
-    this.emit = Objects.requireNonNull(emit, "emit");
-    this.verifier = Objects.requireNonNull(verifier, "verifier");
-    this.progress = Objects.requireNonNull(progress, "progress");
-    this.dex = Objects.requireNonNull(dex, "dex");
-    if (settings.unit() == BudgetUnit.DEX && dex.isEmpty()) {
-      throw new IllegalArgumentException("a DEX budget needs a DexMeter");
-    }
+  public static BudgetSelection<LayoutChoice> java(SearchSettings settings, EmitOptions emit,
+      Verifier verifier, SearchProgress progress, Optional<DexMeter> dex) {
+    return new BudgetSelection<>(settings,
+        new JavaSearchMeter(settings.unit(), emit, verifier, dex), progress);
   }
 
   /**
@@ -87,17 +94,19 @@ public final class BudgetSelection {
    * The emitted classifier, its verification, the report section, what a chart needs and the
    * statistics. The classifier may have failed verification; the caller decides what to write.
    *
+   * @param emitted what the language emitted for the chosen tree
    * @param candidates every candidate scored and measured, in generation order
    * @param frontier the Pareto-optimal candidates by size, ascending
    * @param chosen the candidate the emitted classifier comes from
    * @param chosenSize the emitted classifier's size in the budget's unit (a refit may differ from
    *     the candidate's)
    */
-  public record Outcome(DecisionTree tree, EmittedSource source, VerificationResult verification,
+  public record Outcome<E>(DecisionTree tree, E emitted, VerificationResult verification,
       SelectionReport report, List<Candidate> candidates, List<Candidate> frontier,
       Candidate chosen, int chosenSize, SearchStats stats) {
 
     public Outcome {
+      Objects.requireNonNull(emitted, "emitted");
       candidates = List.copyOf(candidates);
       frontier = List.copyOf(frontier);
     }
@@ -107,37 +116,36 @@ public final class BudgetSelection {
    * Runs the search and emits the chosen classifier.
    *
    * @param candidateHeader the header candidates are emitted with; its lines should be as long as
-   *     the final header's, so that source sizes match (class files do not depend on comments)
+   *     the final header's, so that source sizes match (compiled sizes do not depend on comments)
    * @param finalHeader the header of the emitted classifier, given its tree
-   * @throws InputException if there are no rows to score on, the folds do not fit the rows, or
-   *     not even the smallest candidate fits the budget
+   * @throws InputException if there are no rows to score on, the folds do not fit the rows, not
+   *     even the smallest candidate fits the budget, or the language's tools cannot be run
    */
-  public Outcome run(Data data, HeaderInfo candidateHeader,
+  public Outcome<E> run(Data data, HeaderInfo candidateHeader,
       Function<DecisionTree, HeaderInfo> finalHeader) throws InputException {
     long start = System.nanoTime();
-    SizeMeter meter = new SizeMeter(verifier.compiler(), dex);
     CandidateSearch.Result search = null;
     try {
-      search = new CandidateSearch(settings, emit, progress).run(data, candidateHeader, meter);
-      ChoiceEmitter.Choice choice = new ChoiceEmitter(settings, emit).choose(search.ranked(),
-          data.train(), data.validation(), finalHeader, meter);
-      VerificationResult verification = verifier.check(choice.tree(), choice.classes(),
-          choice.source(), emit.toBuilder().layout(choice.source().layout()).build(),
-          data.verifyRows(), data.seed());
+      search = new CandidateSearch(settings, progress).run(data, candidateHeader, meter);
+      ChoiceEmitter.Choice<E> choice = new ChoiceEmitter<>(settings, meter).choose(
+          search.ranked(), data.train(), data.validation(), finalHeader);
+      E emitted = choice.emitted().emitted();
+      VerificationResult verification = meter.verify(choice.tree(), emitted, data.verifyRows(),
+          data.seed());
       SelectionReport report = SelectionReportBuilder.build(settings, search, choice,
-          DebugSizes.noDebug(choice.source()), DebugSizes.fullDebug(choice.source()));
-      return new Outcome(choice.tree(), choice.source(), verification, report,
+          meter.chosenBytes(choice.emitted()));
+      return new Outcome<>(choice.tree(), emitted, verification, report,
           search.candidates(), search.frontier(), choice.candidate(),
-          choice.sizes().in(settings.unit()), stats(search, meter, start));
+          choice.sizes().in(settings.unit()), stats(search, start));
     } finally {
       // Also on failure, so that a progress bar is cleared before the error is printed.
-      progress.finished(stats(search, meter, start));
+      progress.finished(stats(search, start));
     }
   }
 
-  private SearchStats stats(CandidateSearch.Result search, SizeMeter meter, long start) {
+  private SearchStats stats(CandidateSearch.Result search, long start) {
     return new SearchStats(search == null ? 0 : search.settingsTried(),
         search == null ? 0 : search.candidates().size(), meter.sourcesCompiled(),
-        meter.javacRuns(), dex.map(DexMeter::d8Runs).orElse(0), System.nanoTime() - start);
+        meter.compilerName(), meter.compilerRuns(), meter.d8Runs(), System.nanoTime() - start);
   }
 }

@@ -19,7 +19,12 @@ public enum BudgetUnit {
    * Bytes of the DEX file Android's D8 writes for the class alone in release mode at a minimum
    * API level ({@link DexMeter}): what an app ships before R8 shrinking.
    */
-  DEX("dex", "DEX size");
+  DEX("dex", "DEX size"),
+  /**
+   * Bytes of the allocated sections that end in flash ({@code .text*}, {@code .rodata*}, {@code
+   * .data*}) of the object file a C compiler writes, read from its ELF section headers.
+   */
+  FLASH("flash", "flash size");
 
   private final String optionName;
   private final String description;

@@ -2,30 +2,29 @@ package dev.splitwright.select;
 
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
-import dev.splitwright.emit.EmitOptions;
-import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.model.DecisionTree;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
+import java.util.OptionalInt;
 
 /**
  * The search part of a budget selection: generates the candidates, scores them, measures each one
  * compiled and ranks those within the budget. Test rows are never looked at.
  */
 final class CandidateSearch {
-  private final SearchSettings settings;
-  private final EmitOptions emit;
-  private final SearchProgress progress;
-  private final CandidateEmitter emitter;
+  /** Trees per call of {@link SearchMeter#measure}, between progress updates. */
+  static final int CHUNK = 100;
 
-  CandidateSearch(SearchSettings settings, EmitOptions emit, SearchProgress progress) {
+  private final SearchSettings settings;
+  private final SearchProgress progress;
+
+  CandidateSearch(SearchSettings settings, SearchProgress progress) {
     this.settings = Objects.requireNonNull(settings, "settings");
-    this.emit = Objects.requireNonNull(emit, "emit");
     this.progress = Objects.requireNonNull(progress, "progress");
-    this.emitter = CandidateEmitter.of(emit);
   }
 
   /** Every candidate scored and measured, the ones within the budget ranked, and the frontier. */
@@ -45,7 +44,7 @@ final class CandidateSearch {
    * @throws InputException if there are no rows to score on, the folds do not fit the rows, or
    *     not even the smallest candidate fits the budget
    */
-  Result run(BudgetSelection.Data data, HeaderInfo candidateHeader, SizeMeter meter)
+  Result run(BudgetSelection.Data data, HeaderInfo candidateHeader, SearchMeter<?> meter)
       throws InputException {
     Dataset pool = data.train().concat(data.validation());
     if (settings.folds() == 0 && data.validation().rows() == 0) {
@@ -65,7 +64,7 @@ final class CandidateSearch {
         : CandidateScorer.crossValidated(trees, pool, settings, progress);
     List<Candidate> candidates = measure(trees, scores, candidateHeader, meter);
     List<Candidate> usable = candidates.stream()
-        .filter(c -> c.sizes().maxMethodBytes() <= emit.maxMethodBytes())
+        .filter(c -> meter.usable(c.sizes()))
         .toList();
     List<Candidate> ranked = Ranking.withinBudget(usable, settings.unit(), settings.budget());
     if (ranked.isEmpty()) {
@@ -76,32 +75,17 @@ final class CandidateSearch {
   }
 
   private List<Candidate> measure(List<DistinctTree> trees, double[] scores,
-      HeaderInfo candidateHeader, SizeMeter meter) {
+      HeaderInfo candidateHeader, SearchMeter<?> meter) throws InputException {
     List<Candidate> candidates = new ArrayList<>(trees.size());
     progress.update("measuring", 0, trees.size());
-    for (int start = 0; start < trees.size(); start += SizeMeter.BATCH_SOURCES) {
-      List<DistinctTree> chunk = trees.subList(start, Math.min(trees.size(),
-          start + SizeMeter.BATCH_SOURCES));
-      List<EmittedSource> sources = new ArrayList<>();
-      List<Integer> variants = new ArrayList<>();
-      for (DistinctTree g : chunk) {
-        List<EmittedSource> emitted = emitter.emit(g.tree(), candidateHeader);
-        sources.addAll(emitted);
-        variants.add(emitted.size());
-      }
-      List<Sizes> sizes = meter.measure(sources);
-      int at = 0;
+    for (int start = 0; start < trees.size(); start += CHUNK) {
+      List<DistinctTree> chunk = trees.subList(start, Math.min(trees.size(), start + CHUNK));
+      List<DecisionTree> shapes = chunk.stream().map(DistinctTree::tree).toList();
+      List<SearchMeter.Measured> sizes = meter.measure(shapes, candidateHeader);
       for (int i = 0; i < chunk.size(); i++) {
-        int pick = at;
-        for (int v = at + 1; v < at + variants.get(i); v++) {
-          if (sizes.get(v).in(settings.unit()) < sizes.get(pick).in(settings.unit())) {
-            pick = v;
-          }
-        }
         DistinctTree g = chunk.get(i);
         candidates.add(new Candidate(g.index(), g.recipe(), g.tree(), scores[g.index()],
-            sizes.get(pick), sources.get(pick).layout()));
-        at += variants.get(i);
+            sizes.get(i).sizes(), sizes.get(i).layout()));
       }
       progress.update("measuring", start + chunk.size(), trees.size());
     }
@@ -109,7 +93,7 @@ final class CandidateSearch {
   }
 
   private InputException tooSmall(List<Candidate> candidates, HeaderInfo header,
-      SizeMeter meter) {
+      SearchMeter<?> meter) throws InputException {
     Candidate smallest = candidates.stream()
         .min(Comparator.comparingInt((Candidate c) -> c.size(settings.unit()))
             .thenComparingInt(c -> c.tree().leafCount())
@@ -121,14 +105,11 @@ final class CandidateSearch {
         "%d bytes is too small: the smallest classifier for this data (%d %s) has a %s of %d "
             + "bytes", settings.budget(), leaves, leaves == 1 ? "leaf" : "leaves",
         settings.unit().description(), least);
-    if (emit.bare()) {
+    OptionalInt measuredBare = meter.bareSize(smallest.tree(), header);
+    if (measuredBare.isEmpty()) {
       return new InputException("budget", problem, "give --budget " + least + " or more");
     }
-    // Measured, not estimated: the same tree emitted with --bare and compiled once.
-    int bare = CandidateEmitter.of(emit.toBuilder().bare(true).build())
-        .emit(smallest.tree(), header).stream()
-        .mapToInt(source -> meter.measureAlone(source).in(settings.unit()))
-        .min().orElse(least);
+    int bare = measuredBare.getAsInt();
     String remedy = bare <= settings.budget()
         ? String.format(Locale.ROOT, "add --bare (no label and feature tables), which makes "
             + "this classifier %d bytes; or give --budget %d or more", bare, least)

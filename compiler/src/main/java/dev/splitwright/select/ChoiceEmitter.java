@@ -1,10 +1,7 @@
 package dev.splitwright.select;
 
-import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
-import dev.splitwright.emit.EmitOptions;
-import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.model.DecisionTree;
 import java.util.ArrayList;
@@ -17,30 +14,33 @@ import java.util.function.Function;
  * Turns the ranking into the emitted classifier: takes the candidates best first, refits each one
  * if the rows differ, emits it with the real header, compiles and measures it, and keeps the first
  * that still fits the budget, noting every one that did not.
+ *
+ * @param <E> what the language emits
  */
-final class ChoiceEmitter {
+final class ChoiceEmitter<E> {
   private final SearchSettings settings;
-  private final EmitOptions emit;
-  private final CandidateEmitter emitter;
+  private final SearchMeter<E> meter;
 
-  ChoiceEmitter(SearchSettings settings, EmitOptions emit) {
+  ChoiceEmitter(SearchSettings settings, SearchMeter<E> meter) {
     this.settings = Objects.requireNonNull(settings, "settings");
-    this.emit = Objects.requireNonNull(emit, "emit");
-    this.emitter = CandidateEmitter.of(emit);
+    this.meter = Objects.requireNonNull(meter, "meter");
   }
 
   /**
    * The candidate taken and the file emitted for it.
    *
    * @param tree the candidate's tree, or its refit
-   * @param classes {@code source} compiled under its real name
    * @param fallbacks one line for each better candidate whose emitted file broke the budget
    */
-  record Choice(Candidate candidate, DecisionTree tree, EmittedSource source,
-      CompiledClasses classes, Sizes sizes, List<String> fallbacks) {
+  record Choice<E>(Candidate candidate, DecisionTree tree, SearchMeter.Emitted<E> emitted,
+      List<String> fallbacks) {
 
     Choice {
       fallbacks = List.copyOf(fallbacks);
+    }
+
+    Sizes sizes() {
+      return emitted.sizes();
     }
   }
 
@@ -50,8 +50,8 @@ final class ChoiceEmitter {
    * @param finalHeader the header of the emitted classifier, given its tree
    * @throws InputException if no ranked candidate fits once emitted
    */
-  Choice choose(List<Candidate> ranked, Dataset train, Dataset validation,
-      Function<DecisionTree, HeaderInfo> finalHeader, SizeMeter meter) throws InputException {
+  Choice<E> choose(List<Candidate> ranked, Dataset train, Dataset validation,
+      Function<DecisionTree, HeaderInfo> finalHeader) throws InputException {
     Dataset refitRows = settings.refitAll() ? train.concat(validation) : train;
     boolean refit = settings.refitAll() && settings.folds() == 0;
     List<String> fallbacks = new ArrayList<>();
@@ -60,10 +60,10 @@ final class ChoiceEmitter {
       DecisionTree tree = refit
           ? CandidateGenerator.refit(refitRows, settings, candidate.recipe())
           : candidate.tree();
-      Choice best = emitSmallest(candidate, tree, finalHeader.apply(tree), meter, fallbacks);
-      int size = best.sizes().in(settings.unit());
-      if (size <= settings.budget() && best.sizes().maxMethodBytes() <= emit.maxMethodBytes()) {
-        return best;
+      SearchMeter.Emitted<E> emitted = meter.emit(tree, finalHeader.apply(tree));
+      int size = emitted.sizes().in(settings.unit());
+      if (size <= settings.budget() && meter.usable(emitted.sizes())) {
+        return new Choice<>(candidate, tree, emitted, fallbacks);
       }
       fallbacks.add(String.format(Locale.ROOT, "candidate ranked %d (max-depth %d, min-leaf %d, "
           + "alpha %s) weighs %d bytes as emitted%s, over the budget; took the next", rank + 1,
@@ -74,19 +74,5 @@ final class ChoiceEmitter {
     throw new InputException("budget", "no candidate fits the budget of " + settings.budget()
         + " bytes as emitted" + (refit ? " after refitting on train+validation" : ""),
         refit ? "raise --budget or leave out --refit-all" : "raise --budget");
-  }
-
-  /** The smallest layout of {@code tree}, compiled under its real name. */
-  private Choice emitSmallest(Candidate candidate, DecisionTree tree, HeaderInfo header,
-      SizeMeter meter, List<String> fallbacks) {
-    Choice best = null;
-    for (EmittedSource source : emitter.emit(tree, header)) {
-      CompiledClasses classes = meter.compileAlone(source);
-      Sizes sizes = meter.measured(classes, source);
-      if (best == null || sizes.in(settings.unit()) < best.sizes().in(settings.unit())) {
-        best = new Choice(candidate, tree, source, classes, sizes, fallbacks);
-      }
-    }
-    return best;
   }
 }

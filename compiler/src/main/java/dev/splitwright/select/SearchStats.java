@@ -1,5 +1,7 @@
 package dev.splitwright.select;
 
+import java.util.Objects;
+
 /**
  * What the search did and how long it took. Kept out of the report, whose bytes must not depend on
  * timing.
@@ -7,17 +9,22 @@ package dev.splitwright.select;
  * @param settingsTried pruning-path entries over all depth and leaf-size limits
  * @param distinctTrees candidates left after removing equal trees
  * @param sourcesCompiled emitted sources compiled to measure them
- * @param javacRuns compiler runs the measuring took
+ * @param compiler the compiler that measured them, e.g. {@code javac} or {@code cc}
+ * @param compilerRuns runs of it the measuring took
  * @param d8Runs D8 runs the measuring took, 0 unless the budget counts DEX bytes
  * @param elapsedNanos wall time of the whole search, refit and final check included
  */
 public record SearchStats(int settingsTried, int distinctTrees, int sourcesCompiled,
-    int javacRuns, int d8Runs, long elapsedNanos) {
+    String compiler, int compilerRuns, int d8Runs, long elapsedNanos) {
 
-  /** Statistics of a search that ran no D8. */
+  public SearchStats {
+    Objects.requireNonNull(compiler, "compiler");
+  }
+
+  /** Statistics of a search that ran javac and no D8. */
   public SearchStats(int settingsTried, int distinctTrees, int sourcesCompiled, int javacRuns,
       long elapsedNanos) {
-    this(settingsTried, distinctTrees, sourcesCompiled, javacRuns, 0, elapsedNanos);
+    this(settingsTried, distinctTrees, sourcesCompiled, "javac", javacRuns, 0, elapsedNanos);
   }
 
   /** Elapsed seconds. */

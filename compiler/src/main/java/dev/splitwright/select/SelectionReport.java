@@ -67,18 +67,20 @@ public record SelectionReport(
    * {@link #checkOneScore}) and the measured sizes of the file written.
    *
    * @param size the emitted classifier's size in the budget's unit
-   * @param classFileBytes javac's default debug information: source file and line numbers
+   * @param classFileBytes javac's default debug information: source file and line numbers; null
+   *     (left out) for C, as are the other class-file figures and the bytecode
    * @param classFileBytesNoDebug compiled with {@code -g:none}
    * @param classFileBytesFullDebug compiled with {@code -g}, as a default Maven build does
+   * @param flashBytes the C object file's flash bytes; null (left out) for Java
    */
   @JsonInclude(JsonInclude.Include.NON_NULL)
   @JsonPropertyOrder({"maxDepth", "minLeaf", "alpha", "depth", "leaves", "validationScore",
       "crossValidatedScore", "size", "layout", "classFileBytes", "classFileBytesNoDebug",
-      "classFileBytesFullDebug", "bytecodeBytes", "sourceBytes"})
+      "classFileBytesFullDebug", "bytecodeBytes", "flashBytes", "sourceBytes"})
   public record Chosen(int maxDepth, int minLeaf, double alpha, int depth, int leaves,
       Double validationScore, Double crossValidatedScore, int size, String layout,
-      int classFileBytes, int classFileBytesNoDebug, int classFileBytesFullDebug,
-      int bytecodeBytes, int sourceBytes) {
+      Integer classFileBytes, Integer classFileBytesNoDebug, Integer classFileBytesFullDebug,
+      Integer bytecodeBytes, Integer flashBytes, int sourceBytes) {
 
     public Chosen {
       checkOneScore(validationScore, crossValidatedScore);

@@ -10,18 +10,18 @@ final class SelectionReportBuilder {
   /**
    * The section for {@code choice}, taken from {@code search}.
    *
-   * @param noDebugBytes the emitted classifier compiled with {@code -g:none}
-   * @param fullDebugBytes the same compiled with {@code -g}
+   * @param bytes the emitted classifier's figures beside its size
    */
   static SelectionReport build(SearchSettings settings, CandidateSearch.Result search,
-      ChoiceEmitter.Choice choice, int noDebugBytes, int fullDebugBytes) {
+      ChoiceEmitter.Choice<?> choice, SearchMeter.ChosenBytes bytes) {
     Sizes s = choice.sizes();
     CandidateRecipe recipe = choice.candidate().recipe();
     SelectionReport.Chosen picked = new SelectionReport.Chosen(recipe.maxDepth(),
         recipe.minLeaf(), recipe.alpha(), choice.tree().depth(), choice.tree().leafCount(),
         validation(settings, choice.candidate()), crossValidated(settings, choice.candidate()),
-        s.in(settings.unit()), choice.source().layout().optionName(),
-        s.classFileBytes(), noDebugBytes, fullDebugBytes, s.bytecodeBytes(), s.sourceBytes());
+        s.in(settings.unit()), choice.emitted().layout().optionName(), bytes.classFile(),
+        bytes.classFileNoDebug(), bytes.classFileFullDebug(), bytes.bytecode(), bytes.flash(),
+        s.sourceBytes());
     List<SelectionReport.Point> frontier = new ArrayList<>();
     for (Candidate c : search.frontier()) {
       frontier.add(new SelectionReport.Point(c.size(settings.unit()), validation(settings, c),

@@ -17,14 +17,11 @@ import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.train.CartTrainer;
 import dev.splitwright.train.TrainingOptions;
-import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.List;
 import java.util.Map;
-import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
@@ -57,33 +54,6 @@ class FlashBytesTest {
 
     long ours = ElfFile.parse(Files.readAllBytes(object)).flashBytes();
 
-    assertThat(ours).isPositive().isEqualTo(binutilsFlash(size, object));
-  }
-
-  /** {@code size -A}: one line per allocated section, "name size address". */
-  private static long binutilsFlash(String size, Path object) throws IOException,
-      InterruptedException {
-    Process process = new ProcessBuilder(size, "-A", object.toString())
-        .redirectErrorStream(true).start();
-    String text = new String(process.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
-    assertThat(process.waitFor(60, TimeUnit.SECONDS)).isTrue();
-    assertThat(process.exitValue()).as(text).isZero();
-    long total = 0;
-    for (String line : text.lines().toList()) {
-      String[] cols = line.trim().split("\\s+");
-      if (cols.length == 3 && cols[1].matches("\\d+") && flashName(cols[0])) {
-        total += Long.parseLong(cols[1]);
-      }
-    }
-    return total;
-  }
-
-  private static boolean flashName(String name) {
-    for (String base : List.of(".text", ".rodata", ".data")) {
-      if (name.equals(base) || name.startsWith(base + ".")) {
-        return true;
-      }
-    }
-    return false;
+    assertThat(ours).isPositive().isEqualTo(BinutilsSize.flashBytes(size, object));
   }
 }

@@ -333,8 +333,10 @@ class BudgetCommandTest {
   void rejectsBadSearchValues(@TempDir Path dir) {
     String[][] cases = {
         {"--folds", "1", "option '--folds' must be at least 2, but it is 1"},
-        {"--budget-unit", "bits", "option '--budget-unit' must be class, bytecode, source or dex, "
-            + "but it is 'bits'"},
+        {"--budget-unit", "bits", "option '--budget-unit' must be class, bytecode, source or dex "
+            + "with --emit java, but it is 'bits'"},
+        {"--budget-unit", "flash", "option '--budget-unit' must be class, bytecode, source or dex "
+            + "with --emit java, but it is 'flash'"},
         {"--metric", "f2", "option '--metric' must be accuracy, balanced-accuracy or macro-f1, but "
             + "it is 'f2'"}};
     for (String[] c : cases) {

@@ -27,7 +27,7 @@ class EmitCCommandTest {
 
   @ParameterizedTest
   @ValueSource(strings = {"--package=com.example", "--named-args", "--max-method-bytes=9000",
-      "--dex-size", "--min-api=30", "--budget-unit=dex", "--budget-unit=class"})
+      "--dex-size", "--min-api=30"})
   void javaOnlyOptionsAreRefusedBeforeAnyDataIsRead(String option) {
     // The data file does not exist: an error naming the option, not the file, proves the option
     // was refused before the data was read.
@@ -50,13 +50,16 @@ class EmitCCommandTest {
     assertThat(run.err()).contains("--cflags").doesNotContain("absent.csv");
   }
 
-  @Test
-  void aBudgetIsRefusedBeforeAnyDataIsRead() {
+  @ParameterizedTest
+  @ValueSource(strings = {"class", "dex", "bytecode", "source"})
+  void aJavaBudgetUnitIsRefusedBeforeAnyDataIsRead(String unit) {
     Path out = temp.resolve("out");
-    CliRun run = CliRun.of(args(temp.resolve("absent.csv"), out, "--budget", "2KiB"));
+    CliRun run = CliRun.of(args(temp.resolve("absent.csv"), out, "--budget", "2KiB",
+        "--budget-unit", unit));
 
     assertThat(run.exitCode()).isEqualTo(2);
-    assertThat(run.err()).contains("--budget").doesNotContain("absent.csv");
+    assertThat(run.err().strip()).isEqualTo("error: option '--budget-unit' must be flash with "
+        + "--emit c, but it is '" + unit + "' (see 'splitwright compile --help')");
     assertThat(out).doesNotExist();
   }
 
@@ -81,6 +84,26 @@ class EmitCCommandTest {
 
     assertThat(run.exitCode()).isEqualTo(2);
     assertThat(run.err()).contains("--cflags").contains("pump_state").contains("error");
+    assertThat(run.err().strip().lines()).hasSize(1);
+    assertThat(out).doesNotExist();
+  }
+
+  @Test
+  void emittedCTheHostCompilerRejectsIsOurBugExitThreeWithItsFirstErrorLine() throws IOException {
+    // A stand-in host compiler that answers --version and rejects every file, as a compiler
+    // would reject emitted C it cannot build; the target compiler (cc) still measures.
+    Path fake = temp.resolve("rejecting-cc");
+    Files.writeString(fake, "#!/bin/sh\nfor a in \"$@\"; do\n  if [ \"$a\" = --version ]; then "
+        + "echo 'rejecting-cc 1.0'; exit 0; fi\ndone\necho 'pump_state.c:9:1: error: injected "
+        + "failure' >&2\necho 'pump_state.c:9:1: note: second line' >&2\nexit 1\n");
+    assertThat(fake.toFile().setExecutable(true)).isTrue();
+    Path out = temp.resolve("out");
+    CliRun run = CliRun.of(args(DemoFiles.pump(), out, "--host-cc", fake.toString(), "--cc",
+        "cc"));
+
+    assertThat(run.exitCode()).isEqualTo(3);
+    assertThat(run.err()).contains("pump_state.c:9:1: error: injected failure")
+        .doesNotContain("second line");
     assertThat(run.err().strip().lines()).hasSize(1);
     assertThat(out).doesNotExist();
   }

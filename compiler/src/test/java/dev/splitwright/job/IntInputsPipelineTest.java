@@ -89,7 +89,7 @@ class IntInputsPipelineTest {
     assertThat(v.inputsChecked()).isGreaterThan(rows + 6L * splits);
 
     // Every comparison is against a whole number: the largest int at or below the threshold.
-    String source = ints.source().source();
+    String source = ints.emission().files().get(0).text();
     assertThat(source).contains("public static int classify(int[] x)");
     Matcher m = Pattern.compile("x\\[(\\d)] <= (-?\\d+)\\)").matcher(source);
     int comparisons = 0;

@@ -9,6 +9,7 @@ import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.EmitOptions;
+import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.eval.Evaluator;
 import dev.splitwright.eval.Fold;
@@ -25,6 +26,7 @@ import dev.splitwright.verify.Verifier;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -48,16 +50,17 @@ class BudgetSelectionTest {
     verifier.compiler().close();
   }
 
-  private static BudgetSelection selection(SearchSettings settings) {
-    return new BudgetSelection(settings, EMIT, verifier, SearchProgress.none());
+  private static BudgetSelection<LayoutChoice> selection(SearchSettings settings) {
+    return BudgetSelection.java(settings, EMIT, verifier, SearchProgress.none());
   }
 
   private static CandidateSearch.Result search(SearchSettings settings) throws InputException {
-    return new CandidateSearch(settings, EMIT, SearchProgress.none())
-        .run(data, HeaderInfo.none(), new SizeMeter(verifier.compiler()));
+    return new CandidateSearch(settings, SearchProgress.none()).run(data, HeaderInfo.none(),
+        new JavaSearchMeter(settings.unit(), EMIT, verifier, Optional.empty()));
   }
 
-  private static BudgetSelection.Outcome run(SearchSettings settings) throws InputException {
+  private static BudgetSelection.Outcome<LayoutChoice> run(SearchSettings settings)
+      throws InputException {
     return selection(settings).run(data, HeaderInfo.none(), tree -> HeaderInfo.none());
   }
 
@@ -89,7 +92,7 @@ class BudgetSelectionTest {
 
   @Test
   void emitsTheChosenCandidateAsMeasured() throws InputException {
-    BudgetSelection.Outcome outcome = run(SearchSettings.builder(2048).build());
+    BudgetSelection.Outcome<LayoutChoice> outcome = run(SearchSettings.builder(2048).build());
 
     assertThat(outcome.verification().passed()).isTrue();
     SelectionReport.Chosen chosen = outcome.report().chosen();
@@ -102,34 +105,35 @@ class BudgetSelectionTest {
     assertThat(outcome.report().fallbacks()).isEmpty();
     assertThat(outcome.stats().distinctTrees()).isEqualTo(outcome.report().distinctTrees());
     // One run per batch of a hundred sources, one for the emitted file.
-    assertThat(outcome.stats().javacRuns())
+    assertThat(outcome.stats().compilerRuns())
         .isEqualTo((outcome.stats().distinctTrees() + 99) / 100 + 1);
   }
 
   @Test
   void sameInputsGiveByteIdenticalReportAndChart() throws InputException {
     SearchSettings settings = SearchSettings.builder(1800).maxDepth(5).build();
-    BudgetSelection.Outcome first = run(settings);
-    BudgetSelection.Outcome second = run(settings);
+    BudgetSelection.Outcome<LayoutChoice> first = run(settings);
+    BudgetSelection.Outcome<LayoutChoice> second = run(settings);
 
     assertThat(ReportJson.render(second.report())).isEqualTo(ReportJson.render(first.report()));
     assertThat(second.candidates()).isEqualTo(first.candidates());
     assertThat(second.frontier()).isEqualTo(first.frontier());
-    assertThat(second.source().source()).isEqualTo(first.source().source());
+    assertThat(second.emitted().source()).isEqualTo(first.emitted().source());
   }
 
   @Test
   void countsBytecodeAndSourceUnits() throws Exception {
     for (BudgetUnit unit : List.of(BudgetUnit.BYTECODE, BudgetUnit.SOURCE)) {
       int budget = unit == BudgetUnit.BYTECODE ? 300 : 6000;
-      BudgetSelection.Outcome outcome =
+      BudgetSelection.Outcome<LayoutChoice> outcome =
           run(SearchSettings.builder(budget).unit(unit).maxDepth(6).build());
 
+      EmittedSource source = outcome.emitted().source();
       CompiledClasses classes = verifier.compiler()
-          .compileOne(outcome.source().qualifiedName(), outcome.source().source());
+          .compileOne(source.qualifiedName(), source.source());
       int measured = unit == BudgetUnit.BYTECODE
-          ? ClassFileInfo.parse(classes.bytes(outcome.source().qualifiedName())).totalCodeLength()
-          : outcome.source().source().getBytes(StandardCharsets.UTF_8).length;
+          ? ClassFileInfo.parse(classes.bytes(source.qualifiedName())).totalCodeLength()
+          : source.source().getBytes(StandardCharsets.UTF_8).length;
       assertThat(measured).as("%s", unit).isLessThanOrEqualTo(budget)
           .isEqualTo(outcome.report().chosen().size());
       assertThat(outcome.report().budgetUnit()).isEqualTo(unit.optionName());
@@ -172,7 +176,7 @@ class BudgetSelectionTest {
     for (int budget : budgets.subList(Math.max(0, budgets.size() - 4), budgets.size())) {
       SearchSettings settings =
           SearchSettings.builder(budget).maxDepth(6).refitAll(true).build();
-      BudgetSelection.Outcome outcome = run(settings);
+      BudgetSelection.Outcome<LayoutChoice> outcome = run(settings);
       SelectionReport.Chosen chosen = outcome.report().chosen();
 
       assertThat(outcome.report().refitOn()).isEqualTo("train+validation");
@@ -203,7 +207,7 @@ class BudgetSelectionTest {
         finished.add(stats);
       }
     };
-    BudgetSelection selection = new BudgetSelection(
+    BudgetSelection<LayoutChoice> selection = BudgetSelection.java(
         SearchSettings.builder(1000).maxDepth(3).build(), EMIT, verifier, recorder);
     assertThatThrownBy(() -> selection.run(data, HeaderInfo.none(), tree -> HeaderInfo.none()))
         .isInstanceOf(InputException.class)
@@ -244,7 +248,7 @@ class BudgetSelectionTest {
         events.add("finished " + stats.distinctTrees());
       }
     };
-    BudgetSelection.Outcome outcome = new BudgetSelection(
+    BudgetSelection.Outcome<LayoutChoice> outcome = BudgetSelection.java(
         SearchSettings.builder(2048).maxDepth(4).build(), EMIT, verifier, recorder)
         .run(data, HeaderInfo.none(), tree -> HeaderInfo.none());
 

@@ -101,9 +101,9 @@ class DexMeterTest {
     BudgetSelection.Data data = new BudgetSelection.Data(pump.train(), pump.validation(),
         List.of(pump.train()), 1);
     Verifier verifier = Verifier.create();
-    BudgetSelection.Outcome outcome;
+    BudgetSelection.Outcome<LayoutChoice> outcome;
     try {
-      outcome = new BudgetSelection(settings, options, verifier, SearchProgress.none(),
+      outcome = BudgetSelection.java(settings, options, verifier, SearchProgress.none(),
           Optional.of(DexMeter.forMinApi(24))).run(data, HeaderInfo.none(),
               t -> HeaderInfo.none());
     } finally {
