@@ -52,8 +52,11 @@ public final class ForestTrainer {
         copies[row]++;
         counts[labels[row]]++;
       }
+      // Drawing every feature would only reorder them and with it the ties: search all, as CART.
+      FeatureSampler sampler =
+          perNode < features ? new FeatureSampler(features, perNode, random) : null;
       trees.add(new TreeGrower(train.schema(), sorted.resample(copies, n), counts, n,
-          options.tree(), classWeights, new FeatureSampler(features, perNode, random)).grow());
+          options.tree(), classWeights, sampler).grow());
     }
     return TreeEnsemble.forest(trees);
   }
