@@ -174,8 +174,8 @@ public final class ModelFile {
 
   /**
    * Reads a model file of a single tree, checking all of it: a version other than {@link
-   * #VERSION} (an ensemble's {@link #ENSEMBLE_VERSION} included: see {@link #loadAny}), a missing or
-   * malformed {@code trainedOn}, JSON nested deeper than {@link #MAX_NESTING}, a
+   * #VERSION} (an ensemble's {@link #ENSEMBLE_VERSION} included: see {@link #loadAny}), a
+   * missing or malformed {@code trainedOn}, JSON nested deeper than {@link #MAX_NESTING}, a
    * duplicate member, an unknown member, an index, code, count or threshold out of range, a tree
    * deeper than {@link DecisionTree#MAX_DEPTH}, or counts that do not add up are refused.
    *
