@@ -56,7 +56,8 @@ public final class ModelFile {
   public static final int ENSEMBLE_VERSION = 3;
 
   /**
-   * Deepest JSON nesting read. A model file needs four levels (file, node list, node, counts);
+   * Deepest JSON nesting read. A model file needs four levels (file, node list, node, counts), six
+   * for an ensemble (file, tree list, tree, node list, node, counts);
    * limiting it in the parser keeps a hostile file from running anything deep.
    */
   static final int MAX_NESTING = 32;

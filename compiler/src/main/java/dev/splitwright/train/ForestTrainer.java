@@ -13,7 +13,7 @@ import java.util.SplittableRandom;
  * bootstrap sample of the training rows (as many draws as rows, with replacement), and each of its
  * nodes searches only a fresh random subset of the features ({@link FeatureSampler}). The trees
  * are capped by the depth, leaf and leaf-size limits of {@link ForestOptions#tree()}; there is no
- * pruning.
+ * pruning. A tree's node counts count its sample's rows, repeats included.
  *
  * <p>Deterministic: the generator seeded with {@link ForestOptions#seed()} is split once per tree
  * in tree order ({@link SplittableRandom#split()}), and that tree's stream draws first its sample,
