@@ -201,6 +201,6 @@ public final class TreeEnsemble implements Classifier {
 
   @Override
   public String toString() {
-    return kind.fileName() + " of " + trees.size() + " trees";
+    return kind.fileName() + " of " + trees.size() + (trees.size() == 1 ? " tree" : " trees");
   }
 }
