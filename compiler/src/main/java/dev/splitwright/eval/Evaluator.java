@@ -1,14 +1,14 @@
 package dev.splitwright.eval;
 
 import dev.splitwright.data.Dataset;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 
-/** Scores a tree on a data set. */
+/** Scores a tree or an ensemble on a data set. */
 public final class Evaluator {
   private Evaluator() {}
 
   /** Predicts every row of {@code data} and scores the predictions. */
-  public static Scores score(DecisionTree tree, Dataset data) {
+  public static Scores score(Classifier tree, Dataset data) {
     int k = tree.schema().classCount();
     int[][] confusion = new int[k][k];
     float[] x = new float[data.featureCount()];

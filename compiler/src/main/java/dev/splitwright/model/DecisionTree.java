@@ -10,7 +10,7 @@ import java.util.Objects;
  * An immutable trained classification tree over a {@link Schema}. {@link #predict} is the oracle
  * that emitted code is verified against.
  */
-public final class DecisionTree {
+public final class DecisionTree implements Classifier {
   /**
    * Deepest tree the pipeline takes, trained ({@code --max-depth}) or read from a model file: the
    * emitter and javac's parser recurse once per level (see {@code cli.Limits}).
@@ -63,6 +63,7 @@ public final class DecisionTree {
     }
   }
 
+  @Override
   public Schema schema() {
     return schema;
   }
@@ -84,7 +85,7 @@ public final class DecisionTree {
     return internalNodes;
   }
 
-  /** Returns the class index for input {@code x}, given in feature order. */
+  @Override
   public int predict(float[] x) {
     return leafFor(x).prediction();
   }

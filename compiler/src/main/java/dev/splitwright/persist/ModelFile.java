@@ -12,6 +12,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.json.JsonMapper;
 import dev.splitwright.data.DataFile;
 import dev.splitwright.data.InputException;
+import dev.splitwright.data.Schema;
 import dev.splitwright.data.SourcePosition;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
@@ -19,6 +20,7 @@ import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.report.ReportJson;
 import dev.splitwright.text.DecimalText;
 import java.io.IOException;
@@ -47,7 +49,15 @@ public final class ModelFile {
   public static final int VERSION = 2;
 
   /**
-   * Deepest JSON nesting read. A model file needs four levels (file, node list, node, counts);
+   * Version 3 holds an ensemble ({@code kind} forest or boosted, a list of {@code trees}, each
+   * with its nodes as in version 2 and, if boosted, its {@code weight}). A single tree is still
+   * written as version 2, so files of single trees stay readable by earlier builds.
+   */
+  public static final int ENSEMBLE_VERSION = 3;
+
+  /**
+   * Deepest JSON nesting read. A model file needs four levels (file, node list, node, counts), six
+   * for an ensemble (file, tree list, tree, node list, node, counts);
    * limiting it in the parser keeps a hostile file from running anything deep.
    */
   static final int MAX_NESTING = 32;
@@ -72,15 +82,51 @@ public final class ModelFile {
   /** Serialises a tree, the data file it was trained on and the options that trained it. */
   public static String toJson(DecisionTree tree, DataFile trainedOn,
       Map<String, Object> training) {
-    List<ModelJson.NodeJson> nodes = new ArrayList<>();
-    flatten(tree.root(), nodes);
-    List<ModelJson.FeatureJson> features = tree.schema().features().stream()
+    ModelJson json = new ModelJson(FORMAT, VERSION, trainedOn, tree.schema().target(),
+        tree.schema().classes(), features(tree.schema()), training, nodes(tree));
+    return ReportJson.render(json);
+  }
+
+  /** Serialises an ensemble (version 3): writing what {@link #loadAny} read gives its bytes. */
+  public static String toJson(SavedEnsemble model) {
+    return toJson(model.ensemble(), model.trainedOn(), model.training());
+  }
+
+  /**
+   * Serialises an ensemble, the data file it was trained on and the options that trained it;
+   * weights are written as the shortest decimal text that reads back as the float.
+   */
+  public static String toJson(TreeEnsemble ensemble, DataFile trainedOn,
+      Map<String, Object> training) {
+    boolean boosted = ensemble.kind() == TreeEnsemble.Kind.BOOSTED;
+    List<ModelJson.TreeJson> trees = new ArrayList<>();
+    for (int t = 0; t < ensemble.treeCount(); t++) {
+      trees.add(new ModelJson.TreeJson(
+          boosted ? DecimalText.shortest(ensemble.weight(t)) : null,
+          nodes(ensemble.trees().get(t))));
+    }
+    ModelJson.EnsembleJson json = new ModelJson.EnsembleJson(FORMAT, ENSEMBLE_VERSION,
+        ensemble.kind().fileName(), trainedOn, ensemble.schema().target(),
+        ensemble.schema().classes(), features(ensemble.schema()), training, trees);
+    return ReportJson.render(json);
+  }
+
+  /** Serialises a tree (version 2) or an ensemble (version 3). */
+  public static String toJson(SavedClassifier model) {
+    return model instanceof SavedModel tree ? toJson(tree) : toJson((SavedEnsemble) model);
+  }
+
+  private static List<ModelJson.FeatureJson> features(Schema schema) {
+    return schema.features().stream()
         .map(f -> new ModelJson.FeatureJson(f.name(), f.isCategorical() ? "categorical" : "numeric",
             f.categories()))
         .toList();
-    ModelJson json = new ModelJson(FORMAT, VERSION, trainedOn, tree.schema().target(),
-        tree.schema().classes(), features, training, nodes);
-    return ReportJson.render(json);
+  }
+
+  private static List<ModelJson.NodeJson> nodes(DecisionTree tree) {
+    List<ModelJson.NodeJson> nodes = new ArrayList<>();
+    flatten(tree.root(), nodes);
+    return nodes;
   }
 
   private static int flatten(Node node, List<ModelJson.NodeJson> out) {
@@ -113,6 +159,11 @@ public final class ModelFile {
     Files.writeString(file, toJson(model), StandardCharsets.UTF_8);
   }
 
+  /** Writes the model file of a tree or an ensemble. */
+  public static void write(Path file, SavedClassifier model) throws IOException {
+    Files.writeString(file, toJson(model), StandardCharsets.UTF_8);
+  }
+
   /**
    * Reads a model file's tree; see {@link #load}.
    *
@@ -123,8 +174,9 @@ public final class ModelFile {
   }
 
   /**
-   * Reads a model file, checking all of it: a version other than {@link #VERSION}, a missing or
-   * malformed {@code trainedOn}, JSON nested deeper than {@link #MAX_NESTING}, a
+   * Reads a model file of a single tree, checking all of it: a version other than {@link
+   * #VERSION} (an ensemble's {@link #ENSEMBLE_VERSION} included: see {@link #loadAny}), a
+   * missing or malformed {@code trainedOn}, JSON nested deeper than {@link #MAX_NESTING}, a
    * duplicate member, an unknown member, an index, code, count or threshold out of range, a tree
    * deeper than {@link DecisionTree#MAX_DEPTH}, or counts that do not add up are refused.
    *
@@ -132,6 +184,25 @@ public final class ModelFile {
    *     invalid tree; its one-line message names the file and the place in it
    */
   public static SavedModel load(Path file) throws InputException {
+    SavedClassifier model = loadAny(file);
+    if (model instanceof SavedEnsemble ensemble) {
+      // Until ensembles can be emitted, the commands that re-emit take single trees only.
+      throw new InputException(SourcePosition.ofFile(String.valueOf(file.getFileName())),
+          "/version: expected version " + VERSION + " (a single tree; this build does not "
+              + "emit ensembles yet) but found version " + ENSEMBLE_VERSION + " (a "
+              + ensemble.ensemble() + ")", "pass a model file of a single tree");
+    }
+    return (SavedModel) model;
+  }
+
+  /**
+   * Reads a model file of a single tree (version 2) or an ensemble (version 3), checking all of
+   * it as {@link #load} does; in an ensemble every tree is checked so, and a boosted tree's
+   * weight must be a positive float32 with the weights' float32 sum finite.
+   *
+   * @throws InputException as {@link #load} does
+   */
+  public static SavedClassifier loadAny(Path file) throws InputException {
     String name = String.valueOf(file.getFileName());
     JsonNode root;
     String text = "";

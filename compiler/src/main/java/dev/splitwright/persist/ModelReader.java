@@ -12,6 +12,7 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.text.DecimalText;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -24,8 +25,9 @@ import java.util.Set;
 import java.util.regex.Pattern;
 
 /**
- * Turns a parsed model file into a tree, checking every field first: a file is either a tree this
- * build could have written or it is refused with the place of the first fault. Nothing recurses
+ * Turns a parsed model file into a tree (version 2) or an ensemble (version 3), checking every
+ * field first: a file is either a model this build could have written or it is refused with the
+ * place of the first fault. Nothing recurses
  * over the file's nodes (children are built before parents, by index), and the tree's depth is
  * checked against {@link DecisionTree#MAX_DEPTH} before anything that does.
  */
@@ -35,6 +37,10 @@ final class ModelReader {
 
   private static final List<String> TOP = List.of("format", "version", "trainedOn", "target",
       "classes", "features", "training", "nodes");
+  private static final List<String> ENSEMBLE_TOP = List.of("format", "version", "kind",
+      "trainedOn", "target", "classes", "features", "training", "trees");
+  private static final List<String> FOREST_TREE = List.of("nodes");
+  private static final List<String> BOOSTED_TREE = List.of("weight", "nodes");
   private static final List<String> DATA_FILE = List.of("name", "sha256");
   private static final List<String> FEATURE = List.of("name", "kind", "categories");
   private static final List<String> NODE = List.of("feature", "threshold", "leftCodes",
@@ -52,8 +58,10 @@ final class ModelReader {
     this.maxDepth = maxDepth;
   }
 
-  SavedModel read(JsonNode root) throws BadModelException {
-    requireObject(root, "", TOP);
+  SavedClassifier read(JsonNode root) throws BadModelException {
+    if (!root.isObject()) {
+      throw new BadModelException("", "an object", describe(root));
+    }
     String format = text(root, "", "format");
     if (!format.equals(ModelFile.FORMAT)) {
       throw new BadModelException("/format", "'" + ModelFile.FORMAT + "'",
@@ -65,10 +73,13 @@ final class ModelReader {
           + " (version 1 files do not record the data the model was trained on)", "version 1",
           "train it again with compile --save-model, which records its training data");
     }
-    if (version != ModelFile.VERSION) {
-      throw new BadModelException("/version", "version " + ModelFile.VERSION
-          + " (the one this build reads)", "version " + version);
+    if (version != ModelFile.VERSION && version != ModelFile.ENSEMBLE_VERSION) {
+      throw new BadModelException("/version", "version " + ModelFile.VERSION + " or "
+          + ModelFile.ENSEMBLE_VERSION + " (the ones this build reads)", "version " + version);
     }
+    boolean ensemble = version == ModelFile.ENSEMBLE_VERSION;
+    requireObject(root, "", ensemble ? ENSEMBLE_TOP : TOP);
+    String kind = ensemble ? text(root, "", "kind", "forest", "boosted") : "tree";
     DataFile trainedOn = dataFile(root, "trainedOn");
     String target = text(root, "", "target");
     List<String> classes = distinctTexts(root, "", "classes", 1);
@@ -78,11 +89,59 @@ final class ModelReader {
       throw new BadModelException("/training", "an object", describe(training));
     }
     Schema schema = new Schema(features, target, classes);
-    DecisionTree tree = new DecisionTree(schema, nodes(root, schema));
     Map<String, Object> options = training == null ? Map.of()
         : ModelFile.MAPPER.convertValue(training, new TypeReference<LinkedHashMap<String, Object>>()
             {});
-    return new SavedModel(tree, trainedOn, options);
+    if (!ensemble) {
+      return new SavedModel(new DecisionTree(schema, nodes(root, "", schema)), trainedOn, options);
+    }
+    return new SavedEnsemble(trees(root, kind.equals("boosted"), schema), trainedOn, options);
+  }
+
+  /** Reads the {@code trees} of a version 3 file: each its nodes, and its weight if boosted. */
+  private TreeEnsemble trees(JsonNode root, boolean boosted, Schema schema)
+      throws BadModelException {
+    JsonNode array = array(root, "", "trees");
+    if (array.isEmpty() || array.size() > TreeEnsemble.MAX_TREES) {
+      throw new BadModelException("/trees", "1 to " + TreeEnsemble.MAX_TREES + " trees",
+          array.size() + " trees");
+    }
+    List<DecisionTree> trees = new ArrayList<>();
+    float[] weights = new float[array.size()];
+    float total = 0f;
+    for (int t = 0; t < array.size(); t++) {
+      String at = "/trees/" + t;
+      JsonNode tree = array.get(t);
+      requireObject(tree, at, boosted ? BOOSTED_TREE : FOREST_TREE);
+      if (boosted) {
+        weights[t] = weight(tree, at);
+        total += weights[t];
+        if (Float.isInfinite(total)) {
+          throw new BadModelException(at + "/weight", "a weight that keeps the float32 sum of "
+              + "the weights finite", InputException.quote(tree.get("weight").textValue()));
+        }
+      }
+      trees.add(new DecisionTree(schema, nodes(tree, at, schema)));
+    }
+    return boosted ? TreeEnsemble.boosted(trees, weights) : TreeEnsemble.forest(trees);
+  }
+
+  private static float weight(JsonNode tree, String at) throws BadModelException {
+    String text = text(tree, at, "weight");
+    String expected = "a positive decimal number such as 0.75 or 1.5E-3";
+    if (!DECIMAL.matcher(text).matches()) {
+      throw new BadModelException(at + "/weight", expected, InputException.quote(text));
+    }
+    float value = Float.parseFloat(text);
+    if (!(value > 0f)) {
+      throw new BadModelException(at + "/weight", "a weight above 0 (the smallest float32 is "
+          + "1.4E-45)", InputException.quote(text));
+    }
+    if (Float.isInfinite(value)) {
+      throw new BadModelException(at + "/weight", "a number within 32-bit float range",
+          InputException.quote(text));
+    }
+    return value;
   }
 
   private static DataFile dataFile(JsonNode root, String name) throws BadModelException {
@@ -131,17 +190,18 @@ final class ModelReader {
     return features;
   }
 
-  private Node nodes(JsonNode root, Schema schema) throws BadModelException {
-    JsonNode array = array(root, "", "nodes");
+  private Node nodes(JsonNode holder, String holderAt, Schema schema) throws BadModelException {
+    String prefix = holderAt + "/nodes";
+    JsonNode array = array(holder, holderAt, "nodes");
     int size = array.size();
     if (size == 0) {
-      throw new BadModelException("/nodes", "at least one node", "an empty list");
+      throw new BadModelException(prefix, "at least one node", "an empty list");
     }
     int[][] counts = new int[size][];
     int[] parent = new int[size];
     Arrays.fill(parent, -1);
     for (int i = 0; i < size; i++) {
-      String at = "/nodes/" + i;
+      String at = prefix + "/" + i;
       JsonNode n = array.get(i);
       requireObject(n, at, NODE);
       counts[i] = counts(n, at, schema.classCount());
@@ -186,20 +246,20 @@ final class ModelReader {
     int[] level = new int[size];
     for (int i = 1; i < size; i++) {
       if (parent[i] < 0) {
-        throw new BadModelException("/nodes/" + i,
+        throw new BadModelException(prefix + "/" + i,
             "a node that some split has as a child (all but the first)", "none that has");
       }
       level[i] = level[parent[i]] + 1;
       if (level[i] > maxDepth) {
-        throw new BadModelException("/nodes/" + i, "a tree at most " + maxDepth + " levels deep",
-            "a node at depth " + level[i]);
+        throw new BadModelException(prefix + "/" + i,
+            "a tree at most " + maxDepth + " levels deep", "a node at depth " + level[i]);
       }
     }
-    return build(array, counts, schema);
+    return build(array, prefix, counts, schema);
   }
 
   /** Checks each split's counts against its children's, then builds leaves-first by index. */
-  private static Node build(JsonNode array, int[][] counts, Schema schema)
+  private static Node build(JsonNode array, String prefix, int[][] counts, Schema schema)
       throws BadModelException {
     int size = array.size();
     Node[] built = new Node[size];
@@ -215,7 +275,7 @@ final class ModelReader {
       for (int c = 0; c < counts[i].length; c++) {
         long sum = (long) counts[left][c] + counts[right][c];
         if (sum != counts[i][c]) {
-          throw new BadModelException("/nodes/" + i + "/counts/" + c, sum + ", the sum of its "
+          throw new BadModelException(prefix + "/" + i + "/counts/" + c, sum + ", the sum of its "
               + "children's counts (nodes " + left + " and " + right + ")", "" + counts[i][c]);
         }
       }

@@ -14,11 +14,18 @@ import java.util.Objects;
  *
  * @param training the options that trained it, in their order (written as they were read)
  */
-public record SavedModel(DecisionTree tree, DataFile trainedOn, Map<String, Object> training) {
+public record SavedModel(DecisionTree tree, DataFile trainedOn, Map<String, Object> training)
+    implements SavedClassifier {
 
   public SavedModel {
     Objects.requireNonNull(tree, "tree");
     Objects.requireNonNull(trainedOn, "trainedOn");
     training = Collections.unmodifiableMap(new LinkedHashMap<>(training));
+  }
+
+  /** Returns the tree. */
+  @Override
+  public DecisionTree classifier() {
+    return tree;
   }
 }

@@ -1,4 +1,5 @@
 /**
- * Splitwright's JSON model file: write a trained tree, read it back to re-emit without retraining.
+ * Splitwright's JSON model file: write a trained tree or tree ensemble, read it back to re-emit
+ * without retraining.
  */
 package dev.splitwright.persist;

@@ -86,6 +86,43 @@ final class SortedColumns {
   }
 
   /**
+   * Builds the columns of a sample drawn with replacement: row {@code r} appears {@code
+   * copies[r]} times, next to its own copies. The rows stay sorted without sorting again, and
+   * this object is left as it is, so one pre-sorted copy of the training data serves every tree
+   * of an ensemble. Copies of one row keep its index, so a split sends them all the same way.
+   *
+   * @param size the sum of {@code copies}
+   */
+  SortedColumns resample(int[] copies, int size) {
+    int features = rows.length;
+    int[][] sampleRows = new int[features][size];
+    float[][] sampleValues = new float[features][size];
+    char[][] sampleLabels = new char[features][size];
+    for (int f = 0; f < features; f++) {
+      int[] fromRows = rows[f];
+      float[] fromValues = values[f];
+      char[] fromLabels = labels[f];
+      int[] toRows = sampleRows[f];
+      float[] toValues = sampleValues[f];
+      char[] toLabels = sampleLabels[f];
+      int w = 0;
+      for (int i = 0; i < fromRows.length; i++) {
+        int row = fromRows[i];
+        for (int k = copies[row]; k > 0; k--) {
+          toRows[w] = row;
+          toValues[w] = fromValues[i];
+          toLabels[w] = fromLabels[i];
+          w++;
+        }
+      }
+      if (w != size) {
+        throw new IllegalArgumentException("copies sum to " + w + ", not " + size);
+      }
+    }
+    return new SortedColumns(sampleRows, sampleValues, sampleLabels, size);
+  }
+
+  /**
    * Maps a float to an int whose unsigned order is the float's numeric order, with the canonical
    * NaN above +Infinity.
    */

@@ -48,7 +48,21 @@ final class SplitSearch {
   /** Costs of the node being searched that differ by at most this count as equal. */
   private double tolerance;
 
+  /** Restricts each node to a random subset of features; {@code null} searches them all. */
+  private final FeatureSampler sampler;
+
   SplitSearch(SortedColumns columns, Schema schema, Criterion criterion, int minLeaf) {
+    this(columns, schema, criterion, minLeaf, null);
+  }
+
+  /**
+   * A search that, with a {@code sampler}, tries the features in the sampler's random order
+   * instead of all of them: at least {@link FeatureSampler#perNode()}, and more only while none
+   * of those drawn has an admissible split. Ties then keep the feature drawn first.
+   */
+  SplitSearch(SortedColumns columns, Schema schema, Criterion criterion, int minLeaf,
+      FeatureSampler sampler) {
+    this.sampler = sampler;
     this.columns = columns;
     this.criterion = criterion;
     this.minLeaf = minLeaf;
@@ -73,16 +87,28 @@ final class SplitSearch {
   SplitChoice best(GrowingNode node) {
     tolerance = TIE_TOLERANCE * criterion.roundingScale(node.counts);
     SplitChoice best = null;
-    for (int f = 0; f < categoryCounts.length; f++) {
-      SplitChoice c =
-          categoryCounts[f] < 0
-              ? numeric(f, node.lo, node.hi, node.counts)
-              : categorical(f, node.lo, node.hi, node.counts);
-      if (c != null && (best == null || c.cost < best.cost - tolerance)) {
-        best = c;
+    if (sampler == null) {
+      for (int f = 0; f < categoryCounts.length; f++) {
+        best = better(best, candidate(f, node));
       }
+      return best;
+    }
+    for (int i = 0; i < categoryCounts.length && (i < sampler.perNode() || best == null); i++) {
+      best = better(best, candidate(sampler.draw(i), node));
     }
     return best;
+  }
+
+  private SplitChoice candidate(int f, GrowingNode node) {
+    return categoryCounts[f] < 0
+        ? numeric(f, node.lo, node.hi, node.counts)
+        : categorical(f, node.lo, node.hi, node.counts);
+  }
+
+  /** The challenger if it is cheaper beyond the tolerance, else the best so far. */
+  private SplitChoice better(SplitChoice best, SplitChoice challenger) {
+    return challenger != null && (best == null || challenger.cost < best.cost - tolerance)
+        ? challenger : best;
   }
 
   /** Counts the missing rows at the segment's end; returns where they start. */

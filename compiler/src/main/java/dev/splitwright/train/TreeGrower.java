@@ -1,6 +1,7 @@
 package dev.splitwright.train;
 
 import dev.splitwright.data.Dataset;
+import dev.splitwright.data.Schema;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.ClassCounts;
 import dev.splitwright.model.DecisionTree;
@@ -23,7 +24,10 @@ final class TreeGrower {
       Comparator.comparingDouble((GrowingNode n) -> -n.choice.gain)
           .thenComparingInt(n -> n.id);
 
-  private final Dataset data;
+  private final Schema schema;
+  private final int[] rootCounts;
+  /** Rows in the columns, repeats counted. */
+  private final int sampleSize;
   private final TrainingOptions options;
   private final double[] classWeights;
   private final SortedColumns columns;
@@ -34,18 +38,39 @@ final class TreeGrower {
   private int nextId;
 
   TreeGrower(Dataset data, TrainingOptions options) {
-    this.data = data;
+    this(data.schema(), SortedColumns.of(data), data.classCounts(), data.rows(), options,
+        options.weights().resolve(data), null);
+  }
+
+  /**
+   * A grower over columns already sorted, possibly of a sample with repeated rows (see {@link
+   * SortedColumns#resample}); the grower partitions them in place.
+   *
+   * @param rootCounts rows of each class in {@code columns}
+   * @param rowIds one more than the largest row index {@code columns} holds
+   * @param classWeights the resolved class weights
+   * @param sampler the features each node may split on, or {@code null} for all
+   */
+  TreeGrower(Schema schema, SortedColumns columns, int[] rootCounts, int rowIds,
+      TrainingOptions options, double[] classWeights, FeatureSampler sampler) {
+    this.schema = schema;
+    this.rootCounts = rootCounts;
     this.options = options;
-    this.classWeights = options.weights().resolve(data);
-    this.columns = SortedColumns.of(data);
-    this.criterion = new Criterion(options.impurity(), classWeights, data.rows());
-    this.search = new SplitSearch(columns, data.schema(), criterion, options.minLeaf());
-    this.goesLeft = new byte[data.rows()];
-    this.rootWeight = criterion.weight(data.classCounts());
+    this.classWeights = classWeights;
+    this.columns = columns;
+    int size = 0;
+    for (int c : rootCounts) {
+      size += c;
+    }
+    this.sampleSize = size;
+    this.criterion = new Criterion(options.impurity(), classWeights, size);
+    this.search = new SplitSearch(columns, schema, criterion, options.minLeaf(), sampler);
+    this.goesLeft = new byte[rowIds];
+    this.rootWeight = criterion.weight(rootCounts);
   }
 
   DecisionTree grow() {
-    GrowingNode root = newNode(0, 0, data.rows(), data.classCounts());
+    GrowingNode root = newNode(0, 0, sampleSize, rootCounts.clone());
     PriorityQueue<GrowingNode> frontier = new PriorityQueue<>(BEST_FIRST);
     if (chooseSplit(root)) {
       frontier.add(root);
@@ -63,7 +88,7 @@ final class TreeGrower {
         frontier.add(node.right);
       }
     }
-    return new DecisionTree(data.schema(), toNode(root));
+    return new DecisionTree(schema, toNode(root));
   }
 
   private GrowingNode newNode(int depth, int lo, int hi, int[] counts) {
@@ -97,7 +122,7 @@ final class TreeGrower {
     char[] labels = columns.labels[choice.feature];
     boolean[] leftCode = null;
     if (choice.categorical()) {
-      leftCode = new boolean[data.schema().feature(choice.feature).categories().size()];
+      leftCode = new boolean[schema.feature(choice.feature).categories().size()];
       for (int code : choice.leftCodes) {
         leftCode[code] = true;
       }
