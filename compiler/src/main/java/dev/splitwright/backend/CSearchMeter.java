@@ -7,6 +7,7 @@ import dev.splitwright.check.ElfFile;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.SearchMeter;
@@ -49,17 +50,17 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
   }
 
   @Override
-  public List<Measured> measure(List<DecisionTree> trees, HeaderInfo header)
+  public List<Measured> measure(List<Classifier> models, HeaderInfo header)
       throws InputException {
-    List<CSource> emitted = new ArrayList<>(trees.size() * variants.size());
-    for (DecisionTree tree : trees) {
+    List<CSource> emitted = new ArrayList<>(models.size() * variants.size());
+    for (Classifier model : models) {
       for (CEmitOptions v : variants) {
-        emitted.add(CEmitter.emit(tree, v, header));
+        emitted.add(CEmitter.emit(tree(model), v, header));
       }
     }
     List<ElfFile> objects = compile(emitted);
-    List<Measured> measured = new ArrayList<>(trees.size());
-    for (int t = 0; t < trees.size(); t++) {
+    List<Measured> measured = new ArrayList<>(models.size());
+    for (int t = 0; t < models.size(); t++) {
       int pick = t * variants.size();
       for (int v = pick + 1; v < (t + 1) * variants.size(); v++) {
         // The first layout (branches) on a tie, as a plain run keeps it.
@@ -74,13 +75,13 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
   }
 
   @Override
-  public OptionalInt bareSize(DecisionTree tree, HeaderInfo header) throws InputException {
+  public OptionalInt bareSize(Classifier model, HeaderInfo header) throws InputException {
     if (variants.get(0).bare()) {
       return OptionalInt.empty();
     }
     List<CSource> bare = new ArrayList<>();
     for (CEmitOptions v : variants) {
-      bare.add(CEmitter.emit(tree, v.withBare(true), header));
+      bare.add(CEmitter.emit(tree(model), v.withBare(true), header));
     }
     return compile(bare).stream()
         .mapToInt(elf -> Math.toIntExact(elf.flashBytes()))
@@ -88,19 +89,19 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
   }
 
   @Override
-  public Emitted<CLanguage.CEmission> emit(DecisionTree tree, HeaderInfo header)
+  public Emitted<CLanguage.CEmission> emit(Classifier model, HeaderInfo header)
       throws InputException {
     runs++;
     sources += variants.size();
-    CLanguage.CEmission emission = language.emit(tree, header);
+    CLanguage.CEmission emission = language.emit(tree(model), header);
     return new Emitted<>(emission, sizes(emission.source(), emission.object()),
         emission.options().layout());
   }
 
   @Override
-  public VerificationResult verify(DecisionTree tree, CLanguage.CEmission emitted,
+  public VerificationResult verify(Classifier model, CLanguage.CEmission emitted,
       List<Dataset> rows, long seed) throws InputException {
-    return language.verify(tree, emitted, rows, seed);
+    return language.verify(tree(model), emitted, rows, seed);
   }
 
   @Override
@@ -121,6 +122,13 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
   @Override
   public int sourcesCompiled() {
     return sources;
+  }
+
+  private static DecisionTree tree(Classifier model) {
+    if (model instanceof DecisionTree tree) {
+      return tree;
+    }
+    throw new IllegalArgumentException("C ensembles are not emitted yet");
   }
 
   private List<ElfFile> compile(List<CSource> files) throws InputException {

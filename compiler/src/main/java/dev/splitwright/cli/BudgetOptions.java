@@ -4,6 +4,7 @@ import dev.splitwright.backend.Languages;
 import dev.splitwright.data.InputException;
 import dev.splitwright.eval.Metric;
 import dev.splitwright.select.BudgetUnit;
+import dev.splitwright.select.ModelKind;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.select.SizeText;
 import dev.splitwright.train.TrainingOptions;
@@ -33,6 +34,12 @@ final class BudgetOptions {
           + "object file --cc writes with --cflags (flash, the only one).")
   String unit;
 
+  @Option(names = "--kinds", defaultValue = "tree", paramLabel = "KINDS",
+      description = "Kinds of classifier the budget search tries, comma-separated: tree (one "
+          + "CART tree and its prunings), forest (voting forests, Breiman 2001), boosted (SAMME, "
+          + "Zhu et al. 2009); ensembles of 2 to 64 trees (default: ${DEFAULT-VALUE}).")
+  String kinds;
+
   @Option(names = "--metric", defaultValue = "balanced-accuracy",
       paramLabel = "METRIC",
       description = "Validation score the budget search maximises (default: ${DEFAULT-VALUE}).")
@@ -57,7 +64,8 @@ final class BudgetOptions {
   Optional<SearchSettings> settings(CommandLine cli, TrainingOptions training, long seed,
       String language) {
     if (budget == null) {
-      for (String option : List.of("--budget-unit", "--metric", "--folds", "--refit-all")) {
+      for (String option : List.of("--budget-unit", "--metric", "--folds", "--refit-all",
+          "--kinds")) {
         if (cli.getParseResult().hasMatchedOption(option)) {
           throw bad(cli, option, "only applies together with --budget");
         }
@@ -89,7 +97,20 @@ final class BudgetOptions {
         .refitAll(refitAll)
         .training(training)
         .seed(seed)
+        .kinds(kinds(cli))
         .build());
+  }
+
+  private List<ModelKind> kinds(CommandLine cli) {
+    List<ModelKind> parsed = new ArrayList<>();
+    for (String name : kinds.split(",", -1)) {
+      ModelKind kind = ModelKind.parse(name).orElseThrow(() -> bad(cli, "--kinds", "must list "
+          + "tree, forest or boosted, separated by commas, but it is '" + kinds + "'"));
+      if (!parsed.contains(kind)) {
+        parsed.add(kind);
+      }
+    }
+    return parsed;
   }
 
   /**
@@ -121,6 +142,8 @@ final class BudgetOptions {
       parts.add("--budget " + budget.replaceAll("\\s", ""));
       parts.add("--budget-unit " + unit(cli, language).optionName());
       parts.add("--metric " + metric.strip().toLowerCase(Locale.ROOT));
+      parts.add("--kinds " + String.join(",", kinds(cli).stream().sorted()
+          .map(ModelKind::optionName).toList()));
       if (folds != null) {
         parts.add("--folds " + folds);
       }

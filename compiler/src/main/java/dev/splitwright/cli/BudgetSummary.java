@@ -19,11 +19,14 @@ final class BudgetSummary {
 
   static void print(PrintWriter out, SelectionReport selection, SearchStats stats) {
     SelectionReport.Chosen c = selection.chosen();
-    out.printf(Locale.ROOT, "budget: %d bytes (%s); chosen max-depth %d, min-leaf %d, alpha %s "
-        + "(depth %d, %d leaves): %d bytes, %s %s (%s)%n", selection.budget(),
-        selection.budgetUnit(), c.maxDepth(), c.minLeaf(), CandidateRecipe.formatAlpha(c.alpha()),
-        c.depth(), c.leaves(), c.size(), selection.metric(), DecimalText.fixed(c.score(), 4),
-        selection.scoredOn());
+    String what = c.trees() == 1
+        ? String.format(Locale.ROOT, "max-depth %d, min-leaf %d, alpha %s", c.maxDepth(),
+            c.minLeaf(), CandidateRecipe.formatAlpha(c.alpha()))
+        : String.format(Locale.ROOT, "%s of %d trees, max-depth %d, min-leaf %d", c.kind(),
+            c.trees(), c.maxDepth(), c.minLeaf());
+    out.printf(Locale.ROOT, "budget: %d bytes (%s); chosen %s (depth %d, %d leaves): %d bytes, "
+        + "%s %s (%s)%n", selection.budget(), selection.budgetUnit(), what, c.depth(), c.leaves(),
+        c.size(), selection.metric(), DecimalText.fixed(c.score(), 4), selection.scoredOn());
     if (selection.budgetUnit().equals("class")) {
       out.printf(Locale.ROOT, "budget: the class file weighs %d bytes with javac -g:none and %d "
           + "with -g (a default Maven build)%n", c.classFileBytesNoDebug(),
@@ -72,9 +75,10 @@ final class BudgetSummary {
     for (int i = from; i < to; i++) {
       SelectionReport.Point p = points.get(i);
       String note = p.chosen() ? "  chosen" : p.size() > selection.budget() ? "  over budget" : "";
-      lines.add(String.format(Locale.ROOT, "  %s %" + width + "d B  %.4f  %4d %s%s",
-          p.chosen() ? ">" : " ", p.size(), p.validationScore(), p.leaves(),
-          p.leaves() == 1 ? "leaf  " : "leaves", note).stripTrailing());
+      String kind = p.trees() == 1 ? "" : "  " + p.kind() + " of " + p.trees();
+      lines.add(String.format(Locale.ROOT, "  %s %" + width + "d B  %.4f  %4d %s%s%s",
+          p.chosen() ? ">" : " ", p.size(), p.score(), p.leaves(),
+          p.leaves() == 1 ? "leaf  " : "leaves", kind, note).stripTrailing());
     }
     if (to == points.size() && points.get(to - 1).chosen()) {
       lines.add("  (no larger candidate scores higher: a larger budget would buy nothing)");

@@ -44,7 +44,8 @@ final class BudgetRun {
                 request.seed()),
             header(loaded, testLog, request, placeholderScores(parts)),
             tree -> header(loaded, testLog, request, CompileJob.score(tree, parts)));
-    DecisionTree tree = outcome.tree();
+    // Until ensembles are emitted the search is asked for trees alone (see BudgetOptions).
+    DecisionTree tree = (DecisionTree) outcome.model();
     E emission = outcome.emitted();
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);

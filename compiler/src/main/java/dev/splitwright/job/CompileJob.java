@@ -18,6 +18,7 @@ import dev.splitwright.eval.Evaluator;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.eval.SplitParts;
 import dev.splitwright.eval.StratifiedSplit;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.persist.ModelFile;
 import dev.splitwright.persist.SavedModel;
@@ -260,11 +261,11 @@ public final class CompileJob {
     return new Parts(p.train(), p.validation(), p.test());
   }
 
-  static Map<String, Scores> score(DecisionTree tree, Parts parts) {
+  static Map<String, Scores> score(Classifier tree, Parts parts) {
     return score(tree, parts.named());
   }
 
-  private static Map<String, Scores> score(DecisionTree tree, Map<String, Dataset> parts) {
+  private static Map<String, Scores> score(Classifier tree, Map<String, Dataset> parts) {
     Map<String, Scores> scores = new LinkedHashMap<>();
     parts.forEach((name, rows) -> scores.put(name, Evaluator.score(tree, rows)));
     return scores;

@@ -2,7 +2,9 @@ package dev.splitwright.job;
 
 import dev.splitwright.report.FrontierSvg;
 import dev.splitwright.select.BudgetSelection;
+import dev.splitwright.select.Candidate;
 import dev.splitwright.select.SearchSettings;
+import dev.splitwright.select.SelectionReport;
 import java.util.List;
 
 /** Labels and points of the frontier chart of a budget search. */
@@ -23,12 +25,16 @@ final class FrontierChartBuilder {
       case FLASH -> "flash size (bytes; .text, .rodata and .data of the object file)";
     };
     List<FrontierSvg.Dot> all = outcome.candidates().stream()
-        .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();
+        .map(c -> dot(c, c.size(settings.unit()))).toList();
     List<FrontierSvg.Dot> frontier = outcome.frontier().stream()
-        .map(c -> new FrontierSvg.Dot(c.size(settings.unit()), c.score())).toList();
+        .map(c -> dot(c, c.size(settings.unit()))).toList();
+    SelectionReport.Chosen chosen = outcome.report().chosen();
     return new FrontierSvg.Chart(name, scored + " vs " + settings.unit().description(),
         xLabel, scored, settings.budget(), all, frontier,
-        new FrontierSvg.Dot(outcome.chosenSize(), outcome.chosen().score()),
-        outcome.report().chosen().leaves());
+        dot(outcome.chosen(), outcome.chosenSize()), chosen.leaves(), chosen.trees());
+  }
+
+  private static FrontierSvg.Dot dot(Candidate c, int size) {
+    return new FrontierSvg.Dot(size, c.score(), c.shape().kind().optionName());
   }
 }

@@ -10,7 +10,9 @@ import java.util.Objects;
  * Draws the budget search's trade-off as a plain SVG chart: validation score against measured
  * size, every candidate as a grey dot, the Pareto frontier as a blue staircase, the budget as a
  * dashed red line with the sizes past it shaded, and the chosen classifier as a green ring
- * labelled with its size, score and leaves. Both axes are zoomed to the data and the budget, with
+ * labelled with its size, score and leaves. Each kind of classifier has its own marker (a tree a
+ * circle, a forest a triangle, a boosted ensemble a square), named in the legend when more than one
+ * kind is drawn. Both axes are zoomed to the data and the budget, with
  * round, labelled ticks. Numbers are formatted with {@link Locale#ROOT} and nothing depends on
  * time or platform, so equal inputs give equal bytes.
  */
@@ -27,8 +29,26 @@ public final class FrontierSvg {
   private final Scale y;
   private final StringBuilder out = new StringBuilder();
 
-  /** A point: size in bytes and score in [0, 1]. */
-  public record Dot(int size, double score) {}
+  /**
+   * A point: size in bytes, score in [0, 1] and the kind of classifier ({@code tree}, {@code
+   * forest} or {@code boosted}), which picks its marker.
+   */
+  public record Dot(int size, double score, String kind) {
+
+    public Dot {
+      if (!KINDS.contains(kind)) {
+        throw new IllegalArgumentException("kind must be one of " + KINDS + ": " + kind);
+      }
+    }
+
+    /** A single tree's point. */
+    public Dot(int size, double score) {
+      this(size, score, "tree");
+    }
+  }
+
+  /** The kinds of classifier with a marker, in legend order. */
+  static final List<String> KINDS = List.of("tree", "forest", "boosted");
 
   /**
    * What to draw.
@@ -41,10 +61,11 @@ public final class FrontierSvg {
    * @param candidates every measured candidate
    * @param frontier the Pareto-optimal candidates, by size ascending
    * @param chosen the candidate emitted
-   * @param chosenLeaves the leaves of the chosen candidate's tree
+   * @param chosenLeaves the leaves of the chosen candidate, all its trees together
+   * @param chosenTrees its trees, 1 for a single tree
    */
   public record Chart(String title, String subtitle, String xLabel, String yLabel, int budget,
-      List<Dot> candidates, List<Dot> frontier, Dot chosen, int chosenLeaves) {
+      List<Dot> candidates, List<Dot> frontier, Dot chosen, int chosenLeaves, int chosenTrees) {
 
     public Chart {
       Objects.requireNonNull(title, "title");
@@ -57,9 +78,17 @@ public final class FrontierSvg {
       if (frontier.isEmpty()) {
         throw new IllegalArgumentException("frontier is empty");
       }
-      if (chosenLeaves < 1) {
-        throw new IllegalArgumentException("a tree has at least one leaf: " + chosenLeaves);
+      if (chosenLeaves < chosenTrees || chosenTrees < 1) {
+        throw new IllegalArgumentException("each tree has at least one leaf: " + chosenTrees
+            + " trees, " + chosenLeaves + " leaves");
       }
+    }
+
+    /** A chart whose chosen classifier is a single tree. */
+    public Chart(String title, String subtitle, String xLabel, String yLabel, int budget,
+        List<Dot> candidates, List<Dot> frontier, Dot chosen, int chosenLeaves) {
+      this(title, subtitle, xLabel, yLabel, budget, candidates, frontier, chosen, chosenLeaves,
+          1);
     }
   }
 
@@ -160,8 +189,7 @@ public final class FrontierSvg {
   private void candidates() {
     line("  <g fill=\"#9a9a9a\" fill-opacity=\"0.6\">");
     for (Dot d : chart.candidates()) {
-      line("    <circle cx=\"%s\" cy=\"%s\" r=\"2.2\"/>", num(x.map(d.size())),
-          num(y.map(d.score())));
+      marker(d.kind(), x.map(d.size()), y.map(d.score()), 2.2);
     }
     line("  </g>");
   }
@@ -179,8 +207,7 @@ public final class FrontierSvg {
     line("  <path d=\"%s\" fill=\"none\" stroke=\"#1f5fbf\" stroke-width=\"1.8\"/>", path);
     line("  <g fill=\"#1f5fbf\">");
     for (Dot d : f) {
-      line("    <circle cx=\"%s\" cy=\"%s\" r=\"3.5\"/>", num(x.map(d.size())),
-          num(y.map(d.score())));
+      marker(d.kind(), x.map(d.size()), y.map(d.score()), 3.5);
     }
     line("  </g>");
   }
@@ -205,9 +232,10 @@ public final class FrontierSvg {
     // Below the point, where the rising frontier is not; a white halo keeps it readable.
     boolean leftOfCentre = cx < (LEFT + WIDTH - RIGHT) / 2.0;
     line("  <text x=\"%s\" y=\"%s\" fill=\"#2e7d32\" text-anchor=\"%s\" stroke=\"#ffffff\""
-        + " stroke-width=\"4\" paint-order=\"stroke\">chosen: %d B, %s, %d %s</text>",
+        + " stroke-width=\"4\" paint-order=\"stroke\">chosen: %d B, %s, %s%d %s</text>",
         num(cx + (leftOfCentre ? 6 : -6)), num(Math.min(cy + 24, HEIGHT - BOTTOM - 6)),
         leftOfCentre ? "start" : "end", c.size(), DecimalText.fixed(c.score(), 4),
+        chart.chosenTrees() == 1 ? "" : c.kind() + " of " + chart.chosenTrees() + " trees, ",
         chart.chosenLeaves(), chart.chosenLeaves() == 1 ? "leaf" : "leaves");
   }
 
@@ -223,7 +251,8 @@ public final class FrontierSvg {
 
   /** One row centred under the size axis's label, so it never covers a point. */
   private void legend() {
-    int lx = (LEFT + WIDTH - RIGHT) / 2 - 180;
+    List<String> kinds = kindsDrawn();
+    int lx = (LEFT + WIDTH - RIGHT) / 2 - 180 - (kinds.size() > 1 ? 34 * kinds.size() : 0);
     int ly = HEIGHT - 14;
     line("  <g font-size=\"11\" fill=\"#333333\">");
     line("    <circle cx=\"%d\" cy=\"%d\" r=\"2.5\" fill=\"#9a9a9a\"/>", lx + 6, ly);
@@ -243,7 +272,37 @@ public final class FrontierSvg {
     line("    <circle cx=\"%d\" cy=\"%d\" r=\"5\" fill=\"none\" stroke=\"#2e7d32\""
         + " stroke-width=\"2\"/>", lx + 6, ly);
     line("    <text x=\"%d\" y=\"%d\">chosen</text>", lx + 16, ly + 4);
+    lx += 64;
+    if (kinds.size() > 1) {
+      for (String kind : kinds) {
+        marker(kind, lx + 6, ly, 3.5);
+        line("    <text x=\"%d\" y=\"%d\">%s</text>", lx + 14, ly + 4, kind);
+        lx += 14 + 7 * kind.length() + 12;
+      }
+    }
     line("  </g>");
+  }
+
+  /** The kinds among the candidates, in legend order. */
+  private List<String> kindsDrawn() {
+    List<String> kinds = new ArrayList<>();
+    for (String kind : KINDS) {
+      if (points(chart).stream().anyMatch(d -> d.kind().equals(kind))) {
+        kinds.add(kind);
+      }
+    }
+    return kinds;
+  }
+
+  /** A tree's circle, a forest's triangle or a boosted ensemble's square, of radius {@code r}. */
+  private void marker(String kind, double cx, double cy, double r) {
+    switch (kind) {
+      case "forest" -> line("    <path d=\"M%s %s L%s %s L%s %sZ\"/>", num(cx), num(cy - 1.3 * r),
+          num(cx + 1.15 * r), num(cy + 0.7 * r), num(cx - 1.15 * r), num(cy + 0.7 * r));
+      case "boosted" -> line("    <rect x=\"%s\" y=\"%s\" width=\"%s\" height=\"%s\"/>",
+          num(cx - 0.9 * r), num(cy - 0.9 * r), num(1.8 * r), num(1.8 * r));
+      default -> line("    <circle cx=\"%s\" cy=\"%s\" r=\"%s\"/>", num(cx), num(cy), num(r));
+    }
   }
 
   private void line(String format, Object... args) {

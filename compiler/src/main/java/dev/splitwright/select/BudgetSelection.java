@@ -4,7 +4,7 @@ import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.HeaderInfo;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
 import java.util.List;
@@ -17,7 +17,9 @@ import java.util.function.Function;
  *
  * <ol>
  *   <li>Candidates: one tree per depth limit 1..D and leaf size, each with its whole
- *       cost-complexity pruning path; equal trees are kept once ({@link CandidateGenerator}).
+ *       cost-complexity pruning path, and for each ensemble kind searched one voting forest or
+ *       boosted ensemble per member depth and tree count; equal candidates are kept once ({@link
+ *       CandidateGenerator}).
  *   <li>Scores: the metric on the validation part, or the mean over stratified folds of train and
  *       validation together ({@link CandidateScorer}). Test rows are never looked at.
  *   <li>Sizes: every distinct candidate is emitted and compiled, in batches, by the output
@@ -94,14 +96,15 @@ public final class BudgetSelection<E> {
    * The emitted classifier, its verification, the report section, what a chart needs and the
    * statistics. The classifier may have failed verification; the caller decides what to write.
    *
-   * @param emitted what the language emitted for the chosen tree
+   * @param model the chosen tree or ensemble, as emitted (refitted if the rows differ)
+   * @param emitted what the language emitted for it
    * @param candidates every candidate scored and measured, in generation order
    * @param frontier the Pareto-optimal candidates by size, ascending
    * @param chosen the candidate the emitted classifier comes from
    * @param chosenSize the emitted classifier's size in the budget's unit (a refit may differ from
    *     the candidate's)
    */
-  public record Outcome<E>(DecisionTree tree, E emitted, VerificationResult verification,
+  public record Outcome<E>(Classifier model, E emitted, VerificationResult verification,
       SelectionReport report, List<Candidate> candidates, List<Candidate> frontier,
       Candidate chosen, int chosenSize, SearchStats stats) {
 
@@ -122,7 +125,7 @@ public final class BudgetSelection<E> {
    *     even the smallest candidate fits the budget, or the language's tools cannot be run
    */
   public Outcome<E> run(Data data, HeaderInfo candidateHeader,
-      Function<DecisionTree, HeaderInfo> finalHeader) throws InputException {
+      Function<Classifier, HeaderInfo> finalHeader) throws InputException {
     long start = System.nanoTime();
     CandidateSearch.Result search = null;
     try {
@@ -130,11 +133,11 @@ public final class BudgetSelection<E> {
       ChoiceEmitter.Choice<E> choice = new ChoiceEmitter<>(settings, meter).choose(
           search.ranked(), data.train(), data.validation(), finalHeader);
       E emitted = choice.emitted().emitted();
-      VerificationResult verification = meter.verify(choice.tree(), emitted, data.verifyRows(),
+      VerificationResult verification = meter.verify(choice.model(), emitted, data.verifyRows(),
           data.seed());
       SelectionReport report = SelectionReportBuilder.build(settings, search, choice,
           meter.chosenBytes(choice.emitted()));
-      return new Outcome<>(choice.tree(), emitted, verification, report,
+      return new Outcome<>(choice.model(), emitted, verification, report,
           search.candidates(), search.frontier(), choice.candidate(),
           choice.sizes().in(settings.unit()), stats(search, start));
     } finally {

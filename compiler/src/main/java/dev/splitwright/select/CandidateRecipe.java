@@ -1,16 +1,25 @@
 package dev.splitwright.select;
 
 import dev.splitwright.text.DecimalText;
+import java.util.Objects;
 
 /**
  * How to reproduce one candidate (as opposed to {@link SearchSettings}, which say what the whole
- * search sweeps): grow with {@code maxDepth} and {@code minLeaf}, then prune by cost complexity.
- * The candidate is the pruning-path subtree for every alpha in {@code [alpha, nextAlpha)}; {@code
- * nextAlpha} is infinite for the single leaf that ends the path.
+ * search sweeps). A single tree: grow with {@code maxDepth} and {@code minLeaf}, then prune by
+ * cost complexity; the candidate is the pruning-path subtree for every alpha in {@code [alpha,
+ * nextAlpha)}, {@code nextAlpha} infinite for the single leaf that ends the path. An ensemble:
+ * train {@code trees} trees of that kind with those limits and the search's seed, unpruned (both
+ * alphas 0).
  */
-public record CandidateRecipe(int maxDepth, int minLeaf, double alpha, double nextAlpha) {
+public record CandidateRecipe(ModelKind kind, int trees, int maxDepth, int minLeaf, double alpha,
+    double nextAlpha) {
 
   public CandidateRecipe {
+    Objects.requireNonNull(kind, "kind");
+    if ((kind == ModelKind.TREE) != (trees == 1) || trees < 1) {
+      throw new IllegalArgumentException("a tree is one tree, an ensemble two or more: " + kind
+          + ", " + trees);
+    }
     if (maxDepth < 1 || minLeaf < 1) {
       throw new IllegalArgumentException(
           "maxDepth and minLeaf must be positive: " + maxDepth + ", " + minLeaf);
@@ -19,6 +28,26 @@ public record CandidateRecipe(int maxDepth, int minLeaf, double alpha, double ne
       throw new IllegalArgumentException(
           "need 0 <= alpha <= nextAlpha: " + alpha + ", " + nextAlpha);
     }
+  }
+
+  /** A single tree's recipe. */
+  public CandidateRecipe(int maxDepth, int minLeaf, double alpha, double nextAlpha) {
+    this(ModelKind.TREE, 1, maxDepth, minLeaf, alpha, nextAlpha);
+  }
+
+  /** An ensemble's recipe: {@code trees} trees of {@code kind}, unpruned. */
+  public static CandidateRecipe ensemble(ModelKind kind, int trees, int maxDepth, int minLeaf) {
+    if (kind == ModelKind.TREE) {
+      throw new IllegalArgumentException("not an ensemble kind: " + kind);
+    }
+    return new CandidateRecipe(kind, trees, maxDepth, minLeaf, 0, 0);
+  }
+
+  /** One phrase for messages, e.g. {@code forest of 8 trees, max-depth 3, min-leaf 1}. */
+  public String describe() {
+    String limits = "max-depth " + maxDepth + ", min-leaf " + minLeaf;
+    return kind == ModelKind.TREE ? limits + ", alpha " + formatAlpha(alpha)
+        : kind.optionName() + " of " + trees + " trees, " + limits;
   }
 
   /** Formats an alpha for messages: {@code 0}, or four significant digits. */

@@ -3,7 +3,7 @@ package dev.splitwright.select;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
@@ -80,11 +80,11 @@ final class CandidateSearch {
     progress.update("measuring", 0, trees.size());
     for (int start = 0; start < trees.size(); start += CHUNK) {
       List<DistinctTree> chunk = trees.subList(start, Math.min(trees.size(), start + CHUNK));
-      List<DecisionTree> shapes = chunk.stream().map(DistinctTree::tree).toList();
-      List<SearchMeter.Measured> sizes = meter.measure(shapes, candidateHeader);
+      List<Classifier> models = chunk.stream().map(DistinctTree::model).toList();
+      List<SearchMeter.Measured> sizes = meter.measure(models, candidateHeader);
       for (int i = 0; i < chunk.size(); i++) {
         DistinctTree g = chunk.get(i);
-        candidates.add(new Candidate(g.index(), g.recipe(), g.tree(), scores[g.index()],
+        candidates.add(new Candidate(g.index(), g.recipe(), g.model(), scores[g.index()],
             sizes.get(i).sizes(), sizes.get(i).layout()));
       }
       progress.update("measuring", start + chunk.size(), trees.size());
@@ -96,16 +96,16 @@ final class CandidateSearch {
       SearchMeter<?> meter) throws InputException {
     Candidate smallest = candidates.stream()
         .min(Comparator.comparingInt((Candidate c) -> c.size(settings.unit()))
-            .thenComparingInt(c -> c.tree().leafCount())
+            .thenComparingInt(c -> c.shape().leaves())
             .thenComparingInt(Candidate::index))
         .orElseThrow();
     int least = smallest.size(settings.unit());
-    int leaves = smallest.tree().leafCount();
+    int leaves = smallest.shape().leaves();
     String problem = String.format(Locale.ROOT,
         "%d bytes is too small: the smallest classifier for this data (%d %s) has a %s of %d "
             + "bytes", settings.budget(), leaves, leaves == 1 ? "leaf" : "leaves",
         settings.unit().description(), least);
-    OptionalInt measuredBare = meter.bareSize(smallest.tree(), header);
+    OptionalInt measuredBare = meter.bareSize(smallest.model(), header);
     if (measuredBare.isEmpty()) {
       return new InputException("budget", problem, "give --budget " + least + " or more");
     }

@@ -3,7 +3,7 @@ package dev.splitwright.select;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -29,10 +29,10 @@ final class ChoiceEmitter<E> {
   /**
    * The candidate taken and the file emitted for it.
    *
-   * @param tree the candidate's tree, or its refit
+   * @param model the candidate's tree or ensemble, or its refit
    * @param fallbacks one line for each better candidate whose emitted file broke the budget
    */
-  record Choice<E>(Candidate candidate, DecisionTree tree, SearchMeter.Emitted<E> emitted,
+  record Choice<E>(Candidate candidate, Classifier model, SearchMeter.Emitted<E> emitted,
       List<String> fallbacks) {
 
     Choice {
@@ -51,25 +51,23 @@ final class ChoiceEmitter<E> {
    * @throws InputException if no ranked candidate fits once emitted
    */
   Choice<E> choose(List<Candidate> ranked, Dataset train, Dataset validation,
-      Function<DecisionTree, HeaderInfo> finalHeader) throws InputException {
+      Function<Classifier, HeaderInfo> finalHeader) throws InputException {
     Dataset refitRows = settings.refitAll() ? train.concat(validation) : train;
     boolean refit = settings.refitAll() && settings.folds() == 0;
     List<String> fallbacks = new ArrayList<>();
     for (int rank = 0; rank < ranked.size(); rank++) {
       Candidate candidate = ranked.get(rank);
-      DecisionTree tree = refit
+      Classifier model = refit
           ? CandidateGenerator.refit(refitRows, settings, candidate.recipe())
-          : candidate.tree();
-      SearchMeter.Emitted<E> emitted = meter.emit(tree, finalHeader.apply(tree));
+          : candidate.model();
+      SearchMeter.Emitted<E> emitted = meter.emit(model, finalHeader.apply(model));
       int size = emitted.sizes().in(settings.unit());
       if (size <= settings.budget() && meter.usable(emitted.sizes())) {
-        return new Choice<>(candidate, tree, emitted, fallbacks);
+        return new Choice<>(candidate, model, emitted, fallbacks);
       }
-      fallbacks.add(String.format(Locale.ROOT, "candidate ranked %d (max-depth %d, min-leaf %d, "
-          + "alpha %s) weighs %d bytes as emitted%s, over the budget; took the next", rank + 1,
-          candidate.recipe().maxDepth(), candidate.recipe().minLeaf(),
-          CandidateRecipe.formatAlpha(candidate.recipe().alpha()), size,
-          refit ? " after refitting on train+validation" : ""));
+      fallbacks.add(String.format(Locale.ROOT, "candidate ranked %d (%s) weighs %d bytes as "
+          + "emitted%s, over the budget; took the next", rank + 1, candidate.recipe().describe(),
+          size, refit ? " after refitting on train+validation" : ""));
     }
     throw new InputException("budget", "no candidate fits the budget of " + settings.budget()
         + " bytes as emitted" + (refit ? " after refitting on train+validation" : ""),

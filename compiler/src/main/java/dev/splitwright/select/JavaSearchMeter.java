@@ -6,6 +6,7 @@ import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
@@ -61,16 +62,16 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
   }
 
   @Override
-  public List<Measured> measure(List<DecisionTree> trees, HeaderInfo header) {
+  public List<Measured> measure(List<Classifier> models, HeaderInfo header) {
     List<EmittedSource> sources = new ArrayList<>();
     List<Integer> variants = new ArrayList<>();
-    for (DecisionTree tree : trees) {
-      List<EmittedSource> emitted = emitter.emit(tree, header);
+    for (Classifier model : models) {
+      List<EmittedSource> emitted = emitter.emit(tree(model), header);
       sources.addAll(emitted);
       variants.add(emitted.size());
     }
     List<Sizes> sizes = meter.measure(sources);
-    List<Measured> measured = new ArrayList<>(trees.size());
+    List<Measured> measured = new ArrayList<>(models.size());
     int at = 0;
     for (int count : variants) {
       int pick = at;
@@ -91,25 +92,25 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
   }
 
   @Override
-  public OptionalInt bareSize(DecisionTree tree, HeaderInfo header) {
+  public OptionalInt bareSize(Classifier model, HeaderInfo header) {
     if (options.bare()) {
       return OptionalInt.empty();
     }
     // Measured, not estimated: the same tree emitted with --bare and compiled.
     return CandidateEmitter.of(options.toBuilder().bare(true).build())
-        .emit(tree, header).stream()
+        .emit(tree(model), header).stream()
         .mapToInt(source -> meter.measureAlone(source).in(unit))
         .min();
   }
 
   @Override
-  public Emitted<LayoutChoice> emit(DecisionTree tree, HeaderInfo header) {
+  public Emitted<LayoutChoice> emit(Classifier model, HeaderInfo header) {
     Map<Layout, Integer> classFileBytes = new EnumMap<>(Layout.class);
     EmittedSource best = null;
     CompiledClasses bestClasses = null;
     Sizes bestSizes = null;
     Layout smallestClass = null;
-    for (EmittedSource source : emitter.emit(tree, header)) {
+    for (EmittedSource source : emitter.emit(tree(model), header)) {
       CompiledClasses classes = meter.compileAlone(source);
       Sizes sizes = meter.measured(classes, source);
       classFileBytes.put(source.layout(), classes.size(source.qualifiedName()));
@@ -130,9 +131,9 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
   }
 
   @Override
-  public VerificationResult verify(DecisionTree tree, LayoutChoice emitted, List<Dataset> rows,
+  public VerificationResult verify(Classifier model, LayoutChoice emitted, List<Dataset> rows,
       long seed) {
-    return verifier.check(tree, emitted.classes(), emitted.source(), emitted.options(), rows,
+    return verifier.check(tree(model), emitted.classes(), emitted.source(), emitted.options(), rows,
         seed);
   }
 
@@ -142,6 +143,13 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
     Sizes sizes = emitted.sizes();
     return new ChosenBytes(sizes.classFileBytes(), DebugSizes.noDebug(source),
         DebugSizes.fullDebug(source), sizes.bytecodeBytes(), null);
+  }
+
+  private static DecisionTree tree(Classifier model) {
+    if (model instanceof DecisionTree tree) {
+      return tree;
+    }
+    throw new IllegalArgumentException("Java ensembles are not emitted yet");
   }
 
   @Override

@@ -12,7 +12,7 @@ final class Ranking {
   static Comparator<Candidate> preference(BudgetUnit unit) {
     return Comparator.comparingDouble(Candidate::score).reversed()
         .thenComparingInt((Candidate c) -> c.size(unit))
-        .thenComparingInt(c -> c.tree().leafCount())
+        .thenComparingInt(c -> c.shape().leaves())
         .thenComparingInt(Candidate::index);
   }
 

@@ -4,7 +4,7 @@ import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.verify.VerificationResult;
 import java.util.List;
 import java.util.Objects;
@@ -30,7 +30,7 @@ public interface SearchMeter<E> {
    *
    * @throws InputException if the compiler needed cannot be run with the user's options
    */
-  List<Measured> measure(List<DecisionTree> trees, HeaderInfo header) throws InputException;
+  List<Measured> measure(List<Classifier> models, HeaderInfo header) throws InputException;
 
   /** Whether a candidate of these sizes can be emitted at all (e.g. within a method-size cap). */
   default boolean usable(Sizes sizes) {
@@ -41,16 +41,16 @@ public interface SearchMeter<E> {
    * The size of {@code tree} without the label and feature tables, measured, or empty when the
    * options already leave them out.
    */
-  OptionalInt bareSize(DecisionTree tree, HeaderInfo header) throws InputException;
+  OptionalInt bareSize(Classifier model, HeaderInfo header) throws InputException;
 
   /**
    * Emits {@code tree} with its real header, compiled under its real names, in the layout
    * smallest in {@link #unit()}.
    */
-  Emitted<E> emit(DecisionTree tree, HeaderInfo header) throws InputException;
+  Emitted<E> emit(Classifier model, HeaderInfo header) throws InputException;
 
   /** Checks {@code emitted} against {@code tree}, as the language's proof does. */
-  VerificationResult verify(DecisionTree tree, E emitted, List<Dataset> rows, long seed)
+  VerificationResult verify(Classifier model, E emitted, List<Dataset> rows, long seed)
       throws InputException;
 
   /** The sizes of the chosen file the report's selection section states beside its size. */
@@ -109,9 +109,9 @@ public interface SearchMeter<E> {
       }
 
       @Override
-      public List<Measured> measure(List<DecisionTree> trees, HeaderInfo header)
+      public List<Measured> measure(List<Classifier> models, HeaderInfo header)
           throws InputException {
-        return inner.measure(trees, header);
+        return inner.measure(models, header);
       }
 
       @Override
@@ -120,20 +120,20 @@ public interface SearchMeter<E> {
       }
 
       @Override
-      public OptionalInt bareSize(DecisionTree tree, HeaderInfo header) throws InputException {
-        return inner.bareSize(tree, header);
+      public OptionalInt bareSize(Classifier model, HeaderInfo header) throws InputException {
+        return inner.bareSize(model, header);
       }
 
       @Override
-      public Emitted<F> emit(DecisionTree tree, HeaderInfo header) throws InputException {
-        Emitted<E> e = inner.emit(tree, header);
+      public Emitted<F> emit(Classifier model, HeaderInfo header) throws InputException {
+        Emitted<E> e = inner.emit(model, header);
         return new Emitted<>(wrap.apply(e.emitted()), e.sizes(), e.layout());
       }
 
       @Override
-      public VerificationResult verify(DecisionTree tree, F emitted, List<Dataset> rows,
+      public VerificationResult verify(Classifier model, F emitted, List<Dataset> rows,
           long seed) throws InputException {
-        return inner.verify(tree, unwrap.apply(emitted), rows, seed);
+        return inner.verify(model, unwrap.apply(emitted), rows, seed);
       }
 
       @Override

@@ -2,6 +2,7 @@ package dev.splitwright.select;
 
 import dev.splitwright.eval.Metric;
 import dev.splitwright.train.TrainingOptions;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import java.util.TreeSet;
@@ -19,10 +20,25 @@ import java.util.TreeSet;
  * @param refitAll refit the chosen settings on train and validation together, not train alone
  * @param training impurity, leaf cap and class weights of every candidate; its depth and leaf size
  *     are replaced by the grid's
- * @param seed seed of the cross-validation folds
+ * @param seed seed of the cross-validation folds and of the ensembles' bootstrap samples
+ * @param kinds the kinds of classifier searched, in {@link ModelKind} order
+ * @param ensembleSizes the tree counts of ensemble candidates, ascending
  */
 public record SearchSettings(int budget, BudgetUnit unit, Metric metric, int maxDepth,
-    List<Integer> minLeafs, int folds, boolean refitAll, TrainingOptions training, long seed) {
+    List<Integer> minLeafs, int folds, boolean refitAll, TrainingOptions training, long seed,
+    List<ModelKind> kinds, List<Integer> ensembleSizes) {
+
+  /**
+   * Tree counts of ensemble candidates by default: doubling from 2 to 64, where published
+   * results show forests and boosting gaining most of what they gain (common practice).
+   */
+  public static final List<Integer> DEFAULT_ENSEMBLE_SIZES = List.of(2, 4, 8, 16, 32, 64);
+
+  /**
+   * Depth limits of ensemble members: shallow trees are what ensembles are for, and each depth
+   * adds a training run per kind, so past 4 only every other depth is tried.
+   */
+  static final List<Integer> ENSEMBLE_DEPTHS = List.of(1, 2, 3, 4, 6, 8, 10, 12, 14, 16);
 
   /**
    * Leaf sizes swept by default: from no limit (1) to leaves of 20 rows, roughly doubling; larger
@@ -53,6 +69,30 @@ public record SearchSettings(int budget, BudgetUnit unit, Metric metric, int max
       throw new IllegalArgumentException("folds must be 0 or at least 2, but it is " + folds);
     }
     Objects.requireNonNull(training, "training");
+    TreeSet<ModelKind> kindSet = new TreeSet<>(kinds);
+    if (kindSet.isEmpty()) {
+      throw new IllegalArgumentException("at least one kind must be searched");
+    }
+    kinds = List.copyOf(kindSet);
+    TreeSet<Integer> sizes = new TreeSet<>(ensembleSizes);
+    if (sizes.isEmpty() || sizes.first() < 2) {
+      throw new IllegalArgumentException("ensemble sizes must be at least 2: " + ensembleSizes);
+    }
+    ensembleSizes = List.copyOf(sizes);
+  }
+
+  /** The depth limits of ensemble members: {@link #ENSEMBLE_DEPTHS} up to {@code maxDepth}. */
+  public List<Integer> ensembleDepths() {
+    List<Integer> depths = new ArrayList<>();
+    for (int d : ENSEMBLE_DEPTHS) {
+      if (d <= maxDepth) {
+        depths.add(d);
+      }
+    }
+    if (!depths.contains(maxDepth)) {
+      depths.add(maxDepth);
+    }
+    return List.copyOf(depths);
   }
 
   /** Starts settings for {@code budget} class-file bytes with the defaults. */
@@ -79,6 +119,8 @@ public record SearchSettings(int budget, BudgetUnit unit, Metric metric, int max
     private boolean refitAll;
     private TrainingOptions training = TrainingOptions.defaults();
     private long seed = 1;
+    private List<ModelKind> kinds = List.of(ModelKind.TREE);
+    private List<Integer> ensembleSizes = DEFAULT_ENSEMBLE_SIZES;
 
     private Builder(int budget) {
       this.budget = budget;
@@ -124,9 +166,20 @@ public record SearchSettings(int budget, BudgetUnit unit, Metric metric, int max
       return this;
     }
 
+    /** The kinds searched; single trees unless set. */
+    public Builder kinds(List<ModelKind> value) {
+      this.kinds = List.copyOf(value);
+      return this;
+    }
+
+    public Builder ensembleSizes(List<Integer> value) {
+      this.ensembleSizes = List.copyOf(value);
+      return this;
+    }
+
     public SearchSettings build() {
-      return new SearchSettings(
-          budget, unit, metric, maxDepth, minLeafs, folds, refitAll, training, seed);
+      return new SearchSettings(budget, unit, metric, maxDepth, minLeafs, folds, refitAll,
+          training, seed, kinds, ensembleSizes);
     }
   }
 }

@@ -14,7 +14,8 @@ import java.util.Objects;
  * @param scoredOn {@code validation} or {@code 5-fold cross-validation} and the like
  * @param refitOn the rows the chosen settings were refitted on: {@code train} or {@code
  *     train+validation}
- * @param settingsTried pruning-path entries over every depth and leaf-size limit
+ * @param kinds the kinds of classifier searched: {@code tree}, {@code forest}, {@code boosted}
+ * @param settingsTried pruning-path entries over every depth and leaf-size limit, and ensembles
  * @param distinctTrees candidates left after removing equal trees, each one compiled
  * @param smallestSize the smallest candidate's size, the least budget that can be met
  * @param fallbacks one line for each better candidate whose refitted tree broke the budget
@@ -22,7 +23,7 @@ import java.util.Objects;
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 @JsonPropertyOrder({"budget", "budgetUnit", "metric", "scoredOn", "refitOn", "maxDepth",
-    "minLeafs", "settingsTried", "distinctTrees", "smallestSize", "chosen", "fallbacks",
+    "minLeafs", "kinds", "settingsTried", "distinctTrees", "smallestSize", "chosen", "fallbacks",
     "frontier"})
 public record SelectionReport(
     int budget,
@@ -32,6 +33,7 @@ public record SelectionReport(
     String refitOn,
     int maxDepth,
     List<Integer> minLeafs,
+    List<String> kinds,
     int settingsTried,
     int distinctTrees,
     int smallestSize,
@@ -45,6 +47,7 @@ public record SelectionReport(
     Objects.requireNonNull(scoredOn, "scoredOn");
     Objects.requireNonNull(refitOn, "refitOn");
     minLeafs = List.copyOf(minLeafs);
+    kinds = List.copyOf(kinds);
     Objects.requireNonNull(chosen, "chosen");
     fallbacks = List.copyOf(fallbacks);
     frontier = List.copyOf(frontier);
@@ -74,10 +77,12 @@ public record SelectionReport(
    * @param flashBytes the C object file's flash bytes; null (left out) for Java
    */
   @JsonInclude(JsonInclude.Include.NON_NULL)
-  @JsonPropertyOrder({"maxDepth", "minLeaf", "alpha", "depth", "leaves", "validationScore",
-      "crossValidatedScore", "size", "layout", "classFileBytes", "classFileBytesNoDebug",
-      "classFileBytesFullDebug", "bytecodeBytes", "flashBytes", "sourceBytes"})
-  public record Chosen(int maxDepth, int minLeaf, double alpha, int depth, int leaves,
+  @JsonPropertyOrder({"kind", "trees", "maxDepth", "minLeaf", "alpha", "depth", "leaves",
+      "validationScore", "crossValidatedScore", "size", "layout", "classFileBytes",
+      "classFileBytesNoDebug", "classFileBytesFullDebug", "bytecodeBytes", "flashBytes",
+      "sourceBytes"})
+  public record Chosen(String kind, int trees, int maxDepth, int minLeaf, double alpha,
+      int depth, int leaves,
       Double validationScore, Double crossValidatedScore, int size, String layout,
       Integer classFileBytes, Integer classFileBytesNoDebug, Integer classFileBytesFullDebug,
       Integer bytecodeBytes, Integer flashBytes, int sourceBytes) {
@@ -98,10 +103,11 @@ public record SelectionReport(
    * settings.
    */
   @JsonInclude(JsonInclude.Include.NON_NULL)
-  @JsonPropertyOrder({"size", "validationScore", "crossValidatedScore", "depth", "leaves",
-      "maxDepth", "minLeaf", "alpha", "chosen"})
-  public record Point(int size, Double validationScore, Double crossValidatedScore, int depth,
-      int leaves, int maxDepth, int minLeaf, double alpha, boolean chosen) {
+  @JsonPropertyOrder({"size", "validationScore", "crossValidatedScore", "kind", "trees", "depth",
+      "leaves", "maxDepth", "minLeaf", "alpha", "chosen"})
+  public record Point(int size, Double validationScore, Double crossValidatedScore, String kind,
+      int trees, int depth, int leaves, int maxDepth, int minLeaf, double alpha,
+      boolean chosen) {
 
     public Point {
       checkOneScore(validationScore, crossValidatedScore);

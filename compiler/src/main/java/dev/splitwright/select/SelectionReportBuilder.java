@@ -16,8 +16,10 @@ final class SelectionReportBuilder {
       ChoiceEmitter.Choice<?> choice, SearchMeter.ChosenBytes bytes) {
     Sizes s = choice.sizes();
     CandidateRecipe recipe = choice.candidate().recipe();
-    SelectionReport.Chosen picked = new SelectionReport.Chosen(recipe.maxDepth(),
-        recipe.minLeaf(), recipe.alpha(), choice.tree().depth(), choice.tree().leafCount(),
+    Shape shape = Shape.of(choice.model());
+    SelectionReport.Chosen picked = new SelectionReport.Chosen(shape.kind().optionName(),
+        shape.trees(), recipe.maxDepth(), recipe.minLeaf(), recipe.alpha(), shape.depth(),
+        shape.leaves(),
         validation(settings, choice.candidate()), crossValidated(settings, choice.candidate()),
         s.in(settings.unit()), choice.emitted().layout().optionName(), bytes.classFile(),
         bytes.classFileNoDebug(), bytes.classFileFullDebug(), bytes.bytecode(), bytes.flash(),
@@ -25,7 +27,8 @@ final class SelectionReportBuilder {
     List<SelectionReport.Point> frontier = new ArrayList<>();
     for (Candidate c : search.frontier()) {
       frontier.add(new SelectionReport.Point(c.size(settings.unit()), validation(settings, c),
-          crossValidated(settings, c), c.tree().depth(), c.tree().leafCount(),
+          crossValidated(settings, c), c.shape().kind().optionName(), c.shape().trees(),
+          c.shape().depth(), c.shape().leaves(),
           c.recipe().maxDepth(), c.recipe().minLeaf(), c.recipe().alpha(),
           c.index() == choice.candidate().index()));
     }
@@ -34,7 +37,8 @@ final class SelectionReportBuilder {
     return new SelectionReport(settings.budget(), settings.unit().optionName(),
         settings.metric().optionName(), scoredOn(settings),
         settings.refitAll() ? "train+validation" : "train", settings.maxDepth(),
-        settings.minLeafs(), search.settingsTried(), search.candidates().size(), smallest,
+        settings.minLeafs(), settings.kinds().stream().map(ModelKind::optionName).toList(),
+        search.settingsTried(), search.candidates().size(), smallest,
         picked, choice.fallbacks(), frontier);
   }
 

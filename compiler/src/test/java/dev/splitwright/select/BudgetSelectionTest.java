@@ -83,7 +83,7 @@ class BudgetSelectionTest {
     for (Candidate c : search.candidates()) {
       // Scores are the candidate's own validation score.
       assertThat(c.score()).isEqualTo(
-          Evaluator.score(c.tree(), pump.validation()).get(Metric.BALANCED_ACCURACY));
+          Evaluator.score(c.model(), pump.validation()).get(Metric.BALANCED_ACCURACY));
       if (c.size(settings.unit()) <= 1700) {
         assertThat(c.score()).isLessThanOrEqualTo(chosen.score());
       }
@@ -98,7 +98,7 @@ class BudgetSelectionTest {
     SelectionReport.Chosen chosen = outcome.report().chosen();
     assertThat(chosen.size()).isLessThanOrEqualTo(2048)
         .isEqualTo(outcome.verification().classFileBytes());
-    assertThat(chosen.leaves()).isEqualTo(outcome.tree().leafCount());
+    assertThat(chosen.leaves()).isEqualTo(((DecisionTree) outcome.model()).leafCount());
     assertThat(outcome.report().frontier()).filteredOn(SelectionReport.Point::chosen)
         .singleElement()
         .satisfies(p -> assertThat(p.size()).isEqualTo(chosen.size()));
@@ -185,7 +185,8 @@ class BudgetSelectionTest {
       DecisionTree grown = CartTrainer.train(all, TrainingOptions.builder()
           .maxDepth(chosen.maxDepth()).minLeaf(chosen.minLeaf()).build());
       assertThat(PruningPath.of(grown, ClassWeights.none()))
-          .extracting(dev.splitwright.train.PrunedTree::tree).contains(outcome.tree());
+          .extracting(dev.splitwright.train.PrunedTree::tree)
+          .contains((DecisionTree) outcome.model());
       for (String line : outcome.report().fallbacks()) {
         assertThat(line).contains("after refitting on train+validation, over the budget");
       }

@@ -7,6 +7,7 @@ import dev.splitwright.data.Dataset;
 import dev.splitwright.data.Feature;
 import dev.splitwright.data.InputException;
 import dev.splitwright.data.Schema;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.train.CartTrainer;
 import dev.splitwright.train.TrainingOptions;
@@ -45,15 +46,16 @@ class CandidateGeneratorTest {
         CandidateGenerator.generate(handTable(), settings, SearchProgress.none());
 
     List<DistinctTree> trees = result.trees();
-    assertThat(trees).extracting(g -> g.tree().leafCount()).containsExactly(2, 1, 4);
+    assertThat(trees).extracting(g -> ((DecisionTree) g.model()).leafCount())
+        .containsExactly(2, 1, 4);
     // First met at depth limit 1 (its path: the root split at 0, the leaf at 5/13), then the full
     // tree at depth limit 3 (its path starts at 0 and is next pruned at 1/26).
     assertRecipe(trees.get(0).recipe(), 1, 1, 0, 5.0 / 13);
     assertRecipe(trees.get(1).recipe(), 1, 1, 5.0 / 13, Double.POSITIVE_INFINITY);
     assertRecipe(trees.get(2).recipe(), 3, 1, 0, 1.0 / 26);
-    assertThat(predictions(trees.get(2).tree())).isEqualTo("AAAAABBBABBBB");
-    assertThat(predictions(trees.get(0).tree())).isEqualTo("AAAAABBBBBBBB");
-    assertThat(predictions(trees.get(1).tree())).isEqualTo("BBBBBBBBBBBBB");
+    assertThat(predictions((DecisionTree) trees.get(2).model())).isEqualTo("AAAAABBBABBBB");
+    assertThat(predictions((DecisionTree) trees.get(0).model())).isEqualTo("AAAAABBBBBBBB");
+    assertThat(predictions((DecisionTree) trees.get(1).model())).isEqualTo("BBBBBBBBBBBBB");
     // Path lengths summed over the grid, worked by hand: min-leaf 1 gives 2 + 2 + 6 * 3 = 22
     // (depth 2's extra split does not lower the cost and is dropped); min-leaf 2 gives 2 per depth
     // (its deeper splits never lower the cost) = 16; min-leaf 5 gives 2 per depth = 16 (N1's 8
@@ -67,7 +69,8 @@ class CandidateGeneratorTest {
     List<DistinctTree> trees = CandidateGenerator.generate(train,
         SearchSettings.builder(1000).maxDepth(6).build(), SearchProgress.none()).trees();
 
-    assertThat(new HashSet<>(trees.stream().map(DistinctTree::tree).toList())).hasSameSizeAs(trees);
+    assertThat(new HashSet<>(trees.stream().map(DistinctTree::model).toList()))
+        .hasSameSizeAs(trees);
     assertThat(trees).extracting(DistinctTree::index)
         .isEqualTo(java.util.stream.IntStream.range(0, trees.size()).boxed().toList());
   }
@@ -76,8 +79,8 @@ class CandidateGeneratorTest {
   void includesEveryDirectlyTrainedTreeOfTheGrid() throws InputException {
     Dataset train = TestData.split(TestData.pump()).train();
     SearchSettings settings = SearchSettings.builder(1000).maxDepth(5).build();
-    List<DecisionTree> trees = CandidateGenerator.generate(train, settings, SearchProgress.none())
-        .trees().stream().map(DistinctTree::tree).toList();
+    List<Classifier> trees = CandidateGenerator.generate(train, settings, SearchProgress.none())
+        .trees().stream().map(DistinctTree::model).toList();
 
     // Each tree the trainer grows for a grid point, pruned of splits that do not lower the
     // training cost (the first entry of its pruning path), is a candidate.

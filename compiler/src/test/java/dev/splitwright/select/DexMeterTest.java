@@ -14,6 +14,7 @@ import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.SplitParts;
+import dev.splitwright.model.DecisionTree;
 import dev.splitwright.verify.Verifier;
 import java.util.ArrayList;
 import java.util.List;
@@ -56,7 +57,8 @@ class DexMeterTest {
         .build();
     List<EmittedSource> sources = new ArrayList<>();
     for (int i = 0; i < candidates.size(); i += 9) {
-      sources.add(JavaEmitter.emit(candidates.get(i).tree(), options, HeaderInfo.none()));
+      sources.add(JavaEmitter.emit((DecisionTree) candidates.get(i).model(), options,
+          HeaderInfo.none()));
     }
     DexMeter dex = DexMeter.forMinApi(24);
     SizeMeter meter = new SizeMeter(compiler, Optional.of(dex));
@@ -76,7 +78,7 @@ class DexMeterTest {
 
   @Test
   void withoutADexMeterNoDexSizeIsMade() {
-    EmittedSource source = JavaEmitter.emit(candidates.get(0).tree(),
+    EmittedSource source = JavaEmitter.emit((DecisionTree) candidates.get(0).model(),
         EmitOptions.builder("p", "C").build(), HeaderInfo.none());
     Sizes sizes = new SizeMeter(compiler).measureAlone(source);
     assertThat(sizes.dexBytes()).isZero();
@@ -89,7 +91,8 @@ class DexMeterTest {
     // file, whatever the class files say.
     DistinctTree tree = candidates.get(candidates.size() / 2);
     EmitOptions options = EmitOptions.builder("p", "C").layout(Layout.SMALLEST).build();
-    List<EmittedSource> both = CandidateEmitter.of(options).emit(tree.tree(), HeaderInfo.none());
+    List<EmittedSource> both = CandidateEmitter.of(options)
+        .emit((DecisionTree) tree.model(), HeaderInfo.none());
     SizeMeter meter = new SizeMeter(compiler, Optional.of(DexMeter.forMinApi(24)));
     List<Sizes> sizes = meter.measure(both);
     assertThat(both).hasSize(2);
@@ -111,7 +114,7 @@ class DexMeterTest {
     }
     // The same grid on the same rows gives the same candidates in the same order.
     Candidate same = outcome.candidates().get(tree.index());
-    assertThat(same.tree().leafCount()).isEqualTo(tree.tree().leafCount());
+    assertThat(same.shape().leaves()).isEqualTo(Shape.of(tree.model()).leaves());
     assertThat(same.layout()).isEqualTo(both.get(smaller).layout());
     assertThat(same.sizes().dexBytes()).isEqualTo(sizes.get(smaller).dexBytes());
   }

@@ -8,6 +8,7 @@ import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
+import dev.splitwright.model.DecisionTree;
 import dev.splitwright.verify.Verifier;
 import java.io.IOException;
 import java.nio.file.Files;
@@ -51,7 +52,8 @@ class SizeMeterTest {
         .build();
     List<EmittedSource> sources = new ArrayList<>();
     for (int i = 0; i < candidates.size(); i += 7) {
-      sources.add(JavaEmitter.emit(candidates.get(i).tree(), options, HeaderInfo.none()));
+      sources.add(JavaEmitter.emit((DecisionTree) candidates.get(i).model(), options,
+          HeaderInfo.none()));
     }
     SizeMeter meter = new SizeMeter(compiler);
 
