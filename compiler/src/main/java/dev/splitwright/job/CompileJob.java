@@ -172,7 +172,7 @@ public final class CompileJob {
         ? Optional.of(model.trainedOn()) : Optional.empty();
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), trainedOn,
         testLog, tree, options, lang.name(), emission, sizes, verification,
-        lang.verifyingCompiler(), scores, null);
+        lang.verifyingCompiler(), lang.onChipProofs(), scores, null);
     EmittedSource source = emission instanceof JavaLanguage.JavaEmission java
         ? java.source() : null;
     if (!verification.passed()) {

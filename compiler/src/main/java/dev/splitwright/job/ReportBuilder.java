@@ -42,6 +42,20 @@ final class ReportBuilder {
       String language, Emission emission, SizeFigures sizes,
       VerificationResult verification, Optional<CompileReport.Compiler> compiler,
       Map<String, Scores> scores, Object selection) {
+    return build(dataName, sha256, trainedOn, testData, tree, options, language, emission, sizes,
+        verification, compiler, List.of(), scores, selection);
+  }
+
+  /**
+   * The report of a run whose code was also proved on emulated cores.
+   *
+   * @param onChip the proofs on emulated cores, in order; empty when none ran
+   */
+  static CompileReport build(String dataName, String sha256, Optional<DataFile> trainedOn,
+      Optional<FieldLog> testData, DecisionTree tree, Map<String, Object> options,
+      String language, Emission emission, SizeFigures sizes,
+      VerificationResult verification, Optional<CompileReport.Compiler> compiler,
+      List<CompileReport.OnChip> onChip, Map<String, Scores> scores, Object selection) {
     Schema schema = tree.schema();
     Map<String, CompileReport.PartScores> parts = new LinkedHashMap<>();
     scores.forEach((part, s) -> parts.put(part, partScores(schema, s)));
@@ -67,7 +81,7 @@ final class ReportBuilder {
         new CompileReport.Verification(verification.passed(), compiler.orElse(null),
             verification.inputsChecked(), verification.mismatches(),
             verification.branchCoverage(), verification.coveredSplits(), verification.splits(),
-            verification.firstMismatches()),
+            verification.firstMismatches(), onChip),
         selection);
   }
 
