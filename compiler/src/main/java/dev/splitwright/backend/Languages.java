@@ -95,6 +95,9 @@ public final class Languages {
     Optional<OnChipStage> stage = Optional.empty();
     CTools measuring = tools;
     try {
+      // The flags first: a bad --cflags is named even where the tools are missing.
+      cores.core().ifPresent(core -> core.compilerFlags(cores.codeFlags()));
+      cores.proveOn().forEach(core -> core.compilerFlags(cores.codeFlags()));
       if (!cores.proveOn().isEmpty()) {
         CortexMToolchain arm;
         try {
