@@ -1,6 +1,7 @@
 package dev.splitwright.backend;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import dev.splitwright.cgen.CEmitOptions;
 import dev.splitwright.cgen.CSource;
@@ -44,6 +45,11 @@ class OnChipGateTest {
   @TempDir Path out;
 
   private CompileResult run(UnaryOperator<CSource> chipSource) throws Exception {
+    return run(chipSource, Duration.ofMinutes(5));
+  }
+
+  private CompileResult run(UnaryOperator<CSource> chipSource, Duration runLimit)
+      throws Exception {
     CortexMToolchain arm = OnChipFixtures.arm();
     EmitOptions emit = EmitOptions.builder("", "PumpState").layout(Layout.BRANCHES).build();
     CompileRequest request = new CompileRequest(DemoFiles.pump(), Optional.empty(),
@@ -51,7 +57,7 @@ class OnChipGateTest {
         new double[] {0.6, 0.2, 0.2}, 1, TrainingOptions.builder().maxDepth(4).build(), emit,
         out, Optional.empty(), "test");
     OnChipStage stage = new OnChipStage(arm, List.of(CortexMProfile.CORTEX_M0PLUS),
-        List.of("-Os"), Duration.ofMinutes(5), chipSource);
+        List.of("-Os"), runLimit, chipSource);
     CLanguage c = new CLanguage(CEmitOptions.of("pump_state"), false,
         CCompiler.find("cc", CLanguage.VERIFY_FLAGS, CLanguage.TIMEOUT),
         CCompiler.find("cc", List.of("-Os"), CLanguage.TIMEOUT), Optional.of(stage));
@@ -83,6 +89,22 @@ class OnChipGateTest {
     assertThat(result.report().verification().onChip().get(0).inputsChecked())
         .isEqualTo(result.verification().inputsChecked());
     assertThat(result.written()).isNotEmpty();
+  }
+
+  @Test
+  void anImageThatNeverFinishesIsStoppedAndTheRunWritesNothing() {
+    String head = "int pump_state_classify(const float x[PUMP_STATE_FEATURE_COUNT])\n{\n";
+    UnaryOperator<CSource> spin = source -> {
+      assertThat(source.sourceText()).contains(head);
+      return new CSource(source.headerName(), source.headerText(), source.sourceName(),
+          source.sourceText().replace(head, head + "    for (;;) {\n    }\n"));
+    };
+
+    assertThatThrownBy(() -> run(spin, Duration.ofSeconds(5)))
+        .isInstanceOf(UnfinishedProofException.class)
+        .hasMessageStartingWith("the proof on cortex-m0plus did not finish: ")
+        .hasMessageContaining("within 5000 ms");
+    assertThat(out).isEmptyDirectory();
   }
 
   /**
