@@ -61,10 +61,11 @@ final class LanguageOptions {
           + "--cflags adds to them, with -Os unless it gives an -O level. Not with --cc.")
   String core;
 
-  @Option(names = "--prove-on", paramLabel = "CORE[,CORE...]", split = ",",
+  @Option(names = "--prove-on", paramLabel = "CORE", split = ",",
       description = "With --emit c: after the check on this machine, build the C with a "
-          + "bare-metal harness for each core and run it on qemu-system-arm over the same inputs; "
-          + "any answer that differs from the model fails the run (exit 1).")
+          + "bare-metal harness for each core (names as --core) and run it on qemu-system-arm "
+          + "over the same inputs; any answer that differs from the model fails the run "
+          + "(exit 1), as does an emulator run past 5 minutes.")
   List<String> proveOn = new ArrayList<>();
 
   /** The language's name, checked; throws naming {@code --emit}. */

@@ -4,9 +4,12 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.splitwright.backend.BackendAccess;
 import dev.splitwright.demo.DemoFiles;
 import dev.splitwright.onchip.OnChipFixtures;
 import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -17,6 +20,7 @@ import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import picocli.CommandLine;
 
 /**
  * {@code compile --emit c --core ... --prove-on ...}: the flash measured for a Cortex-M core, the
@@ -192,6 +196,28 @@ class OnChipCommandTest {
         + "\"qemu-system-arm\" is not installed (not found on PATH); install the Debian package "
         + "qemu-system-arm, e.g. apt-get install qemu-system-arm");
     assertThat(temp.resolve("out")).doesNotExist();
+  }
+
+  /**
+   * An on-chip proof that did not finish (time limit, fault) fails the run as a mismatch does:
+   * exit 1 and one line; {@code OnChipGateTest} shows the job throws it and writes nothing.
+   */
+  @Test
+  void anUnfinishedProofExitsOneWithOneLine() {
+    StringWriter err = new StringWriter();
+    CommandLine cli = new CommandLine(new SplitwrightCommand());
+    cli.setErr(new PrintWriter(err, true));
+    CommandLine.ParseResult parsed = cli.parseArgs("compile", "--data", "a.csv", "--class", "C",
+        "--out", "o");
+
+    int code = new ErrorHandlers.Execution().handleExecutionException(
+        BackendAccess.unfinishedProof("the proof on cortex-m0plus did not finish: the image did "
+            + "not finish 5448 inputs within 300000 ms\nsecond line"), cli, parsed);
+
+    assertThat(code).isEqualTo(ExitCodes.VERIFICATION_FAILED).isEqualTo(1);
+    assertThat(err.toString().strip().lines()).containsExactly("error: verification failed, "
+        + "nothing written: the proof on cortex-m0plus did not finish: the image did not finish "
+        + "5448 inputs within 300000 ms");
   }
 
   private record ChildRun(int exitCode, String err) {}
