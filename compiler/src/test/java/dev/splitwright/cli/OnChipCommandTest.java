@@ -41,7 +41,7 @@ class OnChipCommandTest {
   }
 
   @Test
-  void pumpDemoIsProvedOnBothCoresOverTheHostCheckInputs() throws IOException {
+  void pumpDemoIsProvedOnBothCoresOverTheHostCheckInputs() throws Exception {
     OnChipFixtures.arm();
     Path out = temp.resolve("out");
 
@@ -80,8 +80,37 @@ class OnChipCommandTest {
     // The measured object and the M0+ proof image are built with the same flags.
     assertThat(texts(onChip.get(0).get("compilerFlags"))).isEqualTo(measured);
     assertThat(report.get("flash").get("compiler").asText()).contains("arm-none-eabi-gcc");
-    assertThat(run.out()).contains("flash " + report.get("flash").get("totalBytes").asLong()
-        + " bytes (arm-none-eabi-gcc " + String.join(" ", measured) + ")");
+    long flash = report.get("flash").get("totalBytes").asLong();
+    assertThat(run.out()).contains("flash " + flash + " bytes (arm-none-eabi-gcc "
+        + String.join(" ", measured) + ")");
+    // Outside reference, GNU binutils: the written file rebuilt by hand with the recorded flags,
+    // its .text*, .rodata* and .data* sections as arm-none-eabi-size -A lists them.
+    assertThat(sizeAFlashBytes(out.resolve("pump_state.c"), measured)).isEqualTo(flash);
+  }
+
+  private long sizeAFlashBytes(Path source, List<String> flags)
+      throws IOException, InterruptedException {
+    Path object = temp.resolve("by-hand.o");
+    List<String> compile = new ArrayList<>(List.of("arm-none-eabi-gcc"));
+    compile.addAll(flags);
+    compile.addAll(List.of("-c", source.toString(), "-o", object.toString()));
+    assertThat(exec(compile)).isEmpty();
+    long bytes = 0;
+    for (String line : exec(List.of("arm-none-eabi-size", "-A", object.toString())).split("\n")) {
+      String[] cells = line.trim().split("\\s+");
+      if (cells.length == 3 && cells[0].matches("\\.(text|rodata|data)(\\..*)?")) {
+        bytes += Long.parseLong(cells[1]);
+      }
+    }
+    return bytes;
+  }
+
+  private static String exec(List<String> command) throws IOException, InterruptedException {
+    Process process = new ProcessBuilder(command).redirectErrorStream(true).start();
+    String text = new String(process.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+    assertThat(process.waitFor(120, TimeUnit.SECONDS)).isTrue();
+    assertThat(process.exitValue()).as("%s: %s", command, text).isZero();
+    return text;
   }
 
   @Test
