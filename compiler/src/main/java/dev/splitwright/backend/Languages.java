@@ -118,8 +118,10 @@ public final class Languages {
             cores.core().get().compilerFlags(cores.codeFlags()));
       }
     } catch (IllegalArgumentException e) {
-      throw new InputException("cflags", e.getMessage(),
-          "give one optimisation level for the cores, e.g. -Os");
+      // The recorded flags must say how the code was optimised (CortexMProfile#compilerFlags).
+      throw new InputException("cflags", "a core's build needs exactly one of -O0 -O1 -O2 -O3 "
+          + "-Os -Oz -Og -O (not -Ofast, which gives up IEEE 754 semantics), but the flags are '"
+          + String.join(" ", cores.codeFlags()) + "'", "give one optimisation level, e.g. -Os");
     }
     return c(options, measuring, stage);
   }
