@@ -41,7 +41,8 @@ import java.util.Optional;
  * C99: a header and a source file emitted by {@link CEmitter}. The check builds them with a
  * generated harness by the host compiler and runs that program on the verification inputs, handed
  * over as raw IEEE 754 bit patterns; the size is the flash bytes of the object file the target
- * compiler writes, read from its ELF section headers.
+ * compiler writes, read from its ELF section headers. With an {@link OnChipStage} the check then
+ * proves the same files over the same inputs on emulated Cortex-M cores.
  */
 public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   /** Flags of the host build that is checked: C99, no contraction of a*b+c, every warning. */
