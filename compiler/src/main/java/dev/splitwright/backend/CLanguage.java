@@ -19,6 +19,7 @@ import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.onchip.OnChipProof;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.SearchMeter;
@@ -42,7 +43,8 @@ import java.util.Optional;
  * C99: a header and a source file emitted by {@link CEmitter}. The check builds them with a
  * generated harness by the host compiler and runs that program on the verification inputs, handed
  * over as raw IEEE 754 bit patterns; the size is the flash bytes of the object file the target
- * compiler writes, read from its ELF section headers.
+ * compiler writes, read from its ELF section headers. With an {@link OnChipStage} the check then
+ * proves the same files over the same inputs on emulated Cortex-M cores.
  */
 public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   /** Flags of the host build that is checked: C99, no contraction of a*b+c, every warning. */
@@ -60,17 +62,29 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   private final boolean smallest;
   private final CCompiler host;
   private final CCompiler target;
+  private final Optional<OnChipStage> onChip;
   private String hostVersion;
+  private List<CompileReport.OnChip> onChipProofs = List.of();
 
   /**
    * C emitted with {@code options} (its layout is ignored when {@code smallest}), checked with
    * {@code host} (which should use {@link #VERIFY_FLAGS}) and measured with {@code target}.
    */
   public CLanguage(CEmitOptions options, boolean smallest, CCompiler host, CCompiler target) {
+    this(options, smallest, host, target, Optional.empty());
+  }
+
+  /**
+   * C as above whose check, once the host proof passed, goes on to prove the same files on
+   * emulated Cortex-M cores with {@code onChip}.
+   */
+  public CLanguage(CEmitOptions options, boolean smallest, CCompiler host, CCompiler target,
+      Optional<OnChipStage> onChip) {
     this.options = Objects.requireNonNull(options, "options");
     this.smallest = smallest;
     this.host = Objects.requireNonNull(host, "host");
     this.target = Objects.requireNonNull(target, "target");
+    this.onChip = Objects.requireNonNull(onChip, "onChip");
   }
 
   /**
@@ -222,9 +236,49 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
     }
   }
 
+  /**
+   * {@inheritDoc}
+   *
+   * <p>When the host proof passed and cores were named, the same files and inputs are proved on
+   * each emulated core in turn; a core with a mismatch fails the check with that core's figures
+   * and first mismatches, each naming the core.
+   *
+   * @throws InputException naming {@code --cflags} if the cross compiler rejects a proof image
+   * @throws UnfinishedProofException if a proof image runs past its time limit or fails
+   */
   @Override
   public VerificationResult verify(DecisionTree tree, CEmission emission, List<Dataset> rows,
-      long seed) {
+      long seed) throws InputException {
+    VerificationResult onHost = verifyOnHost(tree, emission, rows, seed);
+    onChipProofs = List.of();
+    if (!onHost.passed() || onChip.isEmpty()) {
+      return onHost;
+    }
+    BatchVerifier.Inputs inputs =
+        BatchVerifier.inputs(tree, emission.options().inputKind(), rows, seed);
+    List<OnChipProof> proofs =
+        onChip.get().prove(tree, emission.source(), emission.options(), inputs);
+    for (OnChipProof proof : proofs) {
+      if (!proof.passed()) {
+        List<String> described = new ArrayList<>();
+        for (String mismatch : proof.firstMismatches()) {
+          described.add("on " + proof.core() + " (" + proof.board() + "): " + mismatch);
+        }
+        return new VerificationResult(proof.inputsChecked(), proof.mismatches(), described,
+            onHost.splits(), onHost.coveredSplits(), 0, 0, 0, List.of(), 0, List.of());
+      }
+    }
+    onChipProofs = proofs.stream().map(OnChipStage::reported).toList();
+    return onHost;
+  }
+
+  @Override
+  public List<CompileReport.OnChip> onChipProofs() {
+    return onChipProofs;
+  }
+
+  private VerificationResult verifyOnHost(DecisionTree tree, CEmission emission,
+      List<Dataset> rows, long seed) {
     CEmitOptions used = emission.options();
     Map<String, String> files = new LinkedHashMap<>();
     files.put(emission.source().headerName(), emission.source().headerText());

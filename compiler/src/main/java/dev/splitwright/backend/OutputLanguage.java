@@ -74,4 +74,12 @@ public interface OutputLanguage<E extends Emission> {
   default Optional<CompileReport.Compiler> verifyingCompiler() {
     return Optional.empty();
   }
+
+  /**
+   * The proofs of the same code on emulated devices that {@link #verify} ran after its own check,
+   * once it has run, in order. Empty when none were asked for.
+   */
+  default List<CompileReport.OnChip> onChipProofs() {
+    return List.of();
+  }
 }

@@ -1,5 +1,6 @@
 package dev.splitwright.cli;
 
+import dev.splitwright.backend.UnfinishedProofException;
 import dev.splitwright.data.InputException;
 import dev.splitwright.job.OutputException;
 import java.io.PrintWriter;
@@ -38,7 +39,10 @@ final class ErrorHandlers {
     }
   }
 
-  /** Failures while running: input errors exit 2, anything else is ours and exits 3. */
+  /**
+   * Failures while running: input errors exit 2, a proof that could not finish exits 1 like a
+   * failed one, anything else is ours and exits 3.
+   */
   static final class Execution implements CommandLine.IExecutionExceptionHandler {
     @Override
     public int handleExecutionException(Exception e, CommandLine cli,
@@ -52,6 +56,10 @@ final class ErrorHandlers {
       } else if (e instanceof OutputException) {
         err.println(PREFIX + oneLine(e.getMessage()));
         code = ExitCodes.BAD_INPUT;
+      } else if (e instanceof UnfinishedProofException) {
+        // Not shown to agree with the model, like a mismatch; the message names core and cause.
+        err.println(PREFIX + "verification failed, nothing written: " + oneLine(e.getMessage()));
+        code = ExitCodes.VERIFICATION_FAILED;
       } else if (e instanceof java.io.IOException) {
         err.println(PREFIX + "cannot write output: " + oneLine(String.valueOf(e.getMessage())));
         code = ExitCodes.BAD_INPUT;

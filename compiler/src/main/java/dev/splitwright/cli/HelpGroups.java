@@ -32,7 +32,8 @@ final class HelpGroups {
           "--refit-all", "--dex-size", "--min-api"),
       new Group("Emitted code", "--emit", "--package", "--class", "--layout", "--input",
           "--int-inputs", "--named-args", "--probabilities", "--bare", "--max-method-bytes"),
-      new Group("C toolchain (--emit c)", "--host-cc", "--cc", "--cflags"),
+      new Group("C toolchain (--emit c)", "--host-cc", "--cc", "--cflags", "--core",
+          "--prove-on"),
       new Group("Output and run", "--out", "--quiet", "--debug", "--help", "--version"));
 
   /** A heading and the longest names of the options under it, in the order shown. */

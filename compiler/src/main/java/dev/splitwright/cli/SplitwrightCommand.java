@@ -11,7 +11,8 @@ import picocli.CommandLine.Command;
         + "dependency-free, verified Java source file.",
     subcommands = {CompileCommand.class, DemoCommand.class, CheckCommand.class},
     exitCodeListHeading = "%nExit codes:%n",
-    exitCodeList = {"0:success", "1:the emitted code disagreed with the model (nothing written)",
+    exitCodeList = {"0:success", "1:the emitted code disagreed with the model, or its proof on an "
+        + "emulated core did not finish (nothing written)",
         "2:bad input file or option", "3:internal error (please report it)",
         "4:check: a score fell below its --floor"})
 final class SplitwrightCommand implements Runnable {

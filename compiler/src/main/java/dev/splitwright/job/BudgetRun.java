@@ -55,7 +55,8 @@ final class BudgetRun {
     SizeFigures sizes = lang.measure(emission);
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(),
         Optional.empty(), testLog, tree, options, lang.name(), emission, sizes,
-        outcome.verification(), lang.verifyingCompiler(), scores, outcome.report());
+        outcome.verification(), lang.verifyingCompiler(), lang.onChipProofs(), scores,
+        outcome.report());
     if (!outcome.verification().passed()) {
       return new CompileResult(tree, emission, sizes, outcome.verification(), scores, report,
           List.of());

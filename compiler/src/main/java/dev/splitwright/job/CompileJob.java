@@ -173,7 +173,7 @@ public final class CompileJob {
         ? Optional.of(model.trainedOn()) : Optional.empty();
     CompileReport report = ReportBuilder.build(loaded.sourceName(), loaded.sha256(), trainedOn,
         testLog, tree, options, lang.name(), emission, sizes, verification,
-        lang.verifyingCompiler(), scores, null);
+        lang.verifyingCompiler(), lang.onChipProofs(), scores, null);
     if (!verification.passed()) {
       return new CompileResult(tree, emission, sizes, verification, scores, report, List.of());
     }

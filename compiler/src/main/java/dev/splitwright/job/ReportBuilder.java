@@ -36,12 +36,13 @@ final class ReportBuilder {
    * @param sizes what they weigh
    * @param compiler the C compiler that built the checked program, if any
    * @param selection the budget search's section, or null without a budget
+   * @param onChip the proofs on emulated cores, in order; empty when none ran
    */
   static CompileReport build(String dataName, String sha256, Optional<DataFile> trainedOn,
       Optional<FieldLog> testData, DecisionTree tree, Map<String, Object> options,
       String language, Emission emission, SizeFigures sizes,
       VerificationResult verification, Optional<CompileReport.Compiler> compiler,
-      Map<String, Scores> scores, Object selection) {
+      List<CompileReport.OnChip> onChip, Map<String, Scores> scores, Object selection) {
     Schema schema = tree.schema();
     Map<String, CompileReport.PartScores> parts = new LinkedHashMap<>();
     scores.forEach((part, s) -> parts.put(part, partScores(schema, s)));
@@ -67,7 +68,7 @@ final class ReportBuilder {
         new CompileReport.Verification(verification.passed(), compiler.orElse(null),
             verification.inputsChecked(), verification.mismatches(),
             verification.branchCoverage(), verification.coveredSplits(), verification.splits(),
-            verification.firstMismatches()),
+            verification.firstMismatches(), onChip),
         selection);
   }
 

@@ -100,13 +100,53 @@ public record CompileReport(
    *
    * @param compiler the C compiler that built the checked program; absent for Java, which is
    *     checked in this JVM
+   * @param onChip the proofs of the same code on emulated Cortex-M cores ({@code --prove-on}), in
+   *     the order asked for; absent when none was asked for
    */
   @JsonInclude(JsonInclude.Include.NON_NULL)
   @JsonPropertyOrder({"passed", "compiler", "inputsChecked", "mismatches", "branchCoverage",
-      "splitsCovered", "splits", "firstMismatches"})
+      "splitsCovered", "splits", "firstMismatches", "onChip"})
   public record Verification(boolean passed, Compiler compiler, long inputsChecked,
       long mismatches, double branchCoverage, int splitsCovered, int splits,
-      List<String> firstMismatches) {}
+      List<String> firstMismatches, List<OnChip> onChip) {
+
+    public Verification {
+      onChip = onChip == null || onChip.isEmpty() ? null : List.copyOf(onChip);
+    }
+  }
+
+  /**
+   * The emitted C proved on one emulated Cortex-M core: built with a bare-metal harness, run on
+   * qemu over the inputs the host check used, every answer compared with the model.
+   *
+   * @param core the core's name as {@code --prove-on} takes it, e.g. {@code cortex-m0plus}
+   * @param board the qemu machine that ran the image, e.g. {@code mps2-an385}
+   * @param emulator the first line of {@code qemu-system-arm --version}
+   * @param compilerFlags every compiler option of the image, in order
+   * @param linkFlags every link option of the image, after the sources
+   * @param instructions instructions per classify call as the emulator counted them
+   */
+  @JsonInclude(JsonInclude.Include.NON_NULL)
+  @JsonPropertyOrder({"core", "board", "emulator", "compilerFlags", "linkFlags", "inputsChecked",
+      "mismatches", "instructions"})
+  public record OnChip(String core, String board, String emulator, List<String> compilerFlags,
+      List<String> linkFlags, int inputsChecked, int mismatches, Instructions instructions) {
+
+    public OnChip {
+      compilerFlags = List.copyOf(compilerFlags);
+      linkFlags = List.copyOf(linkFlags);
+    }
+  }
+
+  /**
+   * Instructions one classify call executes on an emulated core, over every input checked.
+   *
+   * @param best the fewest of one call
+   * @param worst the most of one call
+   * @param mean the mean per call
+   */
+  @JsonPropertyOrder({"best", "worst", "mean"})
+  public record Instructions(long best, long worst, double mean) {}
 
   /**
    * A C compiler as a report names it.

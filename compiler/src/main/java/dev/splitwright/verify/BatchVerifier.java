@@ -44,6 +44,55 @@ public final class BatchVerifier {
   }
 
   /**
+   * The inputs {@link #check} hands to a classifier of {@code kind}, in that order, so that another
+   * run of the same code (e.g. on an emulated core) checks exactly the same set.
+   *
+   * @param kind {@link InputKind#FLOAT} or {@link InputKind#INT}
+   * @param rows the data whose every row is checked
+   * @param seed the seed of the random inputs
+   */
+  public static Inputs inputs(DecisionTree tree, InputKind kind, List<Dataset> rows, long seed) {
+    Objects.requireNonNull(tree, "tree");
+    Objects.requireNonNull(kind, "kind");
+    Objects.requireNonNull(rows, "rows");
+    List<float[]> probes = Verifier.inputs(tree, rows, seed, Verifier.RANDOM_PROBES);
+    if (kind == InputKind.FLOAT) {
+      return new Inputs(kind, probes, List.of());
+    }
+    if (kind != InputKind.INT) {
+      throw new IllegalArgumentException("a batch classifier takes float or int input");
+    }
+    List<int[]> ints = new ArrayList<>();
+    for (float[] probe : probes) {
+      ints.add(toInts(tree.schema(), probe));
+    }
+    ints.addAll(IntProbes.of(tree));
+    return new Inputs(kind, List.of(), ints);
+  }
+
+  /**
+   * The inputs of one check: every row, the boundary probes of every split and the seeded random
+   * inputs, as float rows for float input or, for int input, converted as Java converts float to
+   * int and followed by {@link IntProbes}.
+   *
+   * @param floats the rows of float input, empty for int input
+   * @param ints the rows of int input, empty for float input
+   */
+  public record Inputs(InputKind kind, List<float[]> floats, List<int[]> ints) {
+
+    public Inputs {
+      Objects.requireNonNull(kind, "kind");
+      floats = List.copyOf(floats);
+      ints = List.copyOf(ints);
+    }
+
+    /** How many inputs. */
+    public int size() {
+      return kind == InputKind.FLOAT ? floats.size() : ints.size();
+    }
+  }
+
+  /**
    * Compares {@code classifier} with {@code tree}: the class of every input and, with {@code
    * probabilities}, every frequency bit for bit with {@link DecisionTree#probabilities} narrowed
    * to float.
@@ -54,24 +103,17 @@ public final class BatchVerifier {
       boolean probabilities, List<Dataset> rows, long seed, BatchClassifier classifier) {
     Objects.requireNonNull(tree, "tree");
     Objects.requireNonNull(classifier, "classifier");
-    List<float[]> probes = Verifier.inputs(tree, rows, seed, Verifier.RANDOM_PROBES);
+    Inputs inputs = inputs(tree, kind, rows, seed);
     List<float[]> modelInputs = new ArrayList<>();
     Answers answers;
     if (kind == InputKind.FLOAT) {
-      modelInputs.addAll(probes);
-      answers = classifier.floats(probes);
-    } else if (kind == InputKind.INT) {
-      List<int[]> ints = new ArrayList<>();
-      for (float[] probe : probes) {
-        ints.add(toInts(tree.schema(), probe));
-      }
-      ints.addAll(IntProbes.of(tree));
-      for (int[] x : ints) {
+      modelInputs.addAll(inputs.floats());
+      answers = classifier.floats(inputs.floats());
+    } else {
+      for (int[] x : inputs.ints()) {
         modelInputs.add(EmittedClassifier.modelInput(x));
       }
-      answers = classifier.ints(ints);
-    } else {
-      throw new IllegalArgumentException("a batch classifier takes float or int input");
+      answers = classifier.ints(inputs.ints());
     }
     if (answers.classes().length != modelInputs.size()
         || (probabilities && answers.probabilities().length != modelInputs.size())) {

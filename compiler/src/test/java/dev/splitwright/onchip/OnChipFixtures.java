@@ -25,7 +25,7 @@ import java.util.ArrayList;
 import java.util.List;
 
 /** The ARM tools, the pump sample's tree and the inputs verification uses, for on-chip tests. */
-final class OnChipFixtures {
+public final class OnChipFixtures {
   static final Duration BUILD_LIMIT = Duration.ofSeconds(300);
   static final Duration RUN_LIMIT = Duration.ofSeconds(300);
   /** The emitted-C warning set of the style guide, at -Os as for a device. */
@@ -38,7 +38,7 @@ final class OnChipFixtures {
   private OnChipFixtures() {}
 
   /** The ARM cross compiler and qemu, or the test is skipped with the packages to install. */
-  static CortexMToolchain arm() {
+  public static CortexMToolchain arm() {
     try {
       return CortexMToolchain.find(BUILD_LIMIT);
     } catch (ArmToolNotFoundException e) {

@@ -99,6 +99,23 @@ public final class CortexMToolchain {
     return new CortexMToolchain(compiler, emulatorPath, buildTimeout);
   }
 
+  /**
+   * Looks up the cross compiler alone, given by name on {@code PATH} or by path, for a run that
+   * builds for a core but emulates nothing.
+   *
+   * @throws ArmToolNotFoundException if it is missing; it names the Debian packages to install
+   */
+  public static void requireCompiler(String compiler) throws ArmToolNotFoundException {
+    Objects.requireNonNull(compiler, "compiler");
+    if (compiler.isBlank()) {
+      throw new IllegalArgumentException("compiler must not be blank");
+    }
+    if (ExecutableLookup.find(compiler).isEmpty()) {
+      throw new ArmToolNotFoundException(
+          compiler, ExecutableLookup.whereNotFound(compiler), COMPILER_PACKAGES);
+    }
+  }
+
   /** The emulator's executable file. */
   public Path emulator() {
     return emulator;
