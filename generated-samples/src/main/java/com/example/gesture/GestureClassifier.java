@@ -53,7 +53,7 @@ package com.example.gesture;
  * 55807607c9fb2853fa07112618ecd9a604a6f86fa8fe24f7f503ab512e8d1483.
  * <br>Options: --target gesture --split 0.6,0.2,0.2 --seed 11 --max-depth 8 --min-leaf 1 --impurity
  * gini --layout branches --input float --max-method-bytes 8000 --probabilities --budget 8KiB
- * --budget-unit class --metric balanced-accuracy --dex-size --min-api 24
+ * --budget-unit class --metric balanced-accuracy --kinds tree --dex-size --min-api 24
  *
  * <p>Outputs are statistical: validate them on your own data. They do not replace the safety
  * analysis and standards that apply to your product.
