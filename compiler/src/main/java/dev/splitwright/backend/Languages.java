@@ -12,6 +12,7 @@ import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.verify.Verifier;
+import java.nio.file.Path;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
@@ -170,13 +171,26 @@ public final class Languages {
         + String.join(" ", e.debianPackages()));
   }
 
+  /** The Debian package that ships {@code command}, by its file name; gcc for the unknown. */
+  static String debianPackage(String command) {
+    String name = Path.of(command).getFileName().toString();
+    if (name.startsWith("arm-none-eabi-")) {
+      return "gcc-arm-none-eabi";
+    }
+    if (name.startsWith("clang")) {
+      return "clang";
+    }
+    return name.startsWith("g++") || name.startsWith("c++") ? "g++" : "gcc";
+  }
+
   private static CCompiler find(String option, String command, List<String> flags)
       throws InputException {
     try {
       return CCompiler.find(command, flags, CLanguage.TIMEOUT);
     } catch (CCompilerNotFoundException e) {
       throw new InputException(option, "no C compiler '" + command + "' found",
-          "install one or name it with --" + option + " (a command on PATH or a path)");
+          "install it (on Debian: apt-get install " + debianPackage(command) + ") or name "
+              + "another with --" + option + " (a command on PATH or a path)");
     } catch (IllegalArgumentException e) {
       throw new InputException(option.equals("cc") ? "cflags" : option, e.getMessage(),
           "leave out -c, -S, -E and -o; the output is chosen by Splitwright");

@@ -100,6 +100,37 @@ class CBudgetCommandTest {
   }
 
   @Test
+  void aCrossCompilerBudgetOfOneKibibyteIsMetWhenRebuiltByHand() throws Exception {
+    assumeTrue(runs("arm-none-eabi-gcc"), "arm-none-eabi-gcc is needed: apt-get install "
+        + "gcc-arm-none-eabi libnewlib-arm-none-eabi (.ci/run does)");
+    Path out = temp.resolve("cc");
+    List<String> flags = List.of("-mcpu=cortex-m0plus", "-mthumb", "-Os");
+    CliRun run = CliRun.of(args(out, "1KiB", "--cc", "arm-none-eabi-gcc", "--cflags",
+        String.join(" ", flags)).toArray(new String[0]));
+    assertThat(run.exitCode()).as(run.err()).isZero();
+
+    JsonNode report = JSON.readTree(out.resolve("pump_state_classifier.report.json").toFile());
+    int chosen = report.get("selection").get("chosen").get("size").asInt();
+    assertThat(chosen).isLessThanOrEqualTo(1024);
+    assertThat(report.get("flash").get("compiler").asText()).contains("arm-none-eabi-gcc");
+    assertThat(flashBySize(out, "arm-none-eabi-gcc", flags, "arm-none-eabi-size"))
+        .isEqualTo(chosen);
+  }
+
+  @Test
+  void aMissingCrossCompilerIsExitTwoNamingTheDebianPackage() {
+    Path out = temp.resolve("missing");
+    CliRun run = CliRun.of(args(out, "1KiB", "--cc", "arm-none-eabi-gcc-does-not-exist")
+        .toArray(new String[0]));
+
+    assertThat(run.exitCode()).isEqualTo(2);
+    assertThat(run.err().strip()).isEqualTo("error: option --cc: no C compiler "
+        + "'arm-none-eabi-gcc-does-not-exist' found; install it (on Debian: apt-get install "
+        + "gcc-arm-none-eabi) or name another with --cc (a command on PATH or a path)");
+    assertThat(out).doesNotExist();
+  }
+
+  @Test
   void aBudgetBelowTheSmallestObjectNamesTheLeastInFlashBytes() {
     Path out = temp.resolve("small");
     CliRun run = CliRun.of(args(out, "64", "--max-depth", "3").toArray(new String[0]));
