@@ -12,14 +12,14 @@ import weka.core.converters.ArffLoader;
  * The four shared open data sets (src/test/resources/datasets/README.md has their provenance):
  * three CSV copies loaded by our loader, and German credit from the test-scoped Weka jar.
  */
-final class OpenDataSets {
+public final class OpenDataSets {
   /** Inside the Weka jar; see the data sets README. */
   private static final String GERMAN_CREDIT = "/weka/gui/beans/templates/credit-g.arff";
 
   private OpenDataSets() {}
 
   /** Loads a data set by key: {@code breast}, {@code pima}, {@code votes} or {@code credit}. */
-  static Dataset load(String key) throws Exception {
+  public static Dataset load(String key) throws Exception {
     switch (key) {
       case "breast":
         return csv("breast-cancer-wisconsin-diagnostic.csv", "diagnosis");
