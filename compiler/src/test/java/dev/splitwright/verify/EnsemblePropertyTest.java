@@ -5,15 +5,13 @@ import static org.assertj.core.api.Assertions.assertThat;
 import dev.splitwright.check.CompiledClasses;
 import dev.splitwright.check.InMemoryCompiler;
 import dev.splitwright.check.SourceFile;
-import dev.splitwright.data.Schema;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.emit.Layout;
-import dev.splitwright.emit.RandomTrees;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.emit.RandomEnsembles;
 import dev.splitwright.model.TreeEnsemble;
 import java.util.ArrayList;
 import java.util.List;
@@ -35,27 +33,6 @@ class EnsemblePropertyTest {
 
   private record Case(TreeEnsemble ensemble, EmitOptions options, EmittedSource source,
       long seed) {}
-
-  /** A random ensemble over one random schema: 1 to 24 trees, weights random for boosting. */
-  static TreeEnsemble ensemble(SplittableRandom random) {
-    Schema schema = RandomTrees.schema(random, 1 + random.nextInt(12),
-        1 + random.nextInt(random.nextInt(4) == 0 ? 12 : 4));
-    int count = 1 + random.nextInt(random.nextInt(5) == 0 ? 80 : 8);
-    List<DecisionTree> trees = new ArrayList<>();
-    for (int t = 0; t < count; t++) {
-      trees.add(RandomTrees.tree(random, schema, random.nextInt(7), 1 + random.nextInt(60)));
-    }
-    if (random.nextBoolean()) {
-      return TreeEnsemble.forest(trees);
-    }
-    float[] weights = new float[count];
-    for (int t = 0; t < count; t++) {
-      // Weights of many magnitudes, so sums round: the order of the additions matters.
-      weights[t] = (float) (random.nextDouble() * Math.pow(10, random.nextInt(-3, 4)))
-          + Float.MIN_NORMAL;
-    }
-    return TreeEnsemble.boosted(trees, weights);
-  }
 
   static EmitOptions options(SplittableRandom random, TreeEnsemble ensemble, String name,
       Layout layout) {
@@ -83,7 +60,7 @@ class EnsemblePropertyTest {
     for (int first = 0; first < ENSEMBLES; first += PER_BATCH) {
       List<Case> batch = new ArrayList<>();
       for (int i = first; i < Math.min(ENSEMBLES, first + PER_BATCH); i++) {
-        TreeEnsemble ensemble = ensemble(random);
+        TreeEnsemble ensemble = RandomEnsembles.ensemble(random);
         kinds[ensemble.kind().ordinal()]++;
         for (Layout layout : List.of(Layout.BRANCHES, Layout.TABLE)) {
           EmitOptions o = options(random, ensemble, "Ensemble" + i + "_" + layout.optionName(),
