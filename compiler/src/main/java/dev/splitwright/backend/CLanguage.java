@@ -18,7 +18,7 @@ import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.SearchMeter;
@@ -146,7 +146,7 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   }
 
   @Override
-  public CEmission emit(DecisionTree tree, HeaderInfo header) throws InputException {
+  public CEmission emit(Classifier tree, HeaderInfo header) throws InputException {
     List<CEmitOptions> variants = variants();
     List<CSource> sources = new ArrayList<>();
     for (CEmitOptions v : variants) {
@@ -223,7 +223,7 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   }
 
   @Override
-  public VerificationResult verify(DecisionTree tree, CEmission emission, List<Dataset> rows,
+  public VerificationResult verify(Classifier tree, CEmission emission, List<Dataset> rows,
       long seed) {
     CEmitOptions used = emission.options();
     Map<String, String> files = new LinkedHashMap<>();
