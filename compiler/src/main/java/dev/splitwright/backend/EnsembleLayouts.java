@@ -77,8 +77,8 @@ final class EnsembleLayouts {
   }
 
   private static LayoutChoice withNote(LayoutChoice choice, String note) {
-    return new LayoutChoice(choice.source(), choice.options(), choice.classes(), choice.classFileBytes(),
-        note);
+    return new LayoutChoice(choice.source(), choice.options(), choice.classes(),
+        choice.classFileBytes(), note);
   }
 
   /** javac's "too many constants" (its limit on the constant pool, JVMS 4.1). */

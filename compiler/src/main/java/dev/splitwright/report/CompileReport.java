@@ -31,9 +31,9 @@ import java.util.Map;
 @JsonInclude(JsonInclude.Include.NON_NULL)
 @JsonPropertyOrder({"tool", "language", "data", "dataSha256", "trainedOn", "testData", "target",
     "classes", "features", "options", "layout", "input", "depth", "leaves", "internalNodes", "root",
-    "ensemble", "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "dexBytes", "dexBytesEmptyClass",
-    "dexBytesOverEmptyClass", "dexMinApi", "maxMethodBytecodeBytes", "methodByteCap",
-    "constantPoolCount", "methods", "flash", "scores", "verification", "selection"})
+    "ensemble", "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "dexBytes",
+    "dexBytesEmptyClass", "dexBytesOverEmptyClass", "dexMinApi", "maxMethodBytecodeBytes",
+    "methodByteCap", "constantPoolCount", "methods", "flash", "scores", "verification", "selection"})
 public record CompileReport(
     String tool,
     String language,

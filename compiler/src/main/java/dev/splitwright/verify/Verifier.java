@@ -83,7 +83,8 @@ public final class Verifier {
    * <p>Compares {@code classify} with the model on every input; for {@code double} input also on
    * {@link DoubleProbes}, where rounding to float decides; with {@code --probabilities} also
    * {@code classProbabilities} with {@link DecisionTree#probabilities} narrowed to float (for an
-   * ensemble {@link TreeEnsemble#probabilities}), bit for bit. Mismatches of all comparisons are counted together.
+   * ensemble {@link TreeEnsemble#probabilities}), bit for bit. Mismatches of all comparisons are
+   * counted together.
    */
   public VerificationResult check(Classifier tree, CompiledClasses classes, EmittedSource source,
       EmitOptions options, List<Dataset> data, long seed) {

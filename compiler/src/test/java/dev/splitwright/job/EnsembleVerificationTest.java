@@ -31,7 +31,8 @@ import org.junit.jupiter.params.provider.EnumSource;
  */
 class EnsembleVerificationTest {
   private static final Verifier VERIFIER = Verifier.create();
-  private static final Path PIMA = Path.of("src/test/resources/datasets/pima-indians-diabetes-2.csv");
+  private static final Path PIMA =
+      Path.of("src/test/resources/datasets/pima-indians-diabetes-2.csv");
 
   @TempDir Path temp;
 
