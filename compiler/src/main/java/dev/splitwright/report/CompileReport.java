@@ -33,7 +33,8 @@ import java.util.Map;
     "classes", "features", "options", "layout", "input", "depth", "leaves", "internalNodes", "root",
     "ensemble", "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "dexBytes",
     "dexBytesEmptyClass", "dexBytesOverEmptyClass", "dexMinApi", "maxMethodBytecodeBytes",
-    "methodByteCap", "constantPoolCount", "methods", "flash", "scores", "verification", "selection"})
+    "methodByteCap", "constantPoolCount", "methods", "flash", "scores", "verification",
+    "selection"})
 public record CompileReport(
     String tool,
     String language,
