@@ -50,6 +50,10 @@ class EnsemblePropertyTest {
   @Test
   void randomEnsemblesAgreeWithTheirModelInBothLayouts() throws Exception {
     InMemoryCompiler compiler = InMemoryCompiler.create(Verifier.JAVAC_OPTIONS);
+    // Every fifth batch also runs javac's Javadoc checks, down to private members.
+    List<String> doclintOptions = new ArrayList<>(Verifier.JAVAC_OPTIONS);
+    doclintOptions.add("-Xdoclint:all");
+    InMemoryCompiler doclint = InMemoryCompiler.create(doclintOptions);
     Verifier verifier = new Verifier(compiler).withRandomProbes(200);
     SplittableRandom random = new SplittableRandom(SEED);
     List<String> failures = new ArrayList<>();
@@ -69,7 +73,8 @@ class EnsemblePropertyTest {
           batch.add(new Case(ensemble, o, JavaEmitter.emit(ensemble, o, HeaderInfo.none()), i));
         }
       }
-      CompiledClasses compiled = compiler.compile(batch.stream()
+      boolean checkDocs = first % (5 * PER_BATCH) == 0;
+      CompiledClasses compiled = (checkDocs ? doclint : compiler).compile(batch.stream()
           .map(c -> new SourceFile(c.source().qualifiedName(), c.source().source()))
           .toList());
       for (Case c : batch) {
