@@ -18,6 +18,7 @@ import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.onchip.OnChipProof;
 import dev.splitwright.report.CompileReport;
@@ -160,7 +161,7 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
   }
 
   @Override
-  public CEmission emit(DecisionTree tree, HeaderInfo header) throws InputException {
+  public CEmission emit(Classifier tree, HeaderInfo header) throws InputException {
     List<CEmitOptions> variants = variants();
     List<CSource> sources = new ArrayList<>();
     for (CEmitOptions v : variants) {
@@ -247,17 +248,21 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
    * @throws UnfinishedProofException if a proof image runs past its time limit or fails
    */
   @Override
-  public VerificationResult verify(DecisionTree tree, CEmission emission, List<Dataset> rows,
+  public VerificationResult verify(Classifier tree, CEmission emission, List<Dataset> rows,
       long seed) throws InputException {
     VerificationResult onHost = verifyOnHost(tree, emission, rows, seed);
     onChipProofs = List.of();
     if (!onHost.passed() || onChip.isEmpty()) {
       return onHost;
     }
+    if (!(tree instanceof DecisionTree single)) {
+      throw new InputException("prove-on", "the proof on emulated cores takes single trees only "
+          + "so far", "leave out --prove-on for an ensemble; the host proof has passed");
+    }
     BatchVerifier.Inputs inputs =
         BatchVerifier.inputs(tree, emission.options().inputKind(), rows, seed);
     List<OnChipProof> proofs =
-        onChip.get().prove(tree, emission.source(), emission.options(), inputs);
+        onChip.get().prove(single, emission.source(), emission.options(), inputs);
     for (OnChipProof proof : proofs) {
       if (!proof.passed()) {
         List<String> described = new ArrayList<>();
@@ -277,7 +282,7 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
     return onChipProofs;
   }
 
-  private VerificationResult verifyOnHost(DecisionTree tree, CEmission emission,
+  private VerificationResult verifyOnHost(Classifier tree, CEmission emission,
       List<Dataset> rows, long seed) {
     CEmitOptions used = emission.options();
     Map<String, String> files = new LinkedHashMap<>();

@@ -7,7 +7,9 @@ import dev.splitwright.data.InputException;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.DebugSizes;
@@ -149,8 +151,12 @@ public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmiss
   }
 
   @Override
-  public JavaEmission emit(DecisionTree tree, HeaderInfo header) throws InputException {
-    return new JavaEmission(LayoutChooser.resolve(tree, options, header, verifier.compiler()));
+  public JavaEmission emit(Classifier model, HeaderInfo header) throws InputException {
+    if (model instanceof DecisionTree tree) {
+      return new JavaEmission(LayoutChooser.resolve(tree, options, header, verifier.compiler()));
+    }
+    return new JavaEmission(EnsembleLayouts.resolve((TreeEnsemble) model, options, header,
+        verifier.compiler()));
   }
 
   @Override
@@ -177,7 +183,7 @@ public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmiss
   }
 
   @Override
-  public VerificationResult verify(DecisionTree tree, JavaEmission emission, List<Dataset> rows,
+  public VerificationResult verify(Classifier tree, JavaEmission emission, List<Dataset> rows,
       long seed) {
     LayoutChoice choice = emission.choice();
     return verifier.check(tree, choice.classes(), choice.source(), choice.options(), rows, seed);

@@ -3,7 +3,7 @@ package dev.splitwright.backend;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.SearchMeter;
@@ -34,19 +34,20 @@ public interface OutputLanguage<E extends Emission> {
   String stem();
 
   /**
-   * Emits {@code tree}, choosing the layout first when the options leave it to the smaller.
+   * Emits {@code model}, a single tree or an ensemble, choosing the layout first when the options
+   * leave it to the smaller.
    *
-   * @throws InputException if the options cannot hold this tree
+   * @throws InputException if the options cannot hold this model
    */
-  E emit(DecisionTree tree, HeaderInfo header) throws InputException;
+  E emit(Classifier model, HeaderInfo header) throws InputException;
 
   /**
-   * Compares the emitted code with {@code tree} on every row of {@code rows}, the boundary
-   * probes of every split and random inputs seeded with {@code seed}.
+   * Compares the emitted code with {@code model} on every row of {@code rows}, the boundary
+   * probes of every split of every tree and random inputs seeded with {@code seed}.
    *
    * @throws InputException if the tool the check needs cannot be found
    */
-  VerificationResult verify(DecisionTree tree, E emission, List<Dataset> rows, long seed)
+  VerificationResult verify(Classifier model, E emission, List<Dataset> rows, long seed)
       throws InputException;
 
   /**

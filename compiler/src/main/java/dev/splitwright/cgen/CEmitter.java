@@ -1,7 +1,9 @@
 package dev.splitwright.cgen;
 
 import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import java.util.Objects;
 
 /** Emits a trained tree as a C99 header and source file. */
@@ -25,5 +27,28 @@ public final class CEmitter {
     CApi api = CApi.of(tree.schema(), options);
     return new CSource(api.headerName(), CHeaderWriter.write(tree, options, header, api),
         api.sourceName(), CSourceWriter.write(tree, options, header, api));
+  }
+
+  /**
+   * Emits {@code model}: a tree as {@link #emit(DecisionTree, CEmitOptions, HeaderInfo)} does, an
+   * ensemble with each tree a {@code static} function and {@code <base>_classify} combining them
+   * by the rule of {@link TreeEnsemble}; that file needs {@code FLT_EVAL_METHOD == 0}.
+   *
+   * @throws IllegalArgumentException for a schema without features
+   */
+  public static CSource emit(Classifier model, CEmitOptions options, HeaderInfo header) {
+    Objects.requireNonNull(model, "model");
+    if (model instanceof DecisionTree tree) {
+      return emit(tree, options, header);
+    }
+    Objects.requireNonNull(options, "options");
+    Objects.requireNonNull(header, "header");
+    TreeEnsemble ensemble = (TreeEnsemble) model;
+    if (ensemble.schema().featureCount() == 0) {
+      throw new IllegalArgumentException("a C classifier needs at least one feature");
+    }
+    CApi api = CApi.of(ensemble.schema(), options);
+    return new CSource(api.headerName(), CHeaderWriter.write(ensemble, options, header, api),
+        api.sourceName(), CSourceWriter.write(ensemble, options, header, api));
   }
 }

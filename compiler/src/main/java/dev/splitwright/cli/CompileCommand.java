@@ -9,11 +9,15 @@ import dev.splitwright.eval.Scores;
 import dev.splitwright.job.CompileJob;
 import dev.splitwright.job.CompileRequest;
 import dev.splitwright.job.CompileResult;
+import dev.splitwright.job.EnsembleRequest;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.SearchSettings;
 import dev.splitwright.select.SelectionReport;
 import dev.splitwright.text.DecimalText;
 import dev.splitwright.train.ClassWeights;
+import dev.splitwright.train.ForestOptions;
 import dev.splitwright.train.Impurity;
 import dev.splitwright.train.TrainingOptions;
 import dev.splitwright.verify.VerificationResult;
@@ -21,6 +25,7 @@ import dev.splitwright.verify.Verifier;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.IntSummaryStatistics;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -104,6 +109,22 @@ final class CompileCommand implements Callable<Integer> {
           + "classes count more, every class the same in total), none, or per label, e.g. "
           + "fault=5,normal=1; unnamed labels weigh 1 (default: ${DEFAULT-VALUE}).")
   String classWeight;
+
+  @Option(names = "--forest", paramLabel = "N",
+      description = "Train a voting forest of N trees instead of one tree: each on a bootstrap "
+          + "sample of the training rows, splitting on a random subset of features (Breiman "
+          + "2001); --max-depth, --min-leaf and --max-leaves limit every tree.")
+  Integer forest;
+
+  @Option(names = "--boosted", paramLabel = "N",
+      description = "Train up to N trees by multiclass boosting (SAMME, Zhu, Zou, Rosset and "
+          + "Hastie 2009) instead of one tree, each vote weighted; keep --max-depth small.")
+  Integer boosted;
+
+  @Option(names = "--split-features", paramLabel = "N",
+      description = "With --forest: features each split chooses from, drawn at random "
+          + "(default: floor(log2 F) + 1 of F features).")
+  Integer splitFeatures;
 
   @Option(names = "--model", paramLabel = "FILE",
       description = "Emit this saved model instead of training; all CSV rows are scored as one "
@@ -240,6 +261,7 @@ final class CompileCommand implements Callable<Integer> {
       t.maxLeaves(check("--max-leaves", maxLeaves, 2));
     }
     TrainingOptions training = t.build();
+    Optional<EnsembleRequest> ensemble = ensemble();
     EmitOptions emit = EmitOptions.builder(packageName, className)
         .layout(Layout.parse(layout).orElseThrow(() -> bad("--layout",
             "must be " + Choices.oneOf(Choices.LAYOUTS) + ", but it is '" + layout + "'")))
@@ -259,7 +281,33 @@ final class CompileCommand implements Callable<Integer> {
         .build();
     return new CompileRequest(data, Optional.ofNullable(testData), Optional.ofNullable(model),
         load, fractions, seed, training, emit, out, Optional.ofNullable(saveModel),
-        optionsText(dexMinApi), dexMinApi);
+        optionsText(dexMinApi), dexMinApi, ensemble);
+  }
+
+  /** {@code --forest} or {@code --boosted}, checked against the options they exclude. */
+  private Optional<EnsembleRequest> ensemble() {
+    if (forest != null && boosted != null) {
+      throw bad("--boosted", "cannot be combined with --forest: choose one kind of ensemble");
+    }
+    if (splitFeatures != null && forest == null) {
+      throw bad("--split-features", "needs --forest");
+    }
+    if (forest == null && boosted == null) {
+      return Optional.empty();
+    }
+    String option = forest != null ? "--forest" : "--boosted";
+    if (model != null) {
+      throw bad(option, "trains a model, but --model reads one: leave one out");
+    }
+    if (spec.commandLine().getParseResult().hasMatchedOption("--budget")) {
+      throw bad(option, "cannot be combined with --budget yet: the budget search chooses "
+          + "single trees");
+    }
+    int trees = check(option, forest != null ? forest : boosted, 1, TreeEnsemble.MAX_TREES);
+    int features = splitFeatures == null ? ForestOptions.AUTOMATIC
+        : check("--split-features", splitFeatures, 1);
+    return Optional.of(new EnsembleRequest(forest != null ? TreeEnsemble.Kind.FOREST
+        : TreeEnsemble.Kind.BOOSTED, trees, features));
   }
 
   private ClassWeights classWeights() {
@@ -333,6 +381,15 @@ final class CompileCommand implements Callable<Integer> {
       if (!weights.equals("none")) {
         parts.add("--class-weight " + weights);
       }
+      if (forest != null) {
+        parts.add("--forest " + forest);
+      }
+      if (boosted != null) {
+        parts.add("--boosted " + boosted);
+      }
+      if (splitFeatures != null) {
+        parts.add("--split-features " + splitFeatures);
+      }
     }
     parts.add("--layout " + layout.toLowerCase(Locale.ROOT));
     parts.add("--input " + input.toLowerCase(Locale.ROOT));
@@ -361,8 +418,17 @@ final class CompileCommand implements Callable<Integer> {
 
     static void print(PrintWriter out, CompileResult result) {
       VerificationResult v = result.verification();
-      out.printf(Locale.ROOT, "tree: depth %d, %d leaves, %d splits%n", result.tree().depth(),
-          result.tree().leafCount(), result.tree().internalNodeCount());
+      if (result.model() instanceof TreeEnsemble ensemble) {
+        IntSummaryStatistics depths = ensemble.trees().stream()
+            .mapToInt(DecisionTree::depth).summaryStatistics();
+        out.printf(Locale.ROOT, "%s: %d trees, depth %d to %d, %d leaves, %d splits%n",
+            ensemble.kind().fileName(), ensemble.treeCount(), depths.getMin(), depths.getMax(),
+            ensemble.trees().stream().mapToInt(DecisionTree::leafCount).sum(),
+            ensemble.trees().stream().mapToInt(DecisionTree::internalNodeCount).sum());
+      } else {
+        out.printf(Locale.ROOT, "tree: depth %d, %d leaves, %d splits%n",
+            result.tree().depth(), result.tree().leafCount(), result.tree().internalNodeCount());
+      }
       for (Map.Entry<String, Scores> e : result.scores().entrySet()) {
         Scores s = e.getValue();
         out.printf(Locale.ROOT, "%-10s rows %5d  accuracy %s  balanced accuracy %s  "
@@ -384,7 +450,7 @@ final class CompileCommand implements Callable<Integer> {
       }
       Scores validation = result.scores().get("validation");
       if (validation != null) {
-        NoisyScores.warning("validation", result.tree().schema().classes(), validation)
+        NoisyScores.warning("validation", result.model().schema().classes(), validation)
             .ifPresent(out::println);
       }
       out.println(result.sizes().summary());

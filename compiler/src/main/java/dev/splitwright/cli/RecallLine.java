@@ -27,7 +27,7 @@ final class RecallLine {
     if (last == null) {
       return Optional.empty();
     }
-    return Optional.of(format(last.getKey(), result.tree().schema().classes(), last.getValue()));
+    return Optional.of(format(last.getKey(), result.model().schema().classes(), last.getValue()));
   }
 
   /** The line for one part's scores. */

@@ -12,6 +12,8 @@ import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
+import dev.splitwright.model.TreeEnsemble;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
@@ -29,22 +31,35 @@ final class BranchesWriter {
   /** The constant each leaf returns, or null to return the bare number. */
   private final ConstantNames names;
   /** Code sets of more than 64 categories, by content, with their offset in {@code SETS}. */
-  private final Map<String, Integer> wideSets = new LinkedHashMap<>();
-  private final PackedInts setData = new PackedInts();
+  private final Map<String, Integer> wideSets;
+  private final PackedInts setData;
 
   private BranchesWriter(DecisionTree tree, EmitOptions options, InputAccess input,
       TypeSpec.Builder type, SupportMethods support) {
+    this(tree, options, input, type, support, new LeafTable(options.probabilities()),
+        new LinkedHashMap<>(), new PackedInts(), "node");
+  }
+
+  /**
+   * A writer of one tree of a class that may hold several: {@code wideSets} and {@code setData}
+   * are shared by all, outlined methods are named {@code <prefix><pre-order index>}.
+   */
+  private BranchesWriter(DecisionTree tree, EmitOptions options, InputAccess input,
+      TypeSpec.Builder type, SupportMethods support, LeafTable leaves,
+      Map<String, Integer> wideSets, PackedInts setData, String prefix) {
     this.tree = tree;
     this.input = input;
     this.type = type;
     this.support = support;
-    this.leaves = new LeafTable(options.probabilities());
+    this.leaves = leaves;
+    this.wideSets = wideSets;
+    this.setData = setData;
     // Leaves return CLASS_... constants: compile-time constants, so the bytecode is the same as
     // with the number (JLS §13.1); a bare class has no constants, leaf numbers are no classes.
-    this.names = options.bare() || options.probabilities() ? null
+    this.names = options.bare() || leaves.probabilities() ? null
         : ConstantNames.of(tree.schema());
     this.plan = MethodPlan.of(tree.root(), options.maxMethodBytes(),
-        MethodPlan.ENTRY_CHECK_BYTES, input.callBytes());
+        MethodPlan.ENTRY_CHECK_BYTES, input.callBytes(), prefix);
   }
 
   static String write(DecisionTree tree, EmitOptions options, HeaderInfo header) {
@@ -56,6 +71,75 @@ final class BranchesWriter {
     writer.addMethods();
     support.addTo(type);
     return ClassScaffold.finish(type.build(), options, header);
+  }
+
+  /**
+   * Writes an ensemble: tree {@code t} is {@code private static int tree<t>(...)} returning its
+   * class (its outlined subtrees {@code tree<t>Node<index>}), and {@code scores} calls the trees
+   * in order. With probabilities the leaves still return classes: the shares come from the votes.
+   */
+  static String write(TreeEnsemble ensemble, EmitOptions options, HeaderInfo header) {
+    InputAccess input = InputAccess.of(ensemble.schema(), options);
+    SupportMethods support = new SupportMethods(input.kind());
+    TypeSpec.Builder type = ClassScaffold.start(ensemble, options, header, support);
+    LeafTable leaves = new LeafTable(false);
+    Map<String, Integer> wideSets = new LinkedHashMap<>();
+    PackedInts setData = new PackedInts();
+    List<BranchesWriter> writers = new ArrayList<>();
+    int helpers = 0;
+    for (int t = 0; t < ensemble.treeCount(); t++) {
+      BranchesWriter writer = new BranchesWriter(ensemble.trees().get(t), options, input, type,
+          support, leaves, wideSets, setData, "tree" + t + "Node");
+      writers.add(writer);
+      helpers += 1 + writer.plan.methodRoots().size();
+    }
+    // Scores and its vote chunks count at most as many helpers again as there are trees.
+    long bound = ConstantCount.forEnsemble(ensemble, input.kind(),
+        helpers + 1 + ensemble.treeCount());
+    checkConstantPool(bound);
+    EnsembleVotes.addEntries(type, ensemble, input, options.probabilities());
+    EnsembleVotes.addUnrolledScores(type, ensemble, input, options.maxMethodBytes(),
+        t -> CodeBlock.of("tree$L($L)", t, input.arguments()));
+    for (int t = 0; t < writers.size(); t++) {
+      writers.get(t).addTreeMethods("tree" + t, "tree " + t);
+    }
+    if (!wideSets.isEmpty()) {
+      addSets(type, setData);
+    }
+    support.addTo(type);
+    return ClassScaffold.finish(type.build(), options, header);
+  }
+
+  /** The tree's root method, named {@code name}, and its outlined subtrees. */
+  private void addTreeMethods(String name, String what) {
+    MethodSpec.Builder root = MethodSpec.methodBuilder(name)
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc(EntryDoc.walk("the root of " + what, input, false));
+    input.addParameters(root);
+    type.addMethod(root.addCode(body(tree.root())).build());
+    addOutlined();
+  }
+
+  private void addOutlined() {
+    for (Node node : plan.methodRoots()) {
+      MethodSpec.Builder helper = MethodSpec.methodBuilder(plan.methodName(node))
+          .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+          .returns(TypeName.INT)
+          .addJavadoc(EntryDoc.walk(plan.methodName(node) + " (a method of its own to keep "
+              + "methods under the bytecode cap and their nesting readable)", input,
+              leaves.probabilities()));
+      input.addParameters(helper);
+      type.addMethod(helper.addCode(body(node)).build());
+    }
+  }
+
+  private static void addSets(TypeSpec.Builder type, PackedInts setData) {
+    type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
+            Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+        .addJavadoc("Code sets of more than 64 categories: k, then ceil(k / 32) bit words.\n")
+        .initializer(StringTable.unpack(setData))
+        .build());
   }
 
   private void addMethods() {
@@ -81,22 +165,9 @@ final class BranchesWriter {
       input.addParameters(root);
     }
     type.addMethod(root.addCode(body(tree.root())).build());
-    for (Node node : plan.methodRoots()) {
-      MethodSpec.Builder helper = MethodSpec.methodBuilder(plan.methodName(node))
-          .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
-          .returns(TypeName.INT)
-          .addJavadoc(EntryDoc.walk(plan.methodName(node) + " (a method of its own to keep "
-              + "methods under the bytecode cap and their nesting readable)", input,
-              leaves.probabilities()));
-      input.addParameters(helper);
-      type.addMethod(helper.addCode(body(node)).build());
-    }
+    addOutlined();
     if (!wideSets.isEmpty()) {
-      type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
-              Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
-          .addJavadoc("Code sets of more than 64 categories: k, then ceil(k / 32) bit words.\n")
-          .initializer(StringTable.unpack(setData))
-          .build());
+      addSets(type, setData);
     }
     CodeBlock init = leaves.addFields(type, support);
     if (!init.isEmpty()) {
@@ -245,7 +316,10 @@ final class BranchesWriter {
 
   /** Refuses a tree whose constants cannot fit one class file; the table layout always fits. */
   private void checkConstantPool() {
-    long bound = constantBound();
+    checkConstantPool(constantBound());
+  }
+
+  private static void checkConstantPool(long bound) {
     if (bound > ConstantCount.LIMIT) {
       throw new EmitLimitException("layout", String.format(Locale.ROOT,
           "the branches layout of this tree needs up to %d class-file constants, over the "

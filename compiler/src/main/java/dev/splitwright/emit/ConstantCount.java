@@ -1,9 +1,11 @@
 package dev.splitwright.emit;
 
+import dev.splitwright.data.Schema;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
+import dev.splitwright.model.TreeEnsemble;
 import java.util.HashSet;
 import java.util.Set;
 
@@ -37,6 +39,34 @@ final class ConstantCount {
   static long forBranches(DecisionTree tree, InputKind input, int helperMethods,
       boolean probabilities) {
     ConstantCount count = new ConstantCount();
+    count.addSplits(tree, input);
+    int classes = tree.schema().classCount();
+    // Leaves return a class, or with probabilities a leaf number below the leaf count.
+    count.addOther(Math.max(0, (probabilities ? tree.leafCount() : classes) - Short.MAX_VALUE));
+    count.addOther(3L * helperMethods);
+    count.addScaffold(tree.schema());
+    return count.bound();
+  }
+
+  /**
+   * The bound for the {@code branches} layout of an ensemble: the splits of every tree, each
+   * tree's weight, and per helper method (a tree's method, an outlined subtree, a vote chunk) its
+   * name and reference.
+   */
+  static long forEnsemble(TreeEnsemble ensemble, InputKind input, int helperMethods) {
+    ConstantCount count = new ConstantCount();
+    for (int t = 0; t < ensemble.treeCount(); t++) {
+      count.addSplits(ensemble.trees().get(t), input);
+      count.addFloat(ensemble.weight(t));
+    }
+    count.addFloat(ensemble.totalWeight());
+    count.addOther(3L * helperMethods);
+    count.addScaffold(ensemble.schema());
+    return count.bound();
+  }
+
+  private void addSplits(DecisionTree tree, InputKind input) {
+    ConstantCount count = this;
     for (Split split : tree.splitsPreOrder()) {
       if (split instanceof NumericSplit numeric) {
         float t = numeric.threshold();
@@ -61,17 +91,17 @@ final class ConstantCount {
         count.addOther(1);
       }
     }
-    int classes = tree.schema().classCount();
-    // Leaves return a class, or with probabilities a leaf number below the leaf count.
-    count.addOther(Math.max(0, (probabilities ? tree.leafCount() : classes) - Short.MAX_VALUE));
-    count.addOther(3L * helperMethods);
+  }
+
+  private void addScaffold(Schema schema) {
+    ConstantCount count = this;
+    int classes = schema.classCount();
     // Per class a constant's name and value; per label and feature at most a string and its text.
-    count.addOther(2L * classes + 2L * (classes + tree.schema().featureCount()));
+    count.addOther(2L * classes + 2L * (classes + schema.featureCount()));
     // Per FEATURE_ index constant, like a class constant: its name and its value.
-    count.addOther(2L * tree.schema().featureCount());
+    count.addOther(2L * schema.featureCount());
     // Per named category code constant, like a class constant: its name and its value.
-    count.addOther(2L * ClassScaffold.namedCategoryCount(tree.schema()));
-    return count.bound();
+    count.addOther(2L * ClassScaffold.namedCategoryCount(schema));
   }
 
   /** A float operand; fconst_0, fconst_1 and fconst_2 need no entry (JVMS §6.5 fconst). */

@@ -4,6 +4,7 @@ import com.palantir.javapoet.CodeBlock;
 import com.palantir.javapoet.MethodSpec;
 import dev.splitwright.data.Feature;
 import dev.splitwright.data.Schema;
+import dev.splitwright.model.TreeEnsemble;
 
 /** Javadoc and argument checks of the public entry methods, shared by the layouts. */
 final class EntryDoc {
@@ -47,6 +48,21 @@ final class EntryDoc {
       doc.add("@param x the $L feature values, as for {@link #classify}\n", schema.featureCount());
     }
     return doc.add("@param out receives $L frequencies, one per class index\n", schema.classCount())
+        .build();
+  }
+
+  static CodeBlock ensembleProbabilities(Schema schema, InputAccess input,
+      TreeEnsemble ensemble) {
+    CodeBlock.Builder doc = CodeBlock.builder()
+        .add("$L\n\n", ClassScaffold.memberDoc("Fills {@code out} with each class's share of "
+            + (ensemble.kind() == TreeEnsemble.Kind.FOREST ? "the votes" : "the weighted votes")
+            + ": its score divided by the total weight of all trees, as float."));
+    if (input.named()) {
+      addNamedParams(doc, schema, input);
+    } else {
+      doc.add("@param x the $L feature values, as for {@link #classify}\n", schema.featureCount());
+    }
+    return doc.add("@param out receives $L shares, one per class index\n", schema.classCount())
         .build();
   }
 

@@ -1,9 +1,11 @@
 package dev.splitwright.emit;
 
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import java.util.Objects;
 
-/** Emits a trained tree as one dependency-free Java source file. */
+/** Emits a trained tree or ensemble as one dependency-free Java source file. */
 public final class JavaEmitter {
   private JavaEmitter() {}
 
@@ -22,6 +24,31 @@ public final class JavaEmitter {
     String source = switch (options.layout()) {
       case BRANCHES -> BranchesWriter.write(tree, options, header);
       case TABLE -> TableWriter.write(tree, options, header);
+      case SMALLEST -> throw new IllegalArgumentException(
+          "layout 'smallest' is chosen by measuring both layouts; emit each and compare");
+    };
+    return new EmittedSource(options.qualifiedName(), options.layout(), source);
+  }
+
+  /**
+   * Emits {@code model}: a single tree as {@link #emit(DecisionTree, EmitOptions, HeaderInfo)}
+   * does, an ensemble with each tree in a method of its own ({@code branches}) or all trees in
+   * one table ({@code table}), combined in {@code classify} by the rule of {@link TreeEnsemble}.
+   *
+   * @throws EmitLimitException if the options do not fit the model
+   * @throws IllegalArgumentException for {@link Layout#SMALLEST}
+   */
+  public static EmittedSource emit(Classifier model, EmitOptions options, HeaderInfo header) {
+    Objects.requireNonNull(model, "model");
+    if (model instanceof DecisionTree tree) {
+      return emit(tree, options, header);
+    }
+    Objects.requireNonNull(options, "options");
+    Objects.requireNonNull(header, "header");
+    TreeEnsemble ensemble = (TreeEnsemble) model;
+    String source = switch (options.layout()) {
+      case BRANCHES -> BranchesWriter.write(ensemble, options, header);
+      case TABLE -> TableWriter.write(ensemble, options, header);
       case SMALLEST -> throw new IllegalArgumentException(
           "layout 'smallest' is chosen by measuring both layouts; emit each and compare");
     };

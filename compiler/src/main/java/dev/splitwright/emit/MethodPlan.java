@@ -50,6 +50,14 @@ final class MethodPlan {
    * whose helper calls cost {@code callBytes} each.
    */
   static MethodPlan of(Node root, int cap, int entryBytes, int callBytes) {
+    return of(root, cap, entryBytes, callBytes, "node");
+  }
+
+  /**
+   * Like {@link #of(Node, int, int, int)}, naming the outlined methods {@code <prefix><pre-order
+   * index>}, so the trees of an ensemble get methods of distinct names.
+   */
+  static MethodPlan of(Node root, int cap, int entryBytes, int callBytes, String prefix) {
     MethodPlan plan = new MethodPlan(callBytes, cap);
     int[] preorder = {0};
     Map<Node, Integer> index = new IdentityHashMap<>();
@@ -57,7 +65,7 @@ final class MethodPlan {
     plan.fit(root, cap - entryBytes);
     plan.methodRoots.sort((a, b) -> Integer.compare(index.get(a), index.get(b)));
     for (Node node : plan.methodRoots) {
-      plan.methodNames.put(node, "node" + index.get(node));
+      plan.methodNames.put(node, prefix + index.get(node));
     }
     return plan;
   }

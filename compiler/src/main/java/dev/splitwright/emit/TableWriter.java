@@ -6,16 +6,19 @@ import com.palantir.javapoet.FieldSpec;
 import com.palantir.javapoet.MethodSpec;
 import com.palantir.javapoet.TypeName;
 import com.palantir.javapoet.TypeSpec;
+import dev.splitwright.data.Schema;
 import dev.splitwright.model.CategoricalSplit;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
+import dev.splitwright.model.TreeEnsemble;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import javax.lang.model.element.Modifier;
 
 /**
@@ -44,7 +47,9 @@ final class TableWriter {
   /** Where the feature (numeric) or the offset in SETS (categorical) starts in the packed word. */
   private static final int SPLIT_SHIFT = 3;
 
-  private final DecisionTree tree;
+  private final Schema schema;
+  /** The ensemble whose trees the table holds one after another; empty for a single tree. */
+  private final Optional<TreeEnsemble> ensemble;
   private final InputAccess input;
   private final TypeSpec.Builder type;
   private final SupportMethods support;
@@ -55,25 +60,64 @@ final class TableWriter {
   private final Map<String, Integer> sets = new LinkedHashMap<>();
   private final PackedInts setData = new PackedInts();
 
-  private TableWriter(DecisionTree tree, EmitOptions options, InputAccess input,
-      TypeSpec.Builder type, SupportMethods support) {
-    this.tree = tree;
+  private TableWriter(Schema schema, Optional<TreeEnsemble> ensemble, EmitOptions options,
+      InputAccess input, TypeSpec.Builder type, SupportMethods support) {
+    this.schema = schema;
+    this.ensemble = ensemble;
     this.input = input;
     this.type = type;
     this.support = support;
-    this.leaves = new LeafTable(options.probabilities());
+    // An ensemble's leaves return their class: the shares come from the votes.
+    this.leaves = new LeafTable(ensemble.isEmpty() && options.probabilities());
   }
 
   static String write(DecisionTree tree, EmitOptions options, HeaderInfo header) {
     InputAccess input = InputAccess.of(tree.schema(), options);
     SupportMethods support = new SupportMethods(input.kind());
     TypeSpec.Builder type = ClassScaffold.start(tree, options, header, support);
-    TableWriter writer = new TableWriter(tree, options, input, type, support);
+    TableWriter writer = new TableWriter(tree.schema(), Optional.empty(), options, input, type,
+        support);
     writer.collect(tree.root(), 0);
     writer.addTables();
     writer.addMethods();
     support.addTo(type);
     return ClassScaffold.finish(type.build(), options, header);
+  }
+
+  /**
+   * Writes an ensemble: the trees' nodes one tree after another in the same three arrays, {@code
+   * ROOT[t]} where tree {@code t} starts, and a loop in {@code scores} that walks each tree in
+   * order and adds its weight to the class it reaches.
+   */
+  static String write(TreeEnsemble ensemble, EmitOptions options, HeaderInfo header) {
+    InputAccess input = InputAccess.of(ensemble.schema(), options);
+    SupportMethods support = new SupportMethods(input.kind());
+    TypeSpec.Builder type = ClassScaffold.start(ensemble, options, header, support);
+    TableWriter writer = new TableWriter(ensemble.schema(), Optional.of(ensemble), options, input,
+        type, support);
+    for (DecisionTree tree : ensemble.trees()) {
+      writer.collect(tree.root(), 0);
+    }
+    writer.addTables();
+    writer.addEnsembleMethods(ensemble, options);
+    support.addTo(type);
+    return ClassScaffold.finish(type.build(), options, header);
+  }
+
+  private void addEnsembleMethods(TreeEnsemble trees, EmitOptions options) {
+    EnsembleVotes.addEntries(type, trees, input, options.probabilities());
+    MethodSpec.Builder scores = EnsembleVotes.scoresStart(trees, input);
+    if (input.named()) {
+      scores.addStatement("$T[] x = $L", input.elementType(), input.asArray());
+    }
+    boolean forest = trees.kind() == TreeEnsemble.Kind.FOREST;
+    type.addMethod(scores
+        .beginControlFlow("for (int j = 0; j < $L; j++)", trees.treeCount())
+        .addStatement("out[leaf(x, ROOT[j])] += $L", forest ? "1f" : "WEIGHT[j]")
+        .endControlFlow()
+        .addStatement("return out")
+        .build());
+    type.addMethod(walk());
   }
 
   /** Lists the nodes in pre-order. */
@@ -144,11 +188,35 @@ final class TableWriter {
       support.need(SupportMethods.Kind.WORDS);
     }
     CodeBlock leafInit = leaves.addFields(type, support);
-    type.addStaticBlock(CodeBlock.builder().add(decoder(data, thresholds)).add(leafInit).build());
+    CodeBlock weightInit = ensemble.map(this::addEnsembleFields).orElse(CodeBlock.of(""));
+    type.addStaticBlock(CodeBlock.builder().add(decoder(data, thresholds)).add(leafInit)
+        .add(weightInit).build());
+  }
+
+  /** {@code ROOT} and, for boosting, {@code WEIGHT}; returns the code that fills the weights. */
+  private CodeBlock addEnsembleFields(TreeEnsemble trees) {
+    type.addField(array("ROOT", TypeName.INT, trees.treeCount(),
+        "Per tree, in combination order: the index of its root node."));
+    if (trees.kind() == TreeEnsemble.Kind.FOREST) {
+      return CodeBlock.of("");
+    }
+    type.addField(array("WEIGHT", TypeName.FLOAT, trees.treeCount(),
+        "Per tree: the weight of its vote."));
+    PackedInts bits = new PackedInts();
+    for (int t = 0; t < trees.treeCount(); t++) {
+      bits.addFloat(trees.weight(t));
+    }
+    return CodeBlock.builder()
+        .add("// The tree weights as IEEE 754 bits.\n")
+        .addStatement("int[] weights = $L", StringTable.unpack(bits))
+        .beginControlFlow("for (int t = 0; t < $L; t++)", trees.treeCount())
+        .addStatement("WEIGHT[t] = Float.intBitsToFloat(weights[t])")
+        .endControlFlow()
+        .build();
   }
 
   private int setOffset(CategoricalSplit split) {
-    int k = tree.schema().feature(split.feature()).categories().size();
+    int k = schema.feature(split.feature()).categories().size();
     String key = split.feature() + ":" + k + ":" + split.leftCodes();
     Integer known = sets.get(key);
     if (known != null) {
@@ -184,11 +252,25 @@ final class TableWriter {
     code
         .addStatement("int[] open = new int[$L]", Math.max(1, maxOpenSplits))
         .addStatement("int top = 0")
-        .addStatement("int at = 0")
-        .beginControlFlow("for (int i = 0; i < $L; i++)", nodes.size())
-        .beginControlFlow("if (i > 0 && NODE[i - 1] < 0)")
-        .addStatement("RIGHT[open[--top]] = i")
-        .endControlFlow()
+        .addStatement("int at = 0");
+    if (ensemble.isPresent()) {
+      code.addStatement("int root = 0");
+    }
+    code
+        .beginControlFlow("for (int i = 0; i < $L; i++)", nodes.size());
+    if (ensemble.isPresent()) {
+      // With no split open the previous tree is complete: a new tree starts here.
+      code.beginControlFlow("if (top == 0)")
+          .addStatement("ROOT[root++] = i")
+          .nextControlFlow("else if (NODE[i - 1] < 0)")
+          .addStatement("RIGHT[open[--top]] = i")
+          .endControlFlow();
+    } else {
+      code.beginControlFlow("if (i > 0 && NODE[i - 1] < 0)")
+          .addStatement("RIGHT[open[--top]] = i")
+          .endControlFlow();
+    }
+    code
         .addStatement("int head = tree[at++]")
         .beginControlFlow("if ((head & $L) != 0)", LEAF)
         .addStatement("NODE[i] = ~(head >>> 1)")
@@ -229,23 +311,25 @@ final class TableWriter {
     MethodSpec.Builder classify = MethodSpec.methodBuilder("classify")
         .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
         .returns(TypeName.INT)
-        .addJavadoc(EntryDoc.classify(tree.schema(), input));
+        .addJavadoc(EntryDoc.classify(schema, input));
     input.addParameters(classify);
     if (input.checksLength()) {
-      EntryDoc.addLengthCheck(classify, tree.schema());
+      EntryDoc.addLengthCheck(classify, schema);
     }
     type.addMethod(classify.addStatement("return $L", leaves.classOf(leafCall)).build());
     if (leaves.probabilities()) {
-      type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
+      type.addMethod(LeafTable.probabilitiesMethod(schema, input, leafCall));
     }
     type.addMethod(walk());
   }
 
   /** {@code leaf(x)}: walks from the root to a leaf and returns the leaf's result. */
   private MethodSpec walk() {
-    CodeBlock.Builder code = CodeBlock.builder()
-        .addStatement("int i = 0")
-        .addStatement("int node")
+    CodeBlock.Builder code = CodeBlock.builder();
+    if (ensemble.isEmpty()) {
+      code.addStatement("int i = 0");
+    }
+    code.addStatement("int node")
         .beginControlFlow("while ((node = NODE[i]) >= 0)")
         .addStatement("boolean left");
     boolean categorical = hasCategorical();
@@ -272,6 +356,19 @@ final class TableWriter {
     code.addStatement("i = left ? i + 1 : RIGHT[i]")
         .endControlFlow()
         .addStatement("return ~node");
+    if (ensemble.isPresent()) {
+      return MethodSpec.methodBuilder("leaf")
+          .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+          .returns(TypeName.INT)
+          .addJavadoc("Walks the node table from a tree's root to a leaf.\n\n"
+              + "@param x the feature values in input order\n"
+              + "@param i the index of the tree's root node\n"
+              + "@return the class of the leaf reached\n")
+          .addParameter(ArrayTypeName.of(input.elementType()), "x")
+          .addParameter(TypeName.INT, "i")
+          .addCode(code.build())
+          .build();
+    }
     return MethodSpec.methodBuilder("leaf")
         .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
         .returns(TypeName.INT)

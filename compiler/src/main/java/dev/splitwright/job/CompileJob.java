@@ -20,7 +20,10 @@ import dev.splitwright.eval.SplitParts;
 import dev.splitwright.eval.StratifiedSplit;
 import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.persist.ModelFile;
+import dev.splitwright.persist.SavedClassifier;
+import dev.splitwright.persist.SavedEnsemble;
 import dev.splitwright.persist.SavedModel;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.ReportJson;
@@ -52,7 +55,7 @@ public final class CompileJob {
 
   private final Verifier verifier;
   private final Optional<OutputLanguage<?>> language;
-  private final UnaryOperator<DecisionTree> emitFrom;
+  private final UnaryOperator<Classifier> emitFrom;
 
   /** A job that emits Java, as each request's emit options say. */
   public CompileJob(Verifier verifier) {
@@ -73,9 +76,27 @@ public final class CompileJob {
    * test can make verification fail on purpose and see that nothing is written.
    */
   CompileJob(Verifier verifier, UnaryOperator<DecisionTree> emitFrom) {
+    this(verifier, Optional.empty(), model -> model instanceof DecisionTree tree
+        ? emitFrom.apply(tree) : model);
+    Objects.requireNonNull(emitFrom, "emitFrom");
+  }
+
+  private CompileJob(Verifier verifier, Optional<OutputLanguage<?>> language,
+      UnaryOperator<Classifier> emitFrom) {
     this.verifier = Objects.requireNonNull(verifier, "verifier");
-    this.language = Optional.empty();
-    this.emitFrom = Objects.requireNonNull(emitFrom, "emitFrom");
+    this.language = language;
+    this.emitFrom = emitFrom;
+  }
+
+  /**
+   * Test seam for ensembles: emits {@code alter(ensemble)} in {@code language} (Java when empty)
+   * but verifies it against the ensemble trained or read.
+   */
+  static CompileJob alteringEnsembles(Verifier verifier, Optional<OutputLanguage<?>> language,
+      UnaryOperator<TreeEnsemble> alter) {
+    Objects.requireNonNull(alter, "alter");
+    return new CompileJob(verifier, language, model -> model instanceof TreeEnsemble ensemble
+        ? alter.apply(ensemble) : model);
   }
 
   private OutputLanguage<?> language(CompileRequest request) {
@@ -120,13 +141,13 @@ public final class CompileJob {
       return BudgetRun.run(lang, request, targets, loaded, testLog, parts, budget.get(),
           progress);
     }
-    Optional<SavedModel> saved = Optional.empty();
-    DecisionTree tree;
+    Optional<SavedClassifier> saved = Optional.empty();
+    Classifier tree;
     Map<String, Dataset> scored;
     List<Dataset> verifyOn;
     if (request.model().isPresent()) {
-      saved = Optional.of(ModelFile.load(request.model().get()));
-      tree = saved.get().tree();
+      saved = Optional.of(ModelFile.loadAny(request.model().get()));
+      tree = saved.get().classifier();
       if (!tree.schema().equals(loaded.dataset().schema())) {
         throw new InputException(
             SourcePosition.ofFile(String.valueOf(request.model().get().getFileName())),
@@ -141,26 +162,35 @@ public final class CompileJob {
       verifyOn = List.copyOf(scored.values());
     } else {
       Parts parts = split(loaded.dataset(), request, testLog);
-      tree = CartTrainer.train(parts.train(), request.training());
+      tree = request.ensemble().isPresent()
+          ? request.ensemble().get().train(parts.train(), request.seed(), request.training())
+          : CartTrainer.train(parts.train(), request.training());
       scored = parts.named();
       verifyOn = parts.all();
     }
     Map<String, Scores> scores = score(tree, scored);
     HeaderInfo header = new HeaderInfo(loaded.sourceName(), loaded.sha256(),
-        request.optionsText(), scoreLines(scores), saved.map(SavedModel::trainedOn),
+        request.optionsText(), scoreLines(scores), saved.map(SavedClassifier::trainedOn),
         testLog.map(t -> t.loaded().file()));
-    SavedModel toSave = saved.orElseGet(() -> new SavedModel(tree, loaded.file(),
+    SavedClassifier toSave = saved.orElseGet(() -> saved(tree, loaded.file(),
         optionsMap(request)));
     return emitAndCheck(lang, request, targets, loaded, toSave, testLog, verifyOn, scores,
         header);
   }
 
-  /** Emits, verifies and measures {@code tree} in {@code lang}; writes all only if it passed. */
+  private static SavedClassifier saved(Classifier model, DataFile trainedOn,
+      Map<String, Object> training) {
+    return model instanceof TreeEnsemble ensemble
+        ? new SavedEnsemble(ensemble, trainedOn, training)
+        : new SavedModel((DecisionTree) model, trainedOn, training);
+  }
+
+  /** Emits, verifies and measures the model in {@code lang}; writes all only if it passed. */
   private <E extends Emission> CompileResult emitAndCheck(OutputLanguage<E> lang,
-      CompileRequest request, OutputTargets targets, LoadedData loaded, SavedModel model,
+      CompileRequest request, OutputTargets targets, LoadedData loaded, SavedClassifier model,
       Optional<FieldLog> testLog, List<Dataset> verifyOn, Map<String, Scores> scores,
       HeaderInfo header) throws InputException, IOException {
-    DecisionTree tree = model.tree();
+    Classifier tree = model.classifier();
     // --layout smallest is resolved here: both layouts emitted and measured, the smaller kept.
     E emission = lang.emit(emitFrom.apply(tree), header);
     VerificationResult verification = lang.verify(tree, emission, verifyOn, request.seed());
@@ -189,10 +219,9 @@ public final class CompileJob {
    * @return the files written, in order
    * @throws OutputException if a file cannot be written; nothing was changed then
    */
-  static List<Path> write(OutputTargets targets, CompileRequest request, SavedModel model,
+  static List<Path> write(OutputTargets targets, CompileRequest request, SavedClassifier model,
       List<OutputText> files, CompileReport report, Optional<String> frontierSvg)
       throws OutputException {
-    DecisionTree tree = model.tree();
     if (targets.frontier().isPresent() != frontierSvg.isPresent()) {
       throw new IllegalArgumentException("a frontier chart goes with a budget search alone");
     }
@@ -205,7 +234,7 @@ public final class CompileJob {
       out.add(targets.sources().get(i), files.get(i).text());
     }
     out.add(targets.report(), ReportJson.render(report));
-    out.add(targets.tree(), TreeSvg.render(tree, request.emit().className()));
+    out.add(targets.tree(), treeSvg(model.classifier(), request.emit().className()));
     if (targets.frontier().isPresent()) {
       out.add(targets.frontier().get(), frontierSvg.get());
     }
@@ -214,6 +243,18 @@ public final class CompileJob {
     }
     out.commit();
     return out.paths();
+  }
+
+  /**
+   * The tree picture: the tree, or an ensemble's first tree titled as such (one deterministic
+   * picture; the report lists every tree's depth and leaves).
+   */
+  private static String treeSvg(Classifier model, String className) {
+    if (model instanceof TreeEnsemble ensemble) {
+      return TreeSvg.render(ensemble.trees().get(0), className + ": tree 0 of "
+          + ensemble.treeCount() + " (" + ensemble.kind().fileName() + ")");
+    }
+    return TreeSvg.render((DecisionTree) model, className);
   }
 
   /** The rows each part holds; validation and test may be empty. */

@@ -21,6 +21,7 @@ import java.util.OptionalInt;
  * @param optionsText the options that reproduce the run, without paths, for headers and reports
  * @param dexMinApi measure the emitted class in DEX bytes for this minimum Android API level;
  *     needed for a DEX budget, and empty otherwise keeps D8 unloaded
+ * @param ensemble train this ensemble instead of a single tree (never with a budget or a model)
  */
 public record CompileRequest(
     Path data,
@@ -34,7 +35,8 @@ public record CompileRequest(
     Path outDir,
     Optional<Path> saveModel,
     String optionsText,
-    OptionalInt dexMinApi) {
+    OptionalInt dexMinApi,
+    Optional<EnsembleRequest> ensemble) {
 
   public CompileRequest {
     Objects.requireNonNull(data, "data");
@@ -51,6 +53,18 @@ public record CompileRequest(
     Objects.requireNonNull(saveModel, "saveModel");
     Objects.requireNonNull(optionsText, "optionsText");
     Objects.requireNonNull(dexMinApi, "dexMinApi");
+    Objects.requireNonNull(ensemble, "ensemble");
+    if (ensemble.isPresent() && model.isPresent()) {
+      throw new IllegalArgumentException("an ensemble is trained or read, not both");
+    }
+  }
+
+  /** A request that trains a single tree (or reads {@code model}). */
+  public CompileRequest(Path data, Optional<Path> testData, Optional<Path> model,
+      LoadOptions load, double[] fractions, long seed, TrainingOptions training, EmitOptions emit,
+      Path outDir, Optional<Path> saveModel, String optionsText, OptionalInt dexMinApi) {
+    this(data, testData, model, load, fractions, seed, training, emit, outDir, saveModel,
+        optionsText, dexMinApi, Optional.empty());
   }
 
   /** A request that measures no DEX bytes. */
@@ -58,7 +72,7 @@ public record CompileRequest(
       LoadOptions load, double[] fractions, long seed, TrainingOptions training, EmitOptions emit,
       Path outDir, Optional<Path> saveModel, String optionsText) {
     this(data, testData, model, load, fractions, seed, training, emit, outDir, saveModel,
-        optionsText, OptionalInt.empty());
+        optionsText, OptionalInt.empty(), Optional.empty());
   }
 
   @Override

@@ -7,10 +7,12 @@ import dev.splitwright.data.FieldLog;
 import dev.splitwright.data.Schema;
 import dev.splitwright.eval.Scores;
 import dev.splitwright.model.CategoricalSplit;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.DexSizes;
 import dev.splitwright.verify.VerificationResult;
@@ -39,11 +41,15 @@ final class ReportBuilder {
    * @param onChip the proofs on emulated cores, in order; empty when none ran
    */
   static CompileReport build(String dataName, String sha256, Optional<DataFile> trainedOn,
-      Optional<FieldLog> testData, DecisionTree tree, Map<String, Object> options,
+      Optional<FieldLog> testData, Classifier model, Map<String, Object> options,
       String language, Emission emission, SizeFigures sizes,
       VerificationResult verification, Optional<CompileReport.Compiler> compiler,
       List<CompileReport.OnChip> onChip, Map<String, Scores> scores, Object selection) {
-    Schema schema = tree.schema();
+    Schema schema = model.schema();
+    List<DecisionTree> trees = model instanceof TreeEnsemble e ? e.trees()
+        : List.of((DecisionTree) model);
+    CompileReport.Ensemble ensemble = model instanceof TreeEnsemble e ? ensemble(e) : null;
+    DecisionTree tree = trees.get(0);
     Map<String, CompileReport.PartScores> parts = new LinkedHashMap<>();
     scores.forEach((part, s) -> parts.put(part, partScores(schema, s)));
     CompileReport.DataRef trained = trainedOn
@@ -55,7 +61,10 @@ final class ReportBuilder {
     Optional<DexSizes> dex = java.flatMap(SizeFigures.JavaFigures::dex);
     return new CompileReport(TOOL, language, dataName, sha256, trained, test, schema.target(),
         schema.classes(), schema.featureNames(), options, emission.layout(), emission.input(),
-        tree.depth(), tree.leafCount(), tree.internalNodeCount(), root(tree), sizes.sourceBytes(),
+        trees.stream().mapToInt(DecisionTree::depth).max().orElse(0),
+        trees.stream().mapToInt(DecisionTree::leafCount).sum(),
+        trees.stream().mapToInt(DecisionTree::internalNodeCount).sum(), root(tree), ensemble,
+        sizes.sourceBytes(),
         java.map(SizeFigures.JavaFigures::classFileBytes).orElse(null),
         java.map(SizeFigures.JavaFigures::noDebugBytes).orElse(null),
         dex.map(DexSizes::dexBytes).orElse(null), dex.map(DexSizes::emptyClassBytes).orElse(null),
@@ -81,6 +90,17 @@ final class ReportBuilder {
     }
     return new CompileReport.PartScores(s.rows(), s.accuracy(), s.balancedAccuracy(), s.macroF1(),
         s.confusion(), precision, recall);
+  }
+
+  private static CompileReport.Ensemble ensemble(TreeEnsemble e) {
+    List<CompileReport.TreeShape> shapes = new ArrayList<>();
+    for (int t = 0; t < e.treeCount(); t++) {
+      DecisionTree tree = e.trees().get(t);
+      shapes.add(new CompileReport.TreeShape(tree.depth(), tree.leafCount(),
+          tree.internalNodeCount(), e.weight(t)));
+    }
+    return new CompileReport.Ensemble(e.kind().fileName(), e.treeCount(), e.totalWeight(),
+        shapes);
   }
 
   private static CompileReport.RootSplit root(DecisionTree tree) {

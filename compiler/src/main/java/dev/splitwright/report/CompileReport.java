@@ -22,15 +22,19 @@ import java.util.Map;
  * @param dexBytesEmptyClass the DEX file of an empty class of the same name, dexed the same way
  * @param dexBytesOverEmptyClass what the classifier adds to the empty class
  * @param dexMinApi the minimum Android API level D8 compiled for
+ * @param ensemble the kind and trees of an ensemble, absent for a single tree; then {@code depth}
+ *     is the deepest tree's, {@code leaves} and {@code internalNodes} the sums over the trees and
+ *     {@code root} the first tree's
  * @param flash the object file's flash bytes (C)
  * @param selection the budget search's record, absent when no budget was given
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 @JsonPropertyOrder({"tool", "language", "data", "dataSha256", "trainedOn", "testData", "target",
     "classes", "features", "options", "layout", "input", "depth", "leaves", "internalNodes", "root",
-    "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "dexBytes", "dexBytesEmptyClass",
-    "dexBytesOverEmptyClass", "dexMinApi", "maxMethodBytecodeBytes", "methodByteCap",
-    "constantPoolCount", "methods", "flash", "scores", "verification", "selection"})
+    "ensemble", "sourceBytes", "classFileBytes", "classFileBytesNoDebug", "dexBytes",
+    "dexBytesEmptyClass", "dexBytesOverEmptyClass", "dexMinApi", "maxMethodBytecodeBytes",
+    "methodByteCap", "constantPoolCount", "methods", "flash", "scores", "verification",
+    "selection"})
 public record CompileReport(
     String tool,
     String language,
@@ -48,6 +52,7 @@ public record CompileReport(
     int leaves,
     int internalNodes,
     RootSplit root,
+    Ensemble ensemble,
     int sourceBytes,
     Integer classFileBytes,
     Integer classFileBytesNoDebug,
@@ -69,6 +74,21 @@ public record CompileReport(
     features = List.copyOf(features);
     methods = methods == null ? null : List.copyOf(methods);
   }
+
+  /**
+   * An ensemble: its kind ({@code forest} or {@code boosted}), how many trees, the float32 sum of
+   * the weights, and each tree in combination order.
+   */
+  @JsonPropertyOrder({"kind", "trees", "totalWeight", "perTree"})
+  public record Ensemble(String kind, int trees, float totalWeight, List<TreeShape> perTree) {
+    public Ensemble {
+      perTree = List.copyOf(perTree);
+    }
+  }
+
+  /** One tree of an ensemble: depth, leaves, splits and the weight of its vote. */
+  @JsonPropertyOrder({"depth", "leaves", "internalNodes", "weight"})
+  public record TreeShape(int depth, int leaves, int internalNodes, float weight) {}
 
   /** A data file: its name, without any directory, and the SHA-256 of its bytes. */
   @JsonPropertyOrder({"name", "sha256"})

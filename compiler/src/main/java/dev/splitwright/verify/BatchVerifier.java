@@ -3,7 +3,9 @@ package dev.splitwright.verify;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.Schema;
 import dev.splitwright.emit.InputKind;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -51,7 +53,7 @@ public final class BatchVerifier {
    * @param rows the data whose every row is checked
    * @param seed the seed of the random inputs
    */
-  public static Inputs inputs(DecisionTree tree, InputKind kind, List<Dataset> rows, long seed) {
+  public static Inputs inputs(Classifier tree, InputKind kind, List<Dataset> rows, long seed) {
     Objects.requireNonNull(tree, "tree");
     Objects.requireNonNull(kind, "kind");
     Objects.requireNonNull(rows, "rows");
@@ -66,7 +68,7 @@ public final class BatchVerifier {
     for (float[] probe : probes) {
       ints.add(toInts(tree.schema(), probe));
     }
-    ints.addAll(IntProbes.of(tree));
+    ints.addAll(Trees.probes(tree, IntProbes::of));
     return new Inputs(kind, List.of(), ints);
   }
 
@@ -95,11 +97,11 @@ public final class BatchVerifier {
   /**
    * Compares {@code classifier} with {@code tree}: the class of every input and, with {@code
    * probabilities}, every frequency bit for bit with {@link DecisionTree#probabilities} narrowed
-   * to float.
+   * to float, or an ensemble's {@link TreeEnsemble#probabilities}.
    *
    * @param kind {@link InputKind#FLOAT} or {@link InputKind#INT}
    */
-  public static VerificationResult check(DecisionTree tree, InputKind kind,
+  public static VerificationResult check(Classifier tree, InputKind kind,
       boolean probabilities, List<Dataset> rows, long seed, BatchClassifier classifier) {
     Objects.requireNonNull(tree, "tree");
     Objects.requireNonNull(classifier, "classifier");
@@ -131,11 +133,11 @@ public final class BatchVerifier {
       if (answers.classes()[i] != expected) {
         problem = "class " + answers.classes()[i] + ", model " + expected;
       } else if (probabilities) {
-        double[] p = tree.probabilities(x);
+        float[] p = Trees.probabilities(tree, x);
         for (int c = 0; c < p.length && problem == null; c++) {
           float got = answers.probabilities()[i][c];
-          if (Float.floatToRawIntBits(got) != Float.floatToRawIntBits((float) p[c])) {
-            problem = "probability of class " + c + " " + got + ", model " + (float) p[c];
+          if (Float.floatToRawIntBits(got) != Float.floatToRawIntBits(p[c])) {
+            problem = "probability of class " + c + " " + got + ", model " + p[c];
           }
         }
       }

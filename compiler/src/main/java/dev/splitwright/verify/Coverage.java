@@ -1,34 +1,50 @@
 package dev.splitwright.verify;
 
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Node;
 import dev.splitwright.model.Split;
+import java.util.ArrayList;
 import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Map;
 
-/** Counts the splits whose both sides some input took, walking the model as the code would. */
+/**
+ * Counts the splits whose both sides some input took, walking the model as the code would; in an
+ * ensemble the splits of all trees, each tree walked for every input.
+ */
 final class Coverage {
-  private final DecisionTree tree;
-  private final Map<Split, Integer> index = new IdentityHashMap<>();
+  private final List<DecisionTree> trees;
+  /** Per tree, the number of each split among the splits of all trees. */
+  private final List<Map<Split, Integer>> index = new ArrayList<>();
   private final boolean[] left;
   private final boolean[] right;
 
-  Coverage(DecisionTree tree) {
-    this.tree = tree;
-    List<Split> splits = tree.splitsPreOrder();
-    for (int i = 0; i < splits.size(); i++) {
-      index.put(splits.get(i), i);
+  Coverage(Classifier model) {
+    this.trees = Trees.of(model);
+    int next = 0;
+    for (DecisionTree tree : trees) {
+      Map<Split, Integer> numbers = new IdentityHashMap<>();
+      for (Split split : tree.splitsPreOrder()) {
+        numbers.put(split, next++);
+      }
+      index.add(numbers);
     }
-    left = new boolean[splits.size()];
-    right = new boolean[splits.size()];
+    left = new boolean[next];
+    right = new boolean[next];
   }
 
   void record(float[] x) {
+    for (int t = 0; t < trees.size(); t++) {
+      record(trees.get(t), index.get(t), x);
+    }
+  }
+
+  private void record(DecisionTree tree, Map<Split, Integer> numbers, float[] x) {
     Node node = tree.root();
     while (node instanceof Split split) {
       boolean goesLeft = tree.goesLeft(split, x[split.feature()]);
-      int i = index.get(split);
+      int i = numbers.get(split);
       if (goesLeft) {
         left[i] = true;
       } else {

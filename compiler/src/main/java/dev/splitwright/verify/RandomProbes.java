@@ -3,6 +3,7 @@ package dev.splitwright.verify;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.Feature;
 import dev.splitwright.data.Schema;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.Split;
@@ -22,16 +23,18 @@ final class RandomProbes {
 
   private RandomProbes() {}
 
-  static List<float[]> of(DecisionTree tree, Dataset reference, int count, long seed) {
-    Schema schema = tree.schema();
+  static List<float[]> of(Classifier model, Dataset reference, int count, long seed) {
+    Schema schema = model.schema();
     int n = schema.featureCount();
     List<List<Float>> thresholds = new ArrayList<>();
     for (int f = 0; f < n; f++) {
       thresholds.add(new ArrayList<>());
     }
-    for (Split split : tree.splitsPreOrder()) {
-      if (split instanceof NumericSplit numeric) {
-        thresholds.get(numeric.feature()).add(numeric.threshold());
+    for (DecisionTree tree : Trees.of(model)) {
+      for (Split split : tree.splitsPreOrder()) {
+        if (split instanceof NumericSplit numeric) {
+          thresholds.get(numeric.feature()).add(numeric.threshold());
+        }
       }
     }
     SplittableRandom random = new SplittableRandom(seed);

@@ -12,7 +12,9 @@ import dev.splitwright.data.Dataset;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.InputKind;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
@@ -20,7 +22,8 @@ import java.util.Objects;
 /**
  * Proves an emitted classifier returns what the model returns: compiles the source in memory,
  * loads it in a fresh class loader and compares {@code classify} with {@link DecisionTree#predict}
- * on every data row, on boundary probes for every split and on seeded random inputs. A classifier
+ * or {@link TreeEnsemble#predict} on every data row, on boundary probes for every split of every
+ * tree and on seeded random inputs. A classifier
  * taking {@code int} inputs is also checked on int boundary probes ({@link IntProbes}): each
  * threshold's integer neighbours and the int extremes, with the model asked about their float
  * conversions.
@@ -68,7 +71,7 @@ public final class Verifier {
    *
    * @throws CompilationException if the source does not compile (a bug in the emitter)
    */
-  public VerificationResult verify(DecisionTree tree, EmittedSource source, EmitOptions options,
+  public VerificationResult verify(Classifier tree, EmittedSource source, EmitOptions options,
       List<Dataset> data, long seed) throws CompilationException {
     CompiledClasses classes = compiler.compileOne(source.qualifiedName(), source.source());
     return check(tree, classes, source, options, data, seed);
@@ -79,10 +82,11 @@ public final class Verifier {
    *
    * <p>Compares {@code classify} with the model on every input; for {@code double} input also on
    * {@link DoubleProbes}, where rounding to float decides; with {@code --probabilities} also
-   * {@code classProbabilities} with {@link DecisionTree#probabilities} narrowed to float, bit for
-   * bit. Mismatches of all comparisons are counted together.
+   * {@code classProbabilities} with {@link DecisionTree#probabilities} narrowed to float (for an
+   * ensemble {@link TreeEnsemble#probabilities}), bit for bit. Mismatches of all comparisons are
+   * counted together.
    */
-  public VerificationResult check(DecisionTree tree, CompiledClasses classes, EmittedSource source,
+  public VerificationResult check(Classifier tree, CompiledClasses classes, EmittedSource source,
       EmitOptions options, List<Dataset> data, long seed) {
     byte[] bytes = classes.bytes(source.qualifiedName());
     ClassFileInfo info = ClassFileInfo.parse(bytes);
@@ -103,7 +107,7 @@ public final class Verifier {
         x -> tree.predict(candidate.modelInput(x)), REPORTED_MISMATCHES));
     long inputsChecked = inputs.size();
     if (options.inputKind() == InputKind.DOUBLE) {
-      List<double[]> doubles = DoubleProbes.of(tree);
+      List<double[]> doubles = Trees.probes(tree, DoubleProbes::of);
       for (double[] x : doubles) {
         coverage.record(DoubleProbes.narrow(x));
       }
@@ -113,10 +117,10 @@ public final class Verifier {
     }
     if (options.probabilities()) {
       tally.add("classProbabilities ", OracleComparison.compare(inputs, candidate::probabilities,
-          x -> narrow(tree.probabilities(candidate.modelInput(x))), REPORTED_MISMATCHES));
+          x -> Trees.probabilities(tree, candidate.modelInput(x)), REPORTED_MISMATCHES));
     }
     if (options.inputKind() == InputKind.INT) {
-      List<int[]> ints = IntProbes.of(tree);
+      List<int[]> ints = Trees.probes(tree, IntProbes::of);
       for (int[] x : ints) {
         coverage.record(EmittedClassifier.modelInput(x));
       }
@@ -147,14 +151,6 @@ public final class Verifier {
         .orElse(0);
   }
 
-  private static float[] narrow(double[] p) {
-    float[] out = new float[p.length];
-    for (int c = 0; c < out.length; c++) {
-      out[c] = (float) p[c];
-    }
-    return out;
-  }
-
   /** Mismatches of several comparisons, the first few described. */
   private static final class Tally {
     long mismatches;
@@ -175,7 +171,7 @@ public final class Verifier {
   }
 
   /** Every data row, then the boundary probes, then the random probes. */
-  static List<float[]> inputs(DecisionTree tree, List<Dataset> data, long seed, int randomProbes) {
+  static List<float[]> inputs(Classifier tree, List<Dataset> data, long seed, int randomProbes) {
     List<float[]> inputs = new ArrayList<>();
     Dataset reference = null;
     for (Dataset part : data) {
@@ -186,7 +182,7 @@ public final class Verifier {
         reference = part;
       }
     }
-    inputs.addAll(BoundaryProbes.of(tree));
+    inputs.addAll(Trees.probes(tree, BoundaryProbes::of));
     inputs.addAll(RandomProbes.of(tree, reference, randomProbes, seed));
     return inputs;
   }

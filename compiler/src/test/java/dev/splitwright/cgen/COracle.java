@@ -1,7 +1,9 @@
 package dev.splitwright.cgen;
 
 import dev.splitwright.emit.InputKind;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
@@ -68,13 +70,13 @@ final class COracle {
   }
 
   /** Runs {@code source} (possibly altered) on {@code packed} inputs. */
-  static Report compare(Path dir, DecisionTree tree, CEmitOptions options, CSource source,
+  static Report compare(Path dir, Classifier tree, CEmitOptions options, CSource source,
       byte[] packed, List<float[]> modelInputs) throws IOException {
     return report(tree, options, Gcc.buildAndRun(dir, source, options, packed), modelInputs);
   }
 
   /** Compares a harness output file with the model on {@code modelInputs}. */
-  static Report report(DecisionTree tree, CEmitOptions options, byte[] raw,
+  static Report report(Classifier tree, CEmitOptions options, byte[] raw,
       List<float[]> modelInputs) {
     int classes = tree.schema().classCount();
     int features = tree.schema().featureCount();
@@ -91,13 +93,13 @@ final class COracle {
             + expected);
       }
       if (options.probabilities()) {
-        double[] p = tree.probabilities(x);
+        float[] p = probabilities(tree, x);
         for (int c = 0; c < classes; c++) {
           if (Float.floatToRawIntBits(out.probabilities()[r][c])
-              != Float.floatToRawIntBits((float) p[c])) {
+              != Float.floatToRawIntBits(p[c])) {
             mismatches++;
             report.add("p[" + c + "] " + out.probabilities()[r][c] + " for "
-                + Arrays.toString(x) + ", model " + (float) p[c]);
+                + Arrays.toString(x) + ", model " + p[c]);
             break;
           }
         }
@@ -109,6 +111,19 @@ final class COracle {
           report);
     }
     return new Report(report.inputs(), mismatches, report.first());
+  }
+
+  /** A tree's leaf frequencies narrowed to float; an ensemble's vote shares as they are. */
+  private static float[] probabilities(Classifier model, float[] x) {
+    if (model instanceof TreeEnsemble ensemble) {
+      return ensemble.probabilities(x);
+    }
+    double[] p = ((DecisionTree) model).probabilities(x);
+    float[] out = new float[p.length];
+    for (int c = 0; c < out.length; c++) {
+      out[c] = (float) p[c];
+    }
+    return out;
   }
 
   private static int texts(String what, List<String> expected, List<byte[]> actual,

@@ -319,14 +319,10 @@ class BadInputTableTest {
             "m.json: /version: expected version 2 (version 1 files do not record the data the "
                 + "model was trained on) but found version 1",
             "train it again with compile --save-model, which records its training data"),
-        // Ensembles (version 3, issue 16) are read by ModelFile.loadAny, but nothing emits them
-        // yet: --model refuses them with that reason instead of failing later.
-        fails("--model file of an ensemble",
+        // Ensembles (version 3, issue 16): --model reads them (ModelFile.loadAny) and emits them.
+        accepted("--model file of an ensemble",
             model(VALID, MODEL.replace("\"version\":2,", "\"version\":3,\"kind\":\"forest\",")
-                .replace("\"nodes\":[", "\"trees\":[{\"nodes\":[").replaceFirst("}$", "}]}")),
-            "m.json: /version: expected version 2 (a single tree; this build does not emit "
-                + "ensembles yet) but found version 3 (a forest of 1 tree)",
-            "pass a model file of a single tree"),
+                .replace("\"nodes\":[", "\"trees\":[{\"nodes\":[").replaceFirst("}$", "}]}"))),
         // Saved models are checked in full before use (issue 11): the place is a JSON Pointer.
         accepted("--model file written by hand for the data", model(VALID, MODEL)),
         fails("--model split on a feature the data lacks",

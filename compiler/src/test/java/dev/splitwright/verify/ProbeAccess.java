@@ -1,7 +1,7 @@
 package dev.splitwright.verify;
 
 import dev.splitwright.data.Dataset;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import java.util.List;
 
 /**
@@ -13,7 +13,7 @@ public final class ProbeAccess {
   private ProbeAccess() {}
 
   /** Boundary probes of every split, then {@code randomProbes} seeded random inputs. */
-  public static List<float[]> floatProbes(DecisionTree tree, long seed, int randomProbes) {
+  public static List<float[]> floatProbes(Classifier tree, long seed, int randomProbes) {
     return Verifier.inputs(tree, List.of(), seed, randomProbes);
   }
 
@@ -21,13 +21,16 @@ public final class ProbeAccess {
    * The inputs verification runs: every row of {@code data}, the boundary probes of every split,
    * then {@code randomProbes} seeded random inputs.
    */
-  public static List<float[]> verificationInputs(DecisionTree tree, List<Dataset> data,
+  public static List<float[]> verificationInputs(Classifier tree, List<Dataset> data,
       long seed, int randomProbes) {
     return Verifier.inputs(tree, data, seed, randomProbes);
   }
 
-  /** Int boundary probes: each threshold's integer neighbours and the int extremes. */
-  public static List<int[]> intProbes(DecisionTree tree) {
-    return IntProbes.of(tree);
+  /**
+   * Int boundary probes: each threshold's integer neighbours and the int extremes, for every tree
+   * of an ensemble.
+   */
+  public static List<int[]> intProbes(Classifier tree) {
+    return Trees.probes(tree, IntProbes::of);
   }
 }

@@ -1,0 +1,206 @@
+package dev.splitwright.cgen;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import dev.splitwright.emit.HeaderInfo;
+import dev.splitwright.emit.InputKind;
+import dev.splitwright.emit.Layout;
+import dev.splitwright.emit.RandomEnsembles;
+import dev.splitwright.model.ClassCounts;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Leaf;
+import dev.splitwright.model.NumericSplit;
+import dev.splitwright.model.TreeEnsemble;
+import dev.splitwright.verify.ProbeAccess;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * Ensembles emitted as C: each tree a {@code static} function, {@code classify} adding the votes
+ * in float. Built with gcc and {@code -ffp-contract=off} ({@link Gcc#STRICT}) on x86-64, where
+ * FLT_EVAL_METHOD is 0 (SSE arithmetic, System V AMD64 ABI), they must give {@link TreeEnsemble}'s
+ * classes and shares bit for bit: IEEE 754 binary32 addition and division are correctly rounded.
+ */
+class CEnsembleTest {
+  private static final int ENSEMBLES = Integer.getInteger("cgen.randomEnsembles", 150);
+  private static final int PER_BUILD = 25;
+  private static final int RANDOM_PROBES = 100;
+
+  @TempDir
+  Path dir;
+
+  private record Case(String base, TreeEnsemble ensemble, CEmitOptions options, byte[] input,
+      List<float[]> modelInputs) {}
+
+  @Test
+  void randomEnsemblesGiveTheModelsClassesAndShares() throws IOException {
+    assumeTrue(Gcc.available(), "gcc is needed to build emitted C");
+    SplittableRandom random = new SplittableRandom(20_261_203L);
+    int checked = 0;
+    int[] kinds = new int[2];
+    for (int start = 0; start < ENSEMBLES; start += PER_BUILD) {
+      List<Case> cases = new ArrayList<>();
+      for (int i = start; i < Math.min(ENSEMBLES, start + PER_BUILD); i++) {
+        Case c = newCase("e" + i, random.split());
+        kinds[c.ensemble().kind().ordinal()]++;
+        cases.add(c);
+      }
+      checked += runBatch(cases, start == 0);
+    }
+    assertThat(checked).isEqualTo(ENSEMBLES);
+    assertThat(kinds[0]).isPositive();
+    assertThat(kinds[1]).isPositive();
+  }
+
+  private static Case newCase(String base, SplittableRandom random) {
+    TreeEnsemble ensemble = RandomEnsembles.ensemble(random);
+    CEmitOptions options = new CEmitOptions(base,
+        random.nextBoolean() ? Layout.BRANCHES : Layout.TABLE,
+        random.nextInt(3) == 0 ? InputKind.INT : InputKind.FLOAT,
+        random.nextInt(3) > 0, random.nextInt(4) == 0);
+    if (options.inputKind() == InputKind.FLOAT && random.nextInt(4) == 0) {
+      options = options.withCompareBits(true);
+    }
+    return withProbes(base, ensemble, options, random.nextLong());
+  }
+
+  private static Case withProbes(String base, TreeEnsemble ensemble, CEmitOptions options,
+      long seed) {
+    int features = ensemble.schema().featureCount();
+    List<float[]> floats = ProbeAccess.floatProbes(ensemble, seed, RANDOM_PROBES);
+    if (options.inputKind() == InputKind.FLOAT) {
+      return new Case(base, ensemble, options, HarnessData.packFloats(floats, features), floats);
+    }
+    List<int[]> ints = new ArrayList<>(ProbeAccess.intProbes(ensemble));
+    for (float[] x : floats) {
+      int[] v = new int[x.length];
+      for (int f = 0; f < v.length; f++) {
+        v[f] = (int) x[f]; // JLS 5.1.3: NaN to 0, saturating at the int range.
+      }
+      ints.add(v);
+    }
+    List<float[]> model = new ArrayList<>();
+    for (int[] x : ints) {
+      float[] v = new float[x.length];
+      for (int f = 0; f < v.length; f++) {
+        v[f] = x[f];
+      }
+      model.add(v);
+    }
+    return new Case(base, ensemble, options, HarnessData.packInts(ints, features), model);
+  }
+
+  private int runBatch(List<Case> cases, boolean sanitized) throws IOException {
+    List<String> files = new ArrayList<>();
+    StringBuilder dispatch = new StringBuilder("#include <string.h>\n");
+    for (Case c : cases) {
+      CSource source = CEmitter.emit(c.ensemble(), c.options(), HeaderInfo.none());
+      String harness = CHarness.source(c.options()).replace("int main(int argc, char **argv)",
+          "int " + c.base() + "_main(int argc, char **argv)");
+      Gcc.write(dir, source.headerName(), source.headerText(), source.sourceName(),
+          source.sourceText(), CHarness.fileName(c.options()), harness);
+      files.add(source.sourceName());
+      files.add(CHarness.fileName(c.options()));
+      dispatch.append("int ").append(c.base()).append("_main(int argc, char **argv);\n");
+    }
+    dispatch.append("int main(int argc, char **argv)\n{\n    if (argc < 2) {\n        return 2;\n"
+        + "    }\n");
+    for (Case c : cases) {
+      dispatch.append("    if (strcmp(argv[1], \"").append(c.base()).append("\") == 0) {\n")
+          .append("        return ").append(c.base()).append("_main(argc - 1, argv + 1);\n    }\n");
+    }
+    dispatch.append("    return 2;\n}\n");
+    Gcc.write(dir, "dispatch.c", dispatch.toString());
+    files.add("dispatch.c");
+    List<String> flags = new ArrayList<>(Gcc.STRICT);
+    if (sanitized) {
+      flags.addAll(Gcc.SANITIZE);
+    }
+    Gcc.gcc(dir, flags, files, "batch").orFail("gcc of " + files);
+    for (Case c : cases) {
+      Path in = dir.resolve(c.base() + ".in");
+      Path out = dir.resolve(c.base() + ".out");
+      Files.write(in, c.input());
+      Gcc.run(dir, List.of(dir.resolve("batch").toString(), c.base(), in.toString(),
+          out.toString())).orFail("harness " + c.base());
+      COracle.Report report = COracle.report(c.ensemble(), c.options(), Files.readAllBytes(out),
+          c.modelInputs());
+      assertThat(report.mismatches()).as(c.base() + " " + c.options() + ": " + report.describe())
+          .isZero();
+    }
+    return cases.size();
+  }
+
+  /** Two trees on one feature whose weights tie for some inputs; worked by hand below. */
+  private static TreeEnsemble tieCase() {
+    dev.splitwright.data.Schema schema = new dev.splitwright.data.Schema(
+        List.of(dev.splitwright.data.Feature.numeric("v")), "y", List.of("a", "b"));
+    DecisionTree first = new DecisionTree(schema, new NumericSplit(0, 0.5f, false,
+        new Leaf(0, ClassCounts.of(2, 0)), new Leaf(1, ClassCounts.of(0, 2)),
+        ClassCounts.of(2, 2)));
+    DecisionTree second = new DecisionTree(schema, new Leaf(1, ClassCounts.of(1, 3)));
+    return TreeEnsemble.boosted(List.of(first, second), new float[] {0.1f, 0.1f});
+  }
+
+  @Test
+  void votesThatTieGoToTheLowestClassInC() throws IOException {
+    assumeTrue(Gcc.available(), "gcc is needed to build emitted C");
+    TreeEnsemble ensemble = tieCase();
+    // Worked by hand: v = 0 gives votes a 0.1, b 0.1: a tie, so class 0 (a); v = 1 gives b 0.2.
+    assertThat(ensemble.predict(new float[] {0f})).isZero();
+    assertThat(ensemble.predict(new float[] {1f})).isEqualTo(1);
+    CEmitOptions options = CEmitOptions.of("tie").withProbabilities(true);
+    List<float[]> inputs = List.of(new float[] {0f}, new float[] {1f});
+    COracle.Report report = COracle.compare(dir, ensemble, options,
+        CEmitter.emit(ensemble, options, HeaderInfo.none()),
+        HarnessData.packFloats(inputs, 1), inputs);
+    assertThat(report.mismatches()).as(report.describe()).isZero();
+  }
+
+  @Test
+  void aWeightOneUlpOffInALaterTreeIsCaught() throws IOException {
+    assumeTrue(Gcc.available(), "gcc is needed to build emitted C");
+    TreeEnsemble ensemble = tieCase();
+    CEmitOptions options = CEmitOptions.of("ulp").withProbabilities(true);
+    CSource right = CEmitter.emit(ensemble, options, HeaderInfo.none());
+    // Tree 1's weight 0.1f one ulp up: 0x1.99999ap-4f is 0.1f (IEEE 754 binary32, worked by hand
+    // from 0.1 = 0x1.999999...p-4 rounded to 24 bits), 0x1.99999cp-4f its successor.
+    String text = right.sourceText();
+    String tree1 = "score[ulp_tree1(x)] += 0x1.99999ap-4f;";
+    assertThat(text).contains(tree1);
+    CSource wrong = new CSource(right.headerName(), right.headerText(), right.sourceName(),
+        text.replace(tree1, "score[ulp_tree1(x)] += 0x1.99999cp-4f;"));
+    List<float[]> inputs = List.of(new float[] {0f}, new float[] {1f});
+    COracle.Report report = COracle.compare(dir, ensemble, options, wrong,
+        HarnessData.packFloats(inputs, 1), inputs);
+    // v = 0: the tie breaks the other way (b); v = 1: the shares' bits change.
+    assertThat(report.mismatches()).isPositive();
+  }
+
+  @Test
+  void theFileStopsWhenFloatArithmeticIsWider() throws IOException {
+    assumeTrue(Gcc.available(), "gcc is needed to build emitted C");
+    CEmitOptions options = CEmitOptions.of("wide");
+    CSource source = CEmitter.emit(tieCase(), options, HeaderInfo.none());
+    Gcc.write(dir, source.headerName(), source.headerText(), source.sourceName(),
+        source.sourceText());
+    assertThat(Gcc.gcc(dir, Gcc.STRICT, List.of(source.sourceName()), "plain.o").exit())
+        .isZero();
+    // An x87 build (gcc -m32 -mfpmath=387) has FLT_EVAL_METHOD 2 (C99 5.2.4.2.2), but this host
+    // has no 32-bit C library headers; <float.h> of gcc defines FLT_EVAL_METHOD from the
+    // predefined __FLT_EVAL_METHOD__, so redefining that simulates the x87 build.
+    List<String> wide = new ArrayList<>(List.of("-std=c99", "-U__FLT_EVAL_METHOD__",
+        "-D__FLT_EVAL_METHOD__=2"));
+    Gcc.Result result = Gcc.gcc(dir, wide, List.of(source.sourceName()), "wide.o");
+    assertThat(result.exit()).isNotZero();
+    assertThat(result.output()).contains(
+        "wide.c adds float votes: it needs FLT_EVAL_METHOD == 0");
+  }
+}
