@@ -8,7 +8,6 @@ import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.model.Classifier;
-import dev.splitwright.model.DecisionTree;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.SearchMeter;
 import dev.splitwright.select.Sizes;
@@ -55,7 +54,7 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
     List<CSource> emitted = new ArrayList<>(models.size() * variants.size());
     for (Classifier model : models) {
       for (CEmitOptions v : variants) {
-        emitted.add(CEmitter.emit(tree(model), v, header));
+        emitted.add(CEmitter.emit(model, v, header));
       }
     }
     List<ElfFile> objects = compile(emitted);
@@ -81,7 +80,7 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
     }
     List<CSource> bare = new ArrayList<>();
     for (CEmitOptions v : variants) {
-      bare.add(CEmitter.emit(tree(model), v.withBare(true), header));
+      bare.add(CEmitter.emit(model, v.withBare(true), header));
     }
     return compile(bare).stream()
         .mapToInt(elf -> Math.toIntExact(elf.flashBytes()))
@@ -93,7 +92,7 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
       throws InputException {
     runs++;
     sources += variants.size();
-    CLanguage.CEmission emission = language.emit(tree(model), header);
+    CLanguage.CEmission emission = language.emit(model, header);
     return new Emitted<>(emission, sizes(emission.source(), emission.object()),
         emission.options().layout());
   }
@@ -101,7 +100,7 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
   @Override
   public VerificationResult verify(Classifier model, CLanguage.CEmission emitted,
       List<Dataset> rows, long seed) throws InputException {
-    return language.verify(tree(model), emitted, rows, seed);
+    return language.verify(model, emitted, rows, seed);
   }
 
   @Override
@@ -122,13 +121,6 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
   @Override
   public int sourcesCompiled() {
     return sources;
-  }
-
-  private static DecisionTree tree(Classifier model) {
-    if (model instanceof DecisionTree tree) {
-      return tree;
-    }
-    throw new IllegalArgumentException("C ensembles are not emitted yet");
   }
 
   private List<ElfFile> compile(List<CSource> files) throws InputException {

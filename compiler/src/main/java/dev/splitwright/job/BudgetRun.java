@@ -9,8 +9,8 @@ import dev.splitwright.data.LoadedData;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.eval.Scores;
-import dev.splitwright.model.DecisionTree;
-import dev.splitwright.persist.SavedModel;
+import dev.splitwright.model.Classifier;
+import dev.splitwright.persist.SavedClassifier;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.FrontierSvg;
 import dev.splitwright.select.BudgetSelection;
@@ -44,8 +44,7 @@ final class BudgetRun {
                 request.seed()),
             header(loaded, testLog, request, placeholderScores(parts)),
             tree -> header(loaded, testLog, request, CompileJob.score(tree, parts)));
-    // Until ensembles are emitted the search is asked for trees alone (see BudgetOptions).
-    DecisionTree tree = (DecisionTree) outcome.model();
+    Classifier tree = outcome.model();
     E emission = outcome.emitted();
     Map<String, Scores> scores = CompileJob.score(tree, parts);
     Map<String, Object> options = CompileJob.optionsMap(request);
@@ -63,8 +62,7 @@ final class BudgetRun {
     }
     String chart = FrontierSvg.render(FrontierChartBuilder.build(loaded.sourceName(), settings,
         outcome));
-    SavedModel model = new SavedModel(tree, loaded.file(),
-        CompileJob.optionsMap(request));
+    SavedClassifier model = CompileJob.saved(tree, loaded.file(), CompileJob.optionsMap(request));
     List<Path> written = CompileJob.write(targets, request, model, emission.files(), report,
         Optional.of(chart));
     return new CompileResult(tree, emission, sizes, outcome.verification(), scores, report,

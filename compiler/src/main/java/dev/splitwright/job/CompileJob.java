@@ -178,7 +178,7 @@ public final class CompileJob {
         header);
   }
 
-  private static SavedClassifier saved(Classifier model, DataFile trainedOn,
+  static SavedClassifier saved(Classifier model, DataFile trainedOn,
       Map<String, Object> training) {
     return model instanceof TreeEnsemble ensemble
         ? new SavedEnsemble(ensemble, trainedOn, training)

@@ -5,7 +5,7 @@ import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.emit.Layout;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
@@ -17,8 +17,8 @@ import java.util.Objects;
 @FunctionalInterface
 public interface CandidateEmitter {
 
-  /** The sources of {@code tree}, all with the same class name, one per layout. */
-  List<EmittedSource> emit(DecisionTree tree, HeaderInfo header);
+  /** The sources of {@code model}, all with the same class name, one per layout. */
+  List<EmittedSource> emit(Classifier model, HeaderInfo header);
 
   /** Emits with {@link JavaEmitter} and {@code options}. */
   static CandidateEmitter of(EmitOptions options) {
@@ -33,8 +33,8 @@ public interface CandidateEmitter {
     } else {
       layouts.add(options.layout());
     }
-    return (tree, header) -> layouts.stream()
-        .map(layout -> JavaEmitter.emit(tree, options.toBuilder().layout(layout).build(), header))
+    return (model, header) -> layouts.stream()
+        .map(layout -> JavaEmitter.emit(model, options.toBuilder().layout(layout).build(), header))
         .toList();
   }
 }

@@ -7,7 +7,6 @@ import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.Classifier;
-import dev.splitwright.model.DecisionTree;
 import dev.splitwright.verify.VerificationResult;
 import dev.splitwright.verify.Verifier;
 import java.util.ArrayList;
@@ -66,7 +65,7 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
     List<EmittedSource> sources = new ArrayList<>();
     List<Integer> variants = new ArrayList<>();
     for (Classifier model : models) {
-      List<EmittedSource> emitted = emitter.emit(tree(model), header);
+      List<EmittedSource> emitted = emitter.emit(model, header);
       sources.addAll(emitted);
       variants.add(emitted.size());
     }
@@ -98,7 +97,7 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
     }
     // Measured, not estimated: the same tree emitted with --bare and compiled.
     return CandidateEmitter.of(options.toBuilder().bare(true).build())
-        .emit(tree(model), header).stream()
+        .emit(model, header).stream()
         .mapToInt(source -> meter.measureAlone(source).in(unit))
         .min();
   }
@@ -110,7 +109,7 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
     CompiledClasses bestClasses = null;
     Sizes bestSizes = null;
     Layout smallestClass = null;
-    for (EmittedSource source : emitter.emit(tree(model), header)) {
+    for (EmittedSource source : emitter.emit(model, header)) {
       CompiledClasses classes = meter.compileAlone(source);
       Sizes sizes = meter.measured(classes, source);
       classFileBytes.put(source.layout(), classes.size(source.qualifiedName()));
@@ -133,7 +132,7 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
   @Override
   public VerificationResult verify(Classifier model, LayoutChoice emitted, List<Dataset> rows,
       long seed) {
-    return verifier.check(tree(model), emitted.classes(), emitted.source(), emitted.options(), rows,
+    return verifier.check(model, emitted.classes(), emitted.source(), emitted.options(), rows,
         seed);
   }
 
@@ -143,13 +142,6 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
     Sizes sizes = emitted.sizes();
     return new ChosenBytes(sizes.classFileBytes(), DebugSizes.noDebug(source),
         DebugSizes.fullDebug(source), sizes.bytecodeBytes(), null);
-  }
-
-  private static DecisionTree tree(Classifier model) {
-    if (model instanceof DecisionTree tree) {
-      return tree;
-    }
-    throw new IllegalArgumentException("Java ensembles are not emitted yet");
   }
 
   @Override
