@@ -270,9 +270,9 @@ final class SortedColumns {
   }
 
   /**
-   * Keeps, in order, only the rows whose bit in {@code goesLeft} is {@code side}: packed from {@code lo} for
-   * the left side, into the end of the segment for the right side (scanning down, so the write
-   * position never falls below the read position).
+   * Keeps, in order, only the rows whose bit in {@code goesLeft} is {@code side}: packed from
+   * {@code lo} for the left side, into the end of the segment for the right side (scanning down, so
+   * the write position never falls below the read position).
    */
   private void keepOneSide(int f, int lo, int hi, long[] goesLeft, int side) {
     int[] r = rows[f];
