@@ -67,7 +67,15 @@ final class SortedColumns {
       }
       int[] order = new int[n];
       identity(order);
-      radixSort(keys, order, keyBuffer, rowBuffer, starts);
+      if (radixSort(keys, order, keyBuffer, rowBuffer, starts)) {
+        // The sorted keys and rows are in the buffers: keep them there instead of copying back.
+        int[] t = keys;
+        keys = keyBuffer;
+        keyBuffer = t;
+        t = order;
+        order = rowBuffer;
+        rowBuffer = t;
+      }
       // The keys map back to the (canonical) values, so the values need no gather by row.
       float[] sorted = new float[n];
       char[] sortedLabels = new char[n];
@@ -159,12 +167,16 @@ final class SortedColumns {
     return Float.intBitsToFloat(flipped ^ ((flipped >> 31) & 0x7fffffff));
   }
 
-  /** Sorts keys ascending (unsigned), carrying rows along; stable, so equal keys keep row order. */
-  private static void radixSort(int[] keys, int[] rows, int[] keyBuffer, int[] rowBuffer,
+  /**
+   * Sorts keys ascending (unsigned), carrying rows along; stable, so equal keys keep row order.
+   * Returns whether the result is in the buffers ({@code keyBuffer}, {@code rowBuffer}) rather
+   * than in {@code keys} and {@code rows}.
+   */
+  private static boolean radixSort(int[] keys, int[] rows, int[] keyBuffer, int[] rowBuffer,
       int[][] starts) {
     int n = keys.length;
     if (n == 0) {
-      return;
+      return false;
     }
     for (int[] start : starts) {
       Arrays.fill(start, 0);
@@ -194,10 +206,7 @@ final class SortedColumns {
       srcRows = dstRows;
       dstRows = t;
     }
-    if (srcRows != rows) {
-      System.arraycopy(srcRows, 0, rows, 0, n);
-      System.arraycopy(srcKeys, 0, keys, 0, n);
-    }
+    return srcRows != rows;
   }
 
   /** One counting pass for all three digits (11 + 11 + 10 bits). */
