@@ -33,7 +33,8 @@ final class TreeGrower {
   private final SortedColumns columns;
   private final Criterion criterion;
   private final SplitSearch search;
-  private final byte[] goesLeft;
+  /** One bit a row (see {@link SortedColumns#partition}): set when the row goes left. */
+  private final long[] goesLeft;
   private final double rootWeight;
   private int nextId;
 
@@ -65,7 +66,7 @@ final class TreeGrower {
     this.sampleSize = size;
     this.criterion = new Criterion(options.impurity(), classWeights, size);
     this.search = new SplitSearch(columns, schema, criterion, options.minLeaf(), sampler);
-    this.goesLeft = new byte[rowIds];
+    this.goesLeft = new long[(rowIds + 63) >>> 6];
     this.rootWeight = criterion.weight(rootCounts);
   }
 
@@ -142,7 +143,8 @@ final class TreeGrower {
         left = v <= choice.threshold;
       }
       int row = rows[i];
-      goesLeft[row] = (byte) (left ? 1 : 0);
+      long bit = 1L << row;
+      goesLeft[row >>> 6] = left ? goesLeft[row >>> 6] | bit : goesLeft[row >>> 6] & ~bit;
       if (left) {
         leftCounts[labels[i]]++;
         nLeft++;
