@@ -34,7 +34,7 @@ final class BudgetOptions {
           + "object file --cc writes with --cflags (flash, the only one).")
   String unit;
 
-  @Option(names = "--kinds", defaultValue = "tree", paramLabel = "KINDS",
+  @Option(names = "--kinds", defaultValue = "tree,forest,boosted", paramLabel = "KINDS",
       description = "Kinds of classifier the budget search tries, comma-separated: tree (one "
           + "CART tree and its prunings), forest (voting forests, Breiman 2001), boosted (SAMME, "
           + "Zhu et al. 2009); ensembles of 2 to 64 trees (default: ${DEFAULT-VALUE}).")
