@@ -19,7 +19,6 @@ import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.Classifier;
-import dev.splitwright.model.DecisionTree;
 import dev.splitwright.onchip.OnChipProof;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.BudgetUnit;
@@ -255,14 +254,10 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
     if (!onHost.passed() || onChip.isEmpty()) {
       return onHost;
     }
-    if (!(tree instanceof DecisionTree single)) {
-      throw new InputException("prove-on", "the proof on emulated cores takes single trees only "
-          + "so far", "leave out --prove-on for an ensemble; the host proof has passed");
-    }
     BatchVerifier.Inputs inputs =
         BatchVerifier.inputs(tree, emission.options().inputKind(), rows, seed);
     List<OnChipProof> proofs =
-        onChip.get().prove(single, emission.source(), emission.options(), inputs);
+        onChip.get().prove(tree, emission.source(), emission.options(), inputs);
     for (OnChipProof proof : proofs) {
       if (!proof.passed()) {
         List<String> described = new ArrayList<>();

@@ -8,7 +8,7 @@ import dev.splitwright.check.CortexMToolchain;
 import dev.splitwright.check.ProcessTimeoutException;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.InputKind;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.onchip.OnChipProof;
 import dev.splitwright.onchip.OnChipProofException;
 import dev.splitwright.onchip.OnChipProver;
@@ -79,7 +79,7 @@ public final class OnChipStage {
    * @throws InputException naming {@code --cflags} if the cross compiler rejects the image
    * @throws UnfinishedProofException if an image runs past the time limit or fails
    */
-  List<OnChipProof> prove(DecisionTree tree, CSource source, CEmitOptions options,
+  List<OnChipProof> prove(Classifier tree, CSource source, CEmitOptions options,
       BatchVerifier.Inputs inputs) throws InputException {
     int features = tree.schema().featureCount();
     ProofInputs chipInputs = inputs.kind() == InputKind.FLOAT

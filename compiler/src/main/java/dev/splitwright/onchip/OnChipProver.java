@@ -9,7 +9,9 @@ import dev.splitwright.check.CortexMProfile;
 import dev.splitwright.check.CortexMToolchain;
 import dev.splitwright.check.LittleEndian;
 import dev.splitwright.check.ProcessTimeoutException;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -22,8 +24,9 @@ import java.util.Optional;
 /**
  * Proves an emitted C classifier on an emulated Cortex-M core: builds it with {@link
  * BareMetalHarness} for the core, runs the image on qemu over every input and compares each class
- * with {@link DecisionTree#predict} and, with probabilities, each float bit pattern with {@link
- * DecisionTree#probabilities} narrowed to float. The build is the one a device would get (the
+ * with the model's prediction and, with probabilities, each float bit pattern with {@link
+ * DecisionTree#probabilities} narrowed to float or an ensemble's {@link
+ * TreeEnsemble#probabilities}. The build is the one a device would get (the
  * core's compiler flags, libgcc's soft-float helpers on cores without FPU), so a helper or an
  * instruction sequence that treats NaN, signed zeros or a threshold's neighbours differently
  * shows as a mismatch.
@@ -63,7 +66,7 @@ public final class OnChipProver {
    * @throws OnChipProofException if the emulator runs past {@code runLimit}, the image exits with
    *     an error or a fault, or its output has the wrong length
    */
-  public OnChipProof prove(DecisionTree tree, CSource source, CEmitOptions options,
+  public OnChipProof prove(Classifier tree, CSource source, CEmitOptions options,
       ProofInputs inputs, CortexMProfile profile, List<String> codeFlags,
       boolean countInstructions)
       throws CCompileException, ProcessTimeoutException, OnChipProofException {
@@ -140,7 +143,7 @@ public final class OnChipProver {
   }
 
   /** What is wrong with the record at {@code at}; empty when it matches the model. */
-  private static Optional<String> compare(DecisionTree tree, CEmitOptions options, float[] x,
+  private static Optional<String> compare(Classifier tree, CEmitOptions options, float[] x,
       int[] words, int at, int row) {
     int expected = tree.predict(x);
     if (words[at] != expected) {
@@ -148,15 +151,28 @@ public final class OnChipProver {
           + ", model " + expected);
     }
     if (options.probabilities()) {
-      double[] p = tree.probabilities(x);
+      float[] p = probabilities(tree, x);
       for (int c = 0; c < p.length; c++) {
-        int bits = Float.floatToRawIntBits((float) p[c]);
+        int bits = Float.floatToRawIntBits(p[c]);
         if (words[at + 1 + c] != bits) {
           return Optional.of("row " + row + " " + Arrays.toString(x) + ": p[" + c + "] "
-              + Float.intBitsToFloat(words[at + 1 + c]) + ", model " + (float) p[c]);
+              + Float.intBitsToFloat(words[at + 1 + c]) + ", model " + p[c]);
         }
       }
     }
     return Optional.empty();
+  }
+
+  /** What the emitted probabilities must equal: a tree's narrowed to float, an ensemble's. */
+  private static float[] probabilities(Classifier model, float[] x) {
+    if (model instanceof TreeEnsemble ensemble) {
+      return ensemble.probabilities(x);
+    }
+    double[] p = ((DecisionTree) model).probabilities(x);
+    float[] narrowed = new float[p.length];
+    for (int c = 0; c < p.length; c++) {
+      narrowed[c] = (float) p[c];
+    }
+    return narrowed;
   }
 }

@@ -249,7 +249,8 @@ class BudgetCommandTest {
     }
     assertThat(header).as(out).isNotNegative();
     Pattern row = Pattern.compile("  ([> ]) +(\\d+) B  (\\d\\.\\d{4}) +(\\d+) (leaf|leaves)"
-        + "(  chosen|  over budget)?");
+        + "(  (?:forest|boosted) of \\d+)?(  chosen|  over budget)?");
+    // Groups: chosen mark, size, score, leaves, leaf word, kind of an ensemble, note.
     List<Matcher> rows = new ArrayList<>();
     for (int i = header + 1; i < lines.size() && lines.get(i).startsWith("  ")
         && !lines.get(i).startsWith("  ("); i++) {
@@ -273,7 +274,9 @@ class BudgetCommandTest {
           .isCloseTo(p.get("validationScore").asDouble(), Offset.offset(5e-5));
       assertThat(Integer.parseInt(m.group(4))).isEqualTo(p.get("leaves").asInt());
       assertThat(m.group(1).equals(">")).isEqualTo(p.get("chosen").asBoolean());
-      assertThat("  over budget".equals(m.group(6))).isEqualTo(p.get("size").asInt() > 2048);
+      assertThat(m.group(6)).isEqualTo(p.get("trees").asInt() == 1 ? null
+          : "  " + p.get("kind").asText() + " of " + p.get("trees").asInt());
+      assertThat("  over budget".equals(m.group(7))).isEqualTo(p.get("size").asInt() > 2048);
     }
     assertThat(rows).anyMatch(m -> m.group(1).equals(">"));
     List<String> wrote = lines.stream().filter(l -> l.startsWith("wrote ")).toList();
