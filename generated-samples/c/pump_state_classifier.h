@@ -22,7 +22,7 @@
  * test (600 rows): accuracy 0.8967, balanced accuracy 0.8590, macro-F1 0.8663
  *
  * Data: pump-vibration.csv, SHA-256 302c442b55bf0b52f5b99f51e73f319577cef65c464046997b491b708c1c4b37.
- * Options: --target state --split 0.6,0.2,0.2 --seed 7 --max-depth 8 --min-leaf 1 --impurity gini --layout branches --input float --budget 2KiB --budget-unit flash --metric balanced-accuracy --kinds tree --emit c --cflags "-Os"
+ * Options: --target state --split 0.6,0.2,0.2 --seed 7 --max-depth 8 --min-leaf 1 --impurity gini --layout branches --input float --budget 2KiB --budget-unit flash --metric balanced-accuracy --kinds tree,forest,boosted --emit c --cflags "-Os"
  *
  * Missing values: NaN; for a categorical feature also any value that is not a
  * whole code in [0, k), such as -1.

@@ -35,7 +35,7 @@ package com.example.pump;
  * 302c442b55bf0b52f5b99f51e73f319577cef65c464046997b491b708c1c4b37.
  * <br>Options: --target state --split 0.6,0.2,0.2 --seed 7 --max-depth 8 --min-leaf 1 --impurity
  * gini --layout branches --input float --max-method-bytes 8000 --budget 2KiB --budget-unit class
- * --metric balanced-accuracy --kinds tree
+ * --metric balanced-accuracy --kinds tree,forest,boosted
  *
  * <p>Outputs are statistical: validate them on your own data. They do not replace the safety
  * analysis and standards that apply to your product.
