@@ -173,17 +173,49 @@ final class FlatWriter {
       type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
     }
     type.addMethod(walk());
+    if (flat.depth() > 0) {
+      type.addMethod(right());
+    }
   }
 
   /**
-   * {@code leaf(x)}: D steps, each adding the comparison's outcome (0 left, 1 right) to the
-   * index. The only conditional branch is the loop's own test of the step count, which goes the
-   * same way for every input.
+   * {@code leaf(x)}: two levels a step. The step decides slot i and, at the same time, both of its
+   * children, then picks the grandchild: the three decisions do not wait for each other, so the
+   * chain of dependent loads is half as long as one level a step. The only conditional branch is
+   * the loop's own test of the step count, which goes the same way for every input.
    */
   private MethodSpec walk() {
+    int d = flat.depth();
+    CodeBlock.Builder code = CodeBlock.builder().addStatement("int i = 0");
+    if (d >= 2) {
+      code.beginControlFlow("for (int step = 0; step < $L; step++)", d / 2)
+          .addStatement("int r = right(x, i)")
+          .addStatement("int b = right(x, 2 * i + 1)")
+          .addStatement("int c = right(x, 2 * i + 2)")
+          .add("// Grandchild 4i + 3 + 2r + s; s decides child 2i + 1 + r: c if r, else b.\n")
+          .addStatement("i = 4 * i + 3 + 2 * r + (b ^ ((b ^ c) & -r))")
+          .endControlFlow();
+    }
+    if (d % 2 == 1) {
+      code.addStatement("i = 2 * i + 1 + right(x, i)");
+    }
+    code.addStatement("return LEAF[i - $L]", (1 << d) - 1);
+    MethodSpec.Builder leaf = MethodSpec.methodBuilder("leaf")
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc("Walks the complete tree from the root to a leaf slot, two levels a step.\n\n"
+            + "@param x the feature values in input order\n"
+            + "@return what the leaf holds: its class, or its number with class probabilities\n")
+        .addParameter(ArrayTypeName.of(input.elementType()), "x");
+    return leaf.addCode(code.build()).build();
+  }
+
+  /**
+   * {@code right(x, i)}: 1 when x goes right at split slot i, else 0, by arithmetic alone: no
+   * conditional branch at all.
+   */
+  private MethodSpec right() {
     CodeBlock.Builder code = CodeBlock.builder()
-        .addStatement("int i = 0")
-        .beginControlFlow("for (int level = 0; level < $L; level++)", flat.depth())
         .addStatement("int node = NODE[i]");
     switch (input.kind()) {
       case FLOAT -> code
@@ -228,16 +260,16 @@ final class FlatWriter {
           .addStatement("right = (right & ~cat) | ((SETS[SET_AT[i] + (code >>> 5)] >>> code) & cat"
               + " & 1)");
     }
-    code.addStatement("i = 2 * i + 1 + right")
-        .endControlFlow()
-        .addStatement("return LEAF[i - $L]", (1 << flat.depth()) - 1);
-    return MethodSpec.methodBuilder("leaf")
+    code.addStatement("return right");
+    return MethodSpec.methodBuilder("right")
         .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
         .returns(TypeName.INT)
-        .addJavadoc("Walks the complete tree from the root to a leaf slot, one level a step.\n\n"
+        .addJavadoc("Decides split slot {@code i} without a conditional branch.\n\n"
             + "@param x the feature values in input order\n"
-            + "@return what the leaf holds: its class, or its number with class probabilities\n")
+            + "@param i the split slot\n"
+            + "@return 1 when x goes right, 0 when it goes left\n")
         .addParameter(ArrayTypeName.of(input.elementType()), "x")
+        .addParameter(TypeName.INT, "i")
         .addCode(code.build())
         .build();
   }

@@ -77,7 +77,7 @@ class FlatLayoutTest {
   }
 
   @Test
-  void walkBranchesOnlyOnItsStepCount() throws Exception {
+  void walkBranchesOnlyOnItsStepCountAndDecisionsNever() throws Exception {
     // Pima has missing cells, house votes categorical codes: both extra paths of the walk.
     for (String[] set : new String[][] {{"pima-indians-diabetes-2.csv", "diabetes"},
         {"house-votes-84.csv", "Class"}}) {
@@ -90,16 +90,20 @@ class FlatLayoutTest {
         EmittedSource source = JavaEmitter.emit(tree, options, HeaderInfo.none());
         byte[] bytes = VERIFIER.compiler().compileOne(source.qualifiedName(), source.source())
             .bytes(source.qualifiedName());
+        // The decision at a slot is arithmetic alone: no conditional branch (JVMS §6.5 if<cond>,
+        // if_icmp<cond>, ifnull), no switch (MethodOpcodes refuses those).
+        assertThat(MethodOpcodes.of(bytes, "right"))
+            .as(kind.optionName()).noneMatch(MethodOpcodes.Instruction::conditionalBranch);
         List<MethodOpcodes.Instruction> code = MethodOpcodes.of(bytes, "leaf");
         List<MethodOpcodes.Instruction> tests =
             code.stream().filter(MethodOpcodes.Instruction::conditionalBranch).toList();
         List<MethodOpcodes.Instruction> gotos =
             code.stream().filter(MethodOpcodes.Instruction::isGoto).toList();
         // One conditional branch, the loop's exit, and one goto, the back edge to it (javac's
-        // shape of a for loop); so no comparison outcome is a branch (JVMS §6.5 if<cond>).
+        // shape of a for loop), so the walk branches on nothing but its step count.
         assertThat(tests).as(kind.optionName()).hasSize(1);
         assertThat(gotos).hasSize(1);
-        // The back edge lands on the loads of the loop test: level and the step count.
+        // The back edge lands on the loads of the loop test: the step and the step count.
         assertThat(gotos.get(0).target()).isBetween(tests.get(0).offset() - 4,
             tests.get(0).offset() - 2);
         int afterGoto = code.get(code.indexOf(gotos.get(0)) + 1).offset();
