@@ -16,14 +16,16 @@ import java.util.List;
 import java.util.Locale;
 
 /**
- * The two trees the prediction benchmark measures: what each is trained on, at which depth, and the
+ * The trees the prediction benchmark measures: what each is trained on, at which depth, and the
  * fresh readings (never seen in training) it is asked about.
  */
 enum BenchModel {
   /** The pump demo: the committed 3,000-row CSV, depth 6. */
   PUMP("pump", 6),
   /** A deep tree: 200,000 x 16 synthetic rows, depth 14 (thousands of leaves). */
-  SYNTHETIC("synthetic", 14);
+  SYNTHETIC("synthetic", 14),
+  /** The same synthetic rows at depth 10: a mid-sized tree between the other two. */
+  SYNTHETIC_10("synthetic10", 10);
 
   /** Distinct input rows per benchmark: 16 times the cycle a branch predictor can learn. */
   static final int INPUT_ROWS = 65_536;
@@ -78,7 +80,7 @@ enum BenchModel {
   Dataset trainingSet() {
     return switch (this) {
       case PUMP -> loadPumpCsv();
-      case SYNTHETIC -> syntheticTrainingSet();
+      case SYNTHETIC, SYNTHETIC_10 -> syntheticTrainingSet();
     };
   }
 
@@ -93,7 +95,7 @@ enum BenchModel {
   LabelledRows freshReadings(Dataset training) {
     return switch (this) {
       case PUMP -> pumpReadings(training);
-      case SYNTHETIC -> {
+      case SYNTHETIC, SYNTHETIC_10 -> {
         Dataset d = SyntheticTable.generate(INPUT_ROWS, SYNTHETIC_FEATURES,
             SYNTHETIC_READINGS_SEED);
         float[][] rows = new float[d.rows()][];

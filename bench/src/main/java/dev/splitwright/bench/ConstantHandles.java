@@ -20,6 +20,7 @@ final class ConstantHandles {
   enum Slot {
     BRANCHES,
     TABLE,
+    FLAT,
     TRIVIAL
   }
 
@@ -44,6 +45,7 @@ final class ConstantHandles {
     MethodHandle held = switch (slot) {
       case BRANCHES -> Branches.CLASSIFY;
       case TABLE -> Table.CLASSIFY;
+      case FLAT -> Flat.CLASSIFY;
       case TRIVIAL -> Trivial.CLASSIFY;
     };
     if (held != expected) {
@@ -62,6 +64,12 @@ final class ConstantHandles {
     static final MethodHandle CLASSIFY = take(Slot.TABLE);
 
     private Table() {}
+  }
+
+  static final class Flat {
+    static final MethodHandle CLASSIFY = take(Slot.FLAT);
+
+    private Flat() {}
   }
 
   static final class Trivial {

@@ -24,7 +24,7 @@ import weka.core.Instances;
 
 /**
  * Cost of one prediction, in nanoseconds, for one trained tree in each form a user could ship: the
- * generated class in both layouts, our in-memory model, and Weka's J48 and REPTree trained on the
+ * generated class in each layout, our in-memory model, and Weka's J48 and REPTree trained on the
  * same rows. Each call takes the next of {@link BenchModel#INPUT_ROWS} fresh input rows, so the
  * branch predictor cannot memorise them; the result goes to JMH's blackhole as the return value.
  *
@@ -51,7 +51,7 @@ import weka.core.Instances;
 public class PredictionBenchmark {
   private static final int MASK = BenchModel.INPUT_ROWS - 1;
 
-  @Param({"pump", "synthetic"})
+  @Param({"pump", "synthetic", "synthetic10"})
   public String model;
 
   @Param({"shuffled", "timeOrdered"})
@@ -86,6 +86,8 @@ public class PredictionBenchmark {
           ConstantHandles.Slot.BRANCHES);
       case "generatedTable" -> loadGenerated(training, bench, Layout.TABLE,
           ConstantHandles.Slot.TABLE);
+      case "generatedFlat" -> loadGenerated(training, bench, Layout.FLAT,
+          ConstantHandles.Slot.FLAT);
       case "wekaJ48" -> loadWeka(training, bench, WekaLearner.J48);
       case "wekaRepTree" -> loadWeka(training, bench, WekaLearner.REP_TREE);
       default -> throw new IllegalStateException("no setup for benchmark method " + method);
@@ -153,6 +155,13 @@ public class PredictionBenchmark {
   @Warmup(iterations = 6, time = 1)
   public int generatedTable() throws Throwable {
     return (int) ConstantHandles.Table.CLASSIFY.invokeExact(nextRow());
+  }
+
+  /** The {@code flat} layout: no branch on a comparison, so shuffled inputs cost no misses. */
+  @Benchmark
+  @Warmup(iterations = 6, time = 1)
+  public int generatedFlat() throws Throwable {
+    return (int) ConstantHandles.Flat.CLASSIFY.invokeExact(nextRow());
   }
 
   /** Our in-memory model walking its node objects: what the generated class is verified against. */

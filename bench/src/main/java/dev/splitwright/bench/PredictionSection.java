@@ -12,6 +12,7 @@ final class PredictionSection {
     {"handleBaseline", "baseline: one-line hand-written class via the same handle"},
     {"generatedBranches", "generated class, `branches` layout"},
     {"generatedTable", "generated class, `table` layout"},
+    {"generatedFlat", "generated class, `flat` layout"},
     {"inMemoryModel", "Splitwright in-memory model (`DecisionTree.predict`)"},
     {"wekaJ48", "Weka J48 `classifyInstance` (defaults, no depth limit)"},
     {"wekaRepTree", "Weka REPTree `classifyInstance` (`-L` = depth)"},
@@ -53,7 +54,9 @@ final class PredictionSection {
         + " \"timeOrdered\" sweeps between consecutive readings in ")
         .append(InputOrder.STEPS_PER_READING).append(" steps. Depth: pump ")
         .append(BenchModel.PUMP.depth()).append(", synthetic ").append(BenchModel.SYNTHETIC.depth())
-        .append(". — = not measured (for `table`: the emitter of this build lacks that layout).")
+        .append(", synthetic10 ").append(BenchModel.SYNTHETIC_10.depth())
+        .append(". — = not measured (for `table` or `flat`: the emitter of this build lacks that"
+            + " layout).")
         .append("\n\n");
 
     md.append("### Ratios (other form's time / generated `branches` time; higher = generated"
@@ -63,8 +66,13 @@ final class PredictionSection {
     ratioRow(md, "Weka REPTree / branches", "wekaRepTree");
     ratioRow(md, "in-memory model / branches", "inMemoryModel");
     ratioRow(md, "`table` / branches", "generatedTable");
+    ratioRow(md, "`flat` / branches", "generatedFlat");
     md.append("\n### Prediction targets\n\n");
-    md.append("| target | pump | synthetic |\n|---|---|---|\n");
+    md.append("| target");
+    for (BenchModel model : BenchModel.values()) {
+      md.append(" | ").append(model.paramName());
+    }
+    md.append(" |\n|---").append("|---".repeat(BenchModel.values().length)).append("|\n");
     target(md, "branches ≥ 10× faster than the faster Weka tree, time-ordered", "timeOrdered",
         "weka", 10, true);
     target(md, "branches ≥ 2× faster than the faster Weka tree, shuffled", "shuffled", "weka", 2,
@@ -72,6 +80,12 @@ final class PredictionSection {
     target(md, "branches ≥ 1.5× faster than the in-memory model, shuffled", "shuffled",
         "inMemoryModel", 1.5, true);
     target(md, "`table` ≤ 2× the branches time, shuffled", "shuffled", "generatedTable", 2, false);
+    target(md, "`flat` ≤ 0.6× the branches time, shuffled (the depth-14 target)", "shuffled",
+        "generatedFlat", 0.6, false);
+    target(md, "`flat` ≤ 0.8× the branches time, shuffled (the pump target)", "shuffled",
+        "generatedFlat", 0.8, false);
+    target(md, "`flat` ≤ 1.5× the branches time, time-ordered", "timeOrdered", "generatedFlat",
+        1.5, false);
     return md.toString();
   }
 

@@ -41,6 +41,14 @@ class GeneratedClassifierTest {
   }
 
   @Test
+  void flatClassReturnsWhatTheModelReturnsOnEveryInput() throws Throwable {
+    MethodHandle classify = GeneratedClassifier.emitAndLoad(tree, Layout.FLAT);
+    for (float[] x : inputs.rows()) {
+      assertThat((int) classify.invokeExact(x)).isEqualTo(tree.predict(x));
+    }
+  }
+
+  @Test
   void tableClassReturnsWhatTheModelReturnsOnEveryInput() throws Throwable {
     MethodHandle classify = GeneratedClassifier.emitAndLoad(tree, Layout.TABLE);
     for (float[] x : inputs.rows()) {

@@ -1,6 +1,7 @@
 package dev.splitwright.cgen;
 
 import dev.splitwright.data.Schema;
+import dev.splitwright.emit.FlatTree;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
@@ -25,7 +26,10 @@ final class CSourceWriter {
         : api.classifySignature();
     CFloatKeys floatKeys = new CFloatKeys(prefix);
     Optional<CFloatKeys> keys = options.compareBits() ? Optional.of(floatKeys) : Optional.empty();
-    String treeCode = options.layout() == Layout.TABLE
+    String treeCode = options.layout() == Layout.FLAT
+        ? CFlat.function(FlatTree.of(tree, options.inputKind(), leaves::payload),
+            options.inputKind(), prefix, treeSignature)
+        : options.layout() == Layout.TABLE
         ? CTable.function(tree, options.inputKind(), sets, leaves, keys, prefix, treeSignature)
         : CBranches.function(tree, options.inputKind(), sets, leaves, keys, treeSignature);
 

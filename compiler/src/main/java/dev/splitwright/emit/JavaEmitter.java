@@ -24,6 +24,7 @@ public final class JavaEmitter {
     String source = switch (options.layout()) {
       case BRANCHES -> BranchesWriter.write(tree, options, header);
       case TABLE -> TableWriter.write(tree, options, header);
+      case FLAT -> FlatWriter.write(tree, options, header);
       case SMALLEST -> throw new IllegalArgumentException(
           "layout 'smallest' is chosen by measuring both layouts; emit each and compare");
     };

@@ -10,7 +10,12 @@ public enum Layout {
   BRANCHES("branches"),
   /** The tree packed into a constant and walked by a loop: fewer class-file bytes for big trees. */
   TABLE("table"),
-  /** Both emitted and compiled; the one with the smaller class file is kept. */
+  /**
+   * The tree padded to a complete tree and walked without branching on comparisons: steady
+   * speed on inputs that jump around. Chosen by name only, never by {@code smallest}.
+   */
+  FLAT("flat"),
+  /** Branches and table emitted and compiled; the one with the smaller class file is kept. */
   SMALLEST("smallest");
 
   private final String optionName;

@@ -26,7 +26,7 @@ public interface CandidateEmitter {
     List<Layout> layouts = new ArrayList<>();
     if (options.layout() == Layout.SMALLEST) {
       for (Layout layout : Layout.values()) {
-        if (layout != Layout.SMALLEST) {
+        if (layout != Layout.SMALLEST && layout != Layout.FLAT) {
           layouts.add(layout);
         }
       }

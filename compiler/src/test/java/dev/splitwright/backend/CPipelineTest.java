@@ -42,7 +42,14 @@ class CPipelineTest {
         // UCI Congressional Voting Records: categorical y/n with missing votes.
         Arguments.of("house-votes-84.csv", "Class", 6, Layout.BRANCHES, InputKind.FLOAT, true),
         // The same as int32 input: category codes are whole numbers, -1 is missing.
-        Arguments.of("house-votes-84.csv", "Class", 6, Layout.TABLE, InputKind.INT, false));
+        Arguments.of("house-votes-84.csv", "Class", 6, Layout.TABLE, InputKind.INT, false),
+        // The flat layout on the same data: numeric, missing cells, categorical, int32.
+        Arguments.of("breast-cancer-wisconsin-diagnostic.csv", "diagnosis", 6, Layout.FLAT,
+            InputKind.FLOAT, false),
+        Arguments.of("pima-indians-diabetes-2.csv", "diabetes", 10, Layout.FLAT,
+            InputKind.FLOAT, true),
+        Arguments.of("house-votes-84.csv", "Class", 6, Layout.FLAT, InputKind.FLOAT, true),
+        Arguments.of("house-votes-84.csv", "Class", 6, Layout.FLAT, InputKind.INT, false));
   }
 
   @ParameterizedTest

@@ -1,0 +1,276 @@
+package dev.splitwright.emit;
+
+import com.palantir.javapoet.ArrayTypeName;
+import com.palantir.javapoet.CodeBlock;
+import com.palantir.javapoet.FieldSpec;
+import com.palantir.javapoet.MethodSpec;
+import com.palantir.javapoet.TypeName;
+import com.palantir.javapoet.TypeSpec;
+import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Leaf;
+import dev.splitwright.model.NumericSplit;
+import javax.lang.model.element.Modifier;
+
+/**
+ * Emits the {@code flat} layout ({@link FlatTree}): the tree padded to a complete tree, walked in
+ * exactly depth steps that add the comparison's outcome to the index instead of branching on it,
+ * so inputs that jump around cost no mispredicted branches. The real nodes are packed in pre-order
+ * ({@link PackedInts}) and spread over the complete-tree arrays once, at class initialisation.
+ */
+final class FlatWriter {
+  private final FlatTree flat;
+  private final InputAccess input;
+  private final TypeSpec.Builder type;
+  private final SupportMethods support;
+  private final LeafTable leaves;
+
+  private FlatWriter(FlatTree flat, InputAccess input, TypeSpec.Builder type,
+      SupportMethods support, LeafTable leaves) {
+    this.flat = flat;
+    this.input = input;
+    this.type = type;
+    this.support = support;
+    this.leaves = leaves;
+  }
+
+  static String write(DecisionTree tree, EmitOptions options, HeaderInfo header) {
+    InputAccess input = InputAccess.of(tree.schema(), options);
+    LeafTable leaves = new LeafTable(options.probabilities());
+    FlatTree flat = FlatTree.of(tree, input.kind(), leaves::payload);
+    SupportMethods support = new SupportMethods(input.kind());
+    TypeSpec.Builder type = ClassScaffold.start(tree, options, header, support);
+    FlatWriter writer = new FlatWriter(flat, input, type, support, leaves);
+    writer.addTables();
+    writer.addMethods(tree);
+    support.addTo(type);
+    return ClassScaffold.finish(type.build(), options, header);
+  }
+
+  private TypeName keyType() {
+    return input.kind() == InputKind.DOUBLE ? TypeName.LONG : TypeName.INT;
+  }
+
+  private void addTables() {
+    PackedInts data = new PackedInts();
+    PackedInts sets = new PackedInts();
+    for (FlatTree.Slot slot : flat.preOrder()) {
+      if (slot.node() instanceof Leaf leaf) {
+        data.add(leaves.payload(leaf) << 1 | 1);
+        continue;
+      }
+      int i = slot.index();
+      data.add(flat.node(i) << 1);
+      if (slot.node() instanceof NumericSplit) {
+        long key = flat.key(i);
+        if (input.kind() == InputKind.DOUBLE) {
+          data.add((int) (key >>> 32)).add((int) key);
+        } else {
+          data.add((int) key);
+        }
+      } else {
+        data.add(sets.count());
+        sets.add((int) flat.key(i));
+        for (int word : flat.rightCodes(i)) {
+          sets.add(word);
+        }
+      }
+    }
+    int d = flat.depth();
+    type.addField(array("NODE", TypeName.INT, flat.splitSlots(),
+        "Per split slot of the complete tree: the feature shifted left by "
+            + FlatTree.FEATURE_SHIFT + ", | " + FlatTree.CATEGORICAL + " if categorical, | "
+            + FlatTree.NAN_RIGHT + " if a\nmissing value goes right. The children of slot i "
+            + "are 2i + 1 and 2i + 2."));
+    type.addField(array("KEY", keyType(), flat.splitSlots(),
+        input.kind() == InputKind.INT
+            ? "Per split slot: go right when the value is above this."
+            : "Per split slot: go right when the value's order key is above this."));
+    type.addField(array("LEAF", TypeName.INT, 1 << d,
+        "Per leaf slot (complete-tree slot " + ((1 << d) - 1) + " + j): the result."));
+    if (flat.hasCategorical()) {
+      type.addField(array("SET_AT", TypeName.INT, flat.splitSlots(),
+          "Per categorical slot: where its right-going code bits start in SETS."));
+      type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
+              Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+          .addJavadoc("Per categorical split: k, then words with bit c set when code c goes"
+              + " right;\nbit k for a missing or unknown code.\n")
+          .initializer(StringTable.unpack(sets))
+          .build());
+    }
+    support.need(SupportMethods.Kind.UNPACK);
+    CodeBlock leafInit = leaves.addFields(type, support);
+    type.addStaticBlock(CodeBlock.builder().add(decoder(data)).add(leafInit).build());
+  }
+
+  /** Spreads the pre-order nodes over the complete tree; a leaf fills the leaf slots below it. */
+  private CodeBlock decoder(PackedInts data) {
+    int d = flat.depth();
+    CodeBlock.Builder code = CodeBlock.builder()
+        .add("// Per node in pre-order: a leaf is (result << 1) | 1; a split is NODE << 1, then"
+            + "\n// its key$L.\n", input.kind() == InputKind.DOUBLE ? " (high word, low word)" : "")
+        .add(flat.hasCategorical() ? "// A categorical split has its offset in SETS instead.\n"
+            : "")
+        .addStatement("int[] tree = $L", StringTable.unpack(data))
+        .addStatement("int[] open = new int[$L]", d + 1)
+        .addStatement("int top = 0")
+        .addStatement("int slot = 0")
+        .addStatement("int at = 0")
+        .beginControlFlow("for (int n = 0; n < $L; n++)", flat.preOrder().size())
+        .addStatement("int head = tree[at++]")
+        .beginControlFlow("if ((head & 1) != 0)")
+        .addStatement("int span = $L + Integer.numberOfLeadingZeros(slot + 1)", d - 31)
+        .addStatement("int first = ((slot + 1) << span) - $L", 1 << d)
+        .beginControlFlow("for (int j = first; j < first + (1 << span); j++)")
+        .addStatement("LEAF[j] = head >>> 1")
+        .endControlFlow()
+        .beginControlFlow("if (top > 0)")
+        .addStatement("slot = open[--top]")
+        .endControlFlow()
+        .addStatement("continue")
+        .endControlFlow()
+        .addStatement("NODE[slot] = head >>> 1");
+    String key = switch (input.kind()) {
+      case DOUBLE -> "(long) tree[at++] << 32 | (tree[at++] & 0xffffffffL)";
+      case FLOAT, INT -> "tree[at++]";
+    };
+    if (flat.hasCategorical()) {
+      code.beginControlFlow("if ((head & $L) != 0)", FlatTree.CATEGORICAL << 1)
+          .addStatement("int set = tree[at++]")
+          .addStatement("KEY[slot] = SETS[set]")
+          .addStatement("SET_AT[slot] = set + 1")
+          .nextControlFlow("else")
+          .addStatement("KEY[slot] = $L", key)
+          .endControlFlow();
+    } else {
+      code.addStatement("KEY[slot] = $L", key);
+    }
+    return code.addStatement("open[top++] = 2 * slot + 2")
+        .addStatement("slot = 2 * slot + 1")
+        .endControlFlow()
+        .build();
+  }
+
+  private static FieldSpec array(String name, TypeName element, int length, String doc) {
+    return FieldSpec.builder(ArrayTypeName.of(element), name,
+            Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+        .addJavadoc("$L\n", doc)
+        .initializer("new $T[$L]", element, length)
+        .build();
+  }
+
+  private void addMethods(DecisionTree tree) {
+    CodeBlock leafCall = CodeBlock.of("leaf($L)", input.asArray());
+    MethodSpec.Builder classify = MethodSpec.methodBuilder("classify")
+        .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc(EntryDoc.classify(tree.schema(), input));
+    input.addParameters(classify);
+    if (input.checksLength()) {
+      EntryDoc.addLengthCheck(classify, tree.schema());
+    }
+    type.addMethod(classify.addStatement("return $L", leaves.classOf(leafCall)).build());
+    if (leaves.probabilities()) {
+      type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
+    }
+    type.addMethod(walk());
+    if (flat.depth() > 0) {
+      type.addMethod(right());
+    }
+  }
+
+  /**
+   * {@code leaf(x)}: two levels a step. The step decides slot i and, at the same time, both of its
+   * children, then picks the grandchild: the three decisions do not wait for each other, so the
+   * chain of dependent loads is half as long as one level a step. The only conditional branch is
+   * the loop's own test of the step count, which goes the same way for every input.
+   */
+  private MethodSpec walk() {
+    int d = flat.depth();
+    CodeBlock.Builder code = CodeBlock.builder().addStatement("int i = 0");
+    if (d >= 2) {
+      code.beginControlFlow("for (int step = 0; step < $L; step++)", d / 2)
+          .addStatement("int r = right(x, i)")
+          .addStatement("int b = right(x, 2 * i + 1)")
+          .addStatement("int c = right(x, 2 * i + 2)")
+          .add("// Grandchild 4i + 3 + 2r + s; s decides child 2i + 1 + r: c if r, else b.\n")
+          .addStatement("i = 4 * i + 3 + 2 * r + (b ^ ((b ^ c) & -r))")
+          .endControlFlow();
+    }
+    if (d % 2 == 1) {
+      code.addStatement("i = 2 * i + 1 + right(x, i)");
+    }
+    code.addStatement("return LEAF[i - $L]", (1 << d) - 1);
+    MethodSpec.Builder leaf = MethodSpec.methodBuilder("leaf")
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc("Walks the complete tree from the root to a leaf slot, two levels a step.\n\n"
+            + "@param x the feature values in input order\n"
+            + "@return what the leaf holds: its class, or its number with class probabilities\n")
+        .addParameter(ArrayTypeName.of(input.elementType()), "x");
+    return leaf.addCode(code.build()).build();
+  }
+
+  /**
+   * {@code right(x, i)}: 1 when x goes right at split slot i, else 0, by arithmetic alone: no
+   * conditional branch at all.
+   */
+  private MethodSpec right() {
+    CodeBlock.Builder code = CodeBlock.builder()
+        .addStatement("int node = NODE[i]");
+    switch (input.kind()) {
+      case FLOAT -> code
+          .addStatement("float v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
+          .add("// Order key: IEEE 754 bits with a negative value's magnitude bits flipped.\n")
+          .addStatement("int bits = Float.floatToRawIntBits(v)")
+          .add("// All ones exactly for NaN: its magnitude bits exceed those of infinity.\n")
+          .addStatement("int nan = (0x7f800000 - (bits & 0x7fffffff)) >> 31")
+          .addStatement("int right = (int) (((long) KEY[i] - (bits ^ ((bits >> 31) & 0x7fffffff)))"
+              + " >>> 63)")
+          .addStatement("right = (right & ~nan) | (node & nan & $L)", FlatTree.NAN_RIGHT);
+      case DOUBLE -> code
+          .addStatement("double v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
+          .addStatement("long bits = Double.doubleToRawLongBits(v)")
+          .addStatement("int nan = (int) ((0x7ff0000000000000L - (bits & Long.MAX_VALUE)) >> 63)")
+          .addStatement("long key = bits ^ ((bits >> 63) & Long.MAX_VALUE)")
+          .addStatement("long t = KEY[i]")
+          .add("// t < key without overflow: Hacker's Delight, 2nd ed., section 2-12.\n")
+          .addStatement("int right = (int) (((t - key) ^ ((t ^ key) & ((t - key) ^ t))) >>> 63)")
+          .addStatement("right = (right & ~nan) | (node & nan & $L)", FlatTree.NAN_RIGHT);
+      case INT -> code
+          .addStatement("int v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
+          .addStatement("int right = (int) (((long) KEY[i] - v) >>> 63)");
+    }
+    if (flat.hasCategorical()) {
+      code.add("// A categorical slot reads its code's bit; a code that is not a whole number in\n"
+          + "// [0, k) reads bit k, the missing side. A numeric slot masks k to 0.\n")
+          .addStatement("int cat = -((node >>> 1) & 1)")
+          .addStatement("int k = $LKEY[i] & cat", input.kind() == InputKind.DOUBLE ? "(int) " : "");
+      if (input.kind() == InputKind.INT) {
+        code.addStatement("int c = v")
+            .addStatement("int bad = (c | (k - 1 - c)) >> 31");
+      } else {
+        String f = input.kind() == InputKind.DOUBLE ? "(float) v" : "v";
+        code.addStatement("int c = (int) $L", f)
+            .add("// Adding 0f turns -0.0 into 0.0 (IEEE 754-2019 6.3), code 0 as in the model.\n")
+            .addStatement("int d = Float.floatToRawIntBits(c) ^ Float.floatToRawIntBits($L + 0f)",
+                f)
+            .addStatement("int bad = (d | -d | c | (k - 1 - c)) >> 31");
+      }
+      code.addStatement("int code = (c & ~bad) | (k & bad)")
+          .addStatement("right = (right & ~cat) | ((SETS[SET_AT[i] + (code >>> 5)] >>> code) & cat"
+              + " & 1)");
+    }
+    code.addStatement("return right");
+    return MethodSpec.methodBuilder("right")
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc("Decides split slot {@code i} without a conditional branch.\n\n"
+            + "@param x the feature values in input order\n"
+            + "@param i the split slot\n"
+            + "@return 1 when x goes right, 0 when it goes left\n")
+        .addParameter(ArrayTypeName.of(input.elementType()), "x")
+        .addParameter(TypeName.INT, "i")
+        .addCode(code.build())
+        .build();
+  }
+}
