@@ -15,6 +15,7 @@ import dev.splitwright.check.ObjectFiles;
 import dev.splitwright.check.ProcessTimeoutException;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
+import dev.splitwright.emit.EmitLimitException;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
@@ -164,7 +165,11 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
     List<CEmitOptions> variants = variants();
     List<CSource> sources = new ArrayList<>();
     for (CEmitOptions v : variants) {
-      sources.add(CEmitter.emit(tree, v, header));
+      try {
+        sources.add(CEmitter.emit(tree, v, header));
+      } catch (EmitLimitException e) {
+        throw new InputException(e.option(), e.problem(), e.remedy());
+      }
     }
     List<ElfFile> objects = compile(sources);
     Map<Layout, Long> flash = new LinkedHashMap<>();

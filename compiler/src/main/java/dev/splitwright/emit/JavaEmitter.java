@@ -50,6 +50,8 @@ public final class JavaEmitter {
     String source = switch (options.layout()) {
       case BRANCHES -> BranchesWriter.write(ensemble, options, header);
       case TABLE -> TableWriter.write(ensemble, options, header);
+      case FLAT -> throw new EmitLimitException("layout", "the flat layout holds single trees so "
+          + "far", "use --layout branches or table for an ensemble");
       case SMALLEST -> throw new IllegalArgumentException(
           "layout 'smallest' is chosen by measuring both layouts; emit each and compare");
     };
