@@ -59,6 +59,34 @@ class FrontierSvgTest {
   }
 
   @Test
+  void eachKindHasItsMarkerAndTheLegendNamesTheKindsDrawn() throws Exception {
+    FrontierSvg.Chart chart = new FrontierSvg.Chart("gesture", "validation vs size",
+        "class file size (bytes)", "validation balanced accuracy", 8192,
+        List.of(new FrontierSvg.Dot(1000, 0.8), new FrontierSvg.Dot(3000, 0.85, "forest"),
+            new FrontierSvg.Dot(4000, 0.9, "boosted")),
+        List.of(new FrontierSvg.Dot(1000, 0.8), new FrontierSvg.Dot(4000, 0.9, "boosted")),
+        new FrontierSvg.Dot(4000, 0.9, "boosted"), 40, 8);
+    Document svg = parse(FrontierSvg.render(chart));
+
+    // Circles: the tree candidate and frontier point, the chosen ring, 3 legend circles and the
+    // legend's tree marker. Triangles (paths closed with Z): the forest candidate and its legend
+    // marker. Squares: the boosted candidate, frontier point and legend marker, beside the legend's
+    // over-budget swatch.
+    assertThat(svg.getElementsByTagName("circle").getLength()).isEqualTo(2 + 1 + 3 + 1);
+    NodeList paths = svg.getElementsByTagName("path");
+    int triangles = 0;
+    for (int i = 0; i < paths.getLength(); i++) {
+      triangles += ((Element) paths.item(i)).getAttribute("d").endsWith("Z") ? 1 : 0;
+    }
+    assertThat(triangles).isEqualTo(2);
+    assertThat(svg.getElementsByTagName("rect").getLength()).isEqualTo(3 + 1 + 2);
+    assertThat(texts(svg)).contains("tree", "forest", "boosted",
+        "chosen: 4000 B, 0.9000, boosted of 8 trees, 40 leaves");
+    // A chart of one kind has no kind legend, as before.
+    assertThat(texts(parse(FrontierSvg.render(CHART)))).doesNotContain("tree", "forest");
+  }
+
+  @Test
   void axesCoverEveryCandidateAndTheBudgetAndAreZoomedToThem() throws Exception {
     // Scores between 0.90 and 0.97 and sizes between 5000 and 6400: far from zero on both axes.
     FrontierSvg.Chart chart = new FrontierSvg.Chart("far.csv", "s", "size", "score", 4800,
