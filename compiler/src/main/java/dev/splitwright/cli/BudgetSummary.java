@@ -38,8 +38,8 @@ final class BudgetSummary {
     frontier(selection).forEach(out::println);
     if (stats != null) {
       String d8 = stats.d8Runs() == 0 ? "" : " and " + stats.d8Runs() + " D8 runs";
-      out.printf(Locale.ROOT, "search: %d settings, %d distinct candidates measured in %d %s runs%s, "
-          + "frontier of %d; %.1f s%n", stats.settingsTried(), stats.distinctTrees(),
+      out.printf(Locale.ROOT, "search: %d settings, %d distinct candidates measured in %d %s "
+          + "runs%s, frontier of %d; %.1f s%n", stats.settingsTried(), stats.distinctTrees(),
           stats.compilerRuns(), stats.compiler(), d8, selection.frontier().size(), stats.seconds());
     }
   }
