@@ -9,9 +9,9 @@ import dev.splitwright.data.SourcePosition;
 import dev.splitwright.eval.Evaluator;
 import dev.splitwright.eval.Floor;
 import dev.splitwright.eval.Scores;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.persist.ModelFile;
-import dev.splitwright.persist.SavedModel;
+import dev.splitwright.persist.SavedClassifier;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.report.FieldCheckReport;
 import dev.splitwright.report.ReportJson;
@@ -56,7 +56,7 @@ public final class FieldCheck {
   }
 
   /** What the check found; {@code written} holds the report's path once it was written. */
-  public record Result(DecisionTree tree, FieldLog log, Scores scores, FieldCheckReport report,
+  public record Result(Classifier tree, FieldLog log, Scores scores, FieldCheckReport report,
       List<Path> written) {
     public Result {
       Objects.requireNonNull(tree, "tree");
@@ -83,8 +83,9 @@ public final class FieldCheck {
     if (request.report().isPresent()) {
       OutputTargets.checkFile(OPTION_REPORT, request.report().get());
     }
-    SavedModel model = ModelFile.load(request.model());
-    DecisionTree tree = model.tree();
+    // Any model file: a single tree or an ensemble is scored the same way.
+    SavedClassifier model = ModelFile.loadAny(request.model());
+    Classifier tree = model.classifier();
     String modelSha = sha256(request.model());
     FieldLog log = CsvLoader.loadFieldLog(request.data(), tree.schema(), request.load());
     LoadedData loaded = log.loaded();

@@ -208,6 +208,29 @@ class CheckCommandTest {
   }
 
   @Test
+  void anEnsembleModelIsCheckedWithTheCompileCommandsTestFigures() throws Exception {
+    Path field = temp.resolve("field.csv");
+    assertThat(CliRun.of("demo", "--scenario", "pump-vibration", "--rows", "600", "--seed", "98",
+        "--out", field.toString()).exitCode()).isZero();
+    Path model = temp.resolve("forest.model.json");
+    Path out = temp.resolve("out");
+    CliRun compile = CliRun.of("compile", "--data", CompileCommandTest.PUMP.toString(),
+        "--target", "state", "--test-data", field.toString(), "--forest", "8", "--max-depth",
+        "4", "--class", "Pump", "--out", out.toString(), "--save-model", model.toString(),
+        "--quiet");
+    assertThat(compile.exitCode()).as(compile.err()).isZero();
+    Path report = temp.resolve("check.json");
+    CliRun check = CliRun.of("check", "--model", model.toString(), "--data", field.toString(),
+        "--report", report.toString());
+    assertThat(check.exitCode()).as(check.err()).isZero();
+
+    // The forest scored the same rows as the compile command's test part: equal figures.
+    assertThat(JSON.readTree(report.toFile()).get("scores"))
+        .isEqualTo(JSON.readTree(out.resolve("Pump.report.json").toFile()).get("scores")
+            .get("test"));
+  }
+
+  @Test
   void theShippedPumpModelIsCheckedOnAFreshDemoLogWithAGate() throws IOException {
     // As a CI job would: compile with --save-model, log fresh field data, check it with a floor.
     Path model = temp.resolve("pump.model.json");
