@@ -6,6 +6,7 @@ import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.TreeEnsemble;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 
@@ -70,13 +71,26 @@ final class CSourceWriter {
     CFloatKeys floatKeys = new CFloatKeys(prefix);
     Optional<CFloatKeys> keys = options.compareBits() ? Optional.of(floatKeys) : Optional.empty();
     StringBuilder trees = new StringBuilder();
-    for (int t = 0; t < ensemble.treeCount(); t++) {
-      DecisionTree tree = ensemble.trees().get(t);
-      String name = prefix + "_tree" + t;
-      String signature = "static int " + name + "(" + api.inputParameter() + ")";
-      trees.append(options.layout() == Layout.TABLE
-          ? CTable.function(tree, options.inputKind(), sets, leaves, keys, name, signature)
-          : CBranches.function(tree, options.inputKind(), sets, leaves, keys, signature));
+    // With the table layout every tree lives in one packed table walked by one function, called
+    // with the index each tree starts at; otherwise each tree is a function of its own.
+    List<String> calls = new ArrayList<>();
+    if (options.layout() == Layout.TABLE) {
+      List<Long> roots = new ArrayList<>();
+      String walk = prefix + "_walk";
+      trees.append(CTable.packed(ensemble.trees(), options.inputKind(), sets, leaves, keys,
+          prefix, "static int " + walk + "(" + api.inputParameter() + ", uint32_t i)", roots));
+      for (long root : roots) {
+        calls.add(walk + "(x, " + root + "u)");
+      }
+    } else {
+      for (int t = 0; t < ensemble.treeCount(); t++) {
+        DecisionTree tree = ensemble.trees().get(t);
+        String name = prefix + "_tree" + t;
+        String signature = "static int " + name + "(" + api.inputParameter() + ")";
+        trees.append(CBranches.function(tree, options.inputKind(), sets, leaves, keys,
+            signature));
+        calls.add(name + "(x)");
+      }
     }
     StringBuilder out = new StringBuilder();
     preamble(out, header, api);
@@ -98,7 +112,7 @@ final class CSourceWriter {
         .append("        score[c] = 0.0f;\n    }\n");
     for (int t = 0; t < ensemble.treeCount(); t++) {
       float w = ensemble.weight(t);
-      out.append("    score[").append(prefix).append("_tree").append(t).append("(x)] += ")
+      out.append("    score[").append(calls.get(t)).append("] += ")
           .append(CText.hexFloat(w)).append("; /* ").append(CText.decimal(w)).append(" */\n");
     }
     out.append("}\n\n")

@@ -57,6 +57,22 @@ final class CTable {
     this.keys = keys;
   }
 
+  /**
+   * All trees of an ensemble packed into one table: the words of tree 0, then tree 1, ..., with
+   * shared thresholds, and one walk function with {@code walkSignature}, whose second parameter
+   * {@code uint32_t i} is the index a tree starts at. Returns the code and, through {@code roots},
+   * each tree's start index.
+   */
+  static String packed(List<DecisionTree> trees, InputKind kind, CSets sets, CLeaves leaves,
+      Optional<CFloatKeys> keys, String prefix, String walkSignature, List<Long> roots) {
+    CTable table = new CTable(trees.get(0), kind, sets, leaves, keys);
+    for (DecisionTree tree : trees) {
+      roots.add((long) table.words.size());
+      table.encode(tree.root());
+    }
+    return table.write(prefix, walkSignature, null);
+  }
+
   /** The tables and a function with {@code signature} that returns the leaf payload of x. */
   static String function(DecisionTree tree, InputKind kind, CSets sets, CLeaves leaves,
       String prefix, String signature) {
@@ -71,7 +87,7 @@ final class CTable {
       Optional<CFloatKeys> keys, String prefix, String signature) {
     CTable table = new CTable(tree, kind, sets, leaves, keys);
     table.encode(tree.root());
-    return table.write(prefix, signature);
+    return table.write(prefix, signature, "0");
   }
 
   // Recursion in Java only; the tree depth is bounded far below the JVM stack.
@@ -121,7 +137,11 @@ final class CTable {
     });
   }
 
-  private String write(String prefix, String signature) {
+  /**
+   * The arrays and the walk; {@code start} is the first index, or null when the function takes it
+   * as its parameter {@code i} (a packed ensemble).
+   */
+  private String write(String prefix, String signature, String start) {
     StringBuilder out = new StringBuilder();
     String treeName = prefix + "_tree";
     String thresholdName = prefix + "_thresholds";
@@ -136,13 +156,17 @@ final class CTable {
           : "float", thresholdName, thresholds, kind == InputKind.INT ? 8 : 3);
     }
     out.append(signature).append("\n{\n");
-    boolean splits = words.size() > 1;
+    boolean splits = words.stream().anyMatch(w -> (w & LEAF) == 0);
     if (!splits) {
-      out.append("    (void)x;\n    return (int)(").append(treeName).append("[0] >> 1);\n}\n\n");
+      out.append("    (void)x;\n    return (int)(").append(treeName).append("[")
+          .append(start == null ? "i" : start).append("] >> 1);\n}\n\n");
       return out.toString();
     }
     String element = kind == InputKind.INT ? "int32_t" : "float";
-    out.append("    uint32_t i = 0;\n    for (;;) {\n")
+    if (start != null) {
+      out.append("    uint32_t i = ").append(start).append(";\n");
+    }
+    out.append("    for (;;) {\n")
         .append("        const uint32_t w = ").append(treeName).append("[i];\n")
         .append("        uint32_t operand;\n")
         .append("        int left;\n")

@@ -150,6 +150,22 @@ class CEnsembleTest {
   }
 
   @Test
+  void theTableLayoutPacksEveryTreeIntoOneTable() {
+    SplittableRandom random = new SplittableRandom(7);
+    TreeEnsemble ensemble = null;
+    while (ensemble == null || ensemble.treeCount() < 3) {
+      ensemble = RandomEnsembles.ensemble(random);
+    }
+    String c = CEmitter.emit(ensemble, new CEmitOptions("packed", Layout.TABLE, InputKind.FLOAT,
+        false, true), HeaderInfo.none()).sourceText();
+
+    // One node array and one walk, called once per tree with that tree's start index.
+    assertThat(c.split("static const [a-z0-9_]+ packed_tree\\[", -1)).hasSize(2);
+    assertThat(c.split("packed_walk\\(x, \\d+u\\)", -1)).hasSize(ensemble.treeCount() + 1);
+    assertThat(c).doesNotContain("packed_tree0(");
+  }
+
+  @Test
   void votesThatTieGoToTheLowestClassInC() throws IOException {
     assumeTrue(Gcc.available(), "gcc is needed to build emitted C");
     TreeEnsemble ensemble = tieCase();
