@@ -17,9 +17,14 @@ import dev.splitwright.eval.Metric;
 import dev.splitwright.eval.SplitParts;
 import dev.splitwright.eval.StratifiedSplit;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.report.ReportJson;
+import dev.splitwright.train.BoostingOptions;
+import dev.splitwright.train.BoostingTrainer;
 import dev.splitwright.train.CartTrainer;
 import dev.splitwright.train.ClassWeights;
+import dev.splitwright.train.ForestOptions;
+import dev.splitwright.train.ForestTrainer;
 import dev.splitwright.train.PruningPath;
 import dev.splitwright.train.TrainingOptions;
 import dev.splitwright.verify.Verifier;
@@ -162,6 +167,52 @@ class BudgetSelectionTest {
       }
       assertThat(c.score()).as("%s", c.recipe()).isCloseTo(sum / 4, within(1e-12));
     }
+  }
+
+  @Test
+  void ensemblesAreCrossValidatedByRetrainingTheirRecipeOnEachFold() throws InputException {
+    SearchSettings settings = SearchSettings.builder(6000).maxDepth(2).minLeafs(List.of(5))
+        .folds(3).seed(4).kinds(List.of(ModelKind.FOREST, ModelKind.BOOSTED))
+        .ensembleSizes(List.of(2, 4)).build();
+    CandidateSearch.Result search = search(settings);
+
+    // Recomputed directly with the trainers: each recipe trained on the fold's training rows with
+    // the search's seed, scored on the held-out rows, averaged over the folds.
+    Dataset pool = pump.train().concat(pump.validation());
+    List<Fold> folds = StratifiedSplit.kFold(pool, 3, 4);
+    assertThat(search.candidates()).isNotEmpty()
+        .allMatch(c -> c.recipe().kind() != ModelKind.TREE);
+    for (Candidate c : search.candidates()) {
+      double sum = 0;
+      for (Fold fold : folds) {
+        TrainingOptions tree = TrainingOptions.builder().maxDepth(c.recipe().maxDepth())
+            .minLeaf(5).build();
+        TreeEnsemble e = c.recipe().kind() == ModelKind.FOREST
+            ? ForestTrainer.train(fold.train(), ForestOptions.of(c.recipe().trees(), 4, tree))
+            : BoostingTrainer.train(fold.train(),
+                new BoostingOptions(c.recipe().trees(), 4, tree));
+        sum += Evaluator.score(e, fold.validation()).balancedAccuracy();
+      }
+      assertThat(c.score()).as("%s", c.recipe()).isCloseTo(sum / 3, within(1e-12));
+      assertThat(c.shape().trees()).isEqualTo(c.recipe().trees());
+    }
+  }
+
+  @Test
+  void theChoiceAmongAllKindsIsNeverBelowTheBestTreeOnValidation() throws InputException {
+    SearchSettings trees = SearchSettings.builder(8192).maxDepth(4).build();
+    SearchSettings all = SearchSettings.builder(8192).maxDepth(4)
+        .kinds(List.of(ModelKind.values())).build();
+    BudgetSelection.Outcome<LayoutChoice> tree = run(trees);
+    BudgetSelection.Outcome<LayoutChoice> any = run(all);
+
+    assertThat(any.verification().passed()).isTrue();
+    assertThat(any.report().chosen().size()).isLessThanOrEqualTo(8192);
+    assertThat(any.report().chosen().score()).isGreaterThanOrEqualTo(
+        tree.report().chosen().score());
+    assertThat(any.candidates()).extracting(c -> c.recipe().kind()).contains(ModelKind.FOREST,
+        ModelKind.BOOSTED, ModelKind.TREE);
+    assertThat(any.report().kinds()).containsExactly("tree", "forest", "boosted");
   }
 
   @Test
