@@ -39,14 +39,15 @@ class CBudgetCommandTest {
 
   @ParameterizedTest
   @CsvSource({
-      "1KiB, branches",
-      "4KiB, branches",
-      "600, branches",
-      "4KiB, smallest"})
-  void theChosenObjectFitsTheBudgetAsBinutilsCountsIt(String budget, String layout)
+      "1KiB, branches, tree",
+      "600, branches, tree",
+      "4KiB, smallest, 'tree,forest,boosted'"})
+  void theChosenObjectFitsTheBudgetAsBinutilsCountsIt(String budget, String layout, String kinds)
       throws Exception {
+    // Single trees keep most rows quick; the last searches every kind, ensembles in C included.
     Path out = temp.resolve("out");
-    CliRun run = CliRun.of(args(out, budget, "--layout", layout).toArray(new String[0]));
+    CliRun run = CliRun.of(args(out, budget, "--layout", layout, "--kinds", kinds)
+        .toArray(new String[0]));
     assertThat(run.exitCode()).as(run.err()).isZero();
     assertThat(run.out()).contains("emitted: c", "0 mismatches", "(flash)", "cc runs");
 
@@ -106,7 +107,7 @@ class CBudgetCommandTest {
     Path out = temp.resolve("cc");
     List<String> flags = List.of("-mcpu=cortex-m0plus", "-mthumb", "-Os");
     CliRun run = CliRun.of(args(out, "1KiB", "--cc", "arm-none-eabi-gcc", "--cflags",
-        String.join(" ", flags)).toArray(new String[0]));
+        String.join(" ", flags), "--kinds", "tree").toArray(new String[0]));
     assertThat(run.exitCode()).as(run.err()).isZero();
 
     JsonNode report = JSON.readTree(out.resolve("pump_state_classifier.report.json").toFile());
