@@ -8,8 +8,6 @@ import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.model.Classifier;
-import dev.splitwright.model.DecisionTree;
-import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.report.CompileReport;
 import dev.splitwright.select.BudgetUnit;
 import dev.splitwright.select.DebugSizes;
@@ -152,11 +150,7 @@ public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmiss
 
   @Override
   public JavaEmission emit(Classifier model, HeaderInfo header) throws InputException {
-    if (model instanceof DecisionTree tree) {
-      return new JavaEmission(LayoutChooser.resolve(tree, options, header, verifier.compiler()));
-    }
-    return new JavaEmission(EnsembleLayouts.resolve((TreeEnsemble) model, options, header,
-        verifier.compiler()));
+    return new JavaEmission(LayoutChooser.resolve(model, options, header, verifier.compiler()));
   }
 
   @Override

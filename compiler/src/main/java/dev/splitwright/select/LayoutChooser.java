@@ -12,7 +12,7 @@ import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.emit.Layout;
-import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.Classifier;
 import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
@@ -27,14 +27,14 @@ public final class LayoutChooser {
   private LayoutChooser() {}
 
   /**
-   * Emits and compiles {@code tree} with the layout of {@code options}, choosing one first when it
-   * is {@link Layout#SMALLEST}.
+   * Emits and compiles {@code tree} (a single tree or an ensemble) with the layout of {@code
+   * options}, choosing one first when it is {@link Layout#SMALLEST}.
    *
    * @throws InputException if the layout cannot hold the tree (too many class-file constants for
    *     {@code branches}) or the options do not fit it (named arguments for many features)
    * @throws IllegalStateException if javac rejects the source for another reason, a bug of ours
    */
-  public static LayoutChoice resolve(DecisionTree tree, EmitOptions options, HeaderInfo header,
+  public static LayoutChoice resolve(Classifier tree, EmitOptions options, HeaderInfo header,
       InMemoryCompiler compiler) throws InputException {
     Objects.requireNonNull(tree, "tree");
     Objects.requireNonNull(options, "options");
@@ -57,7 +57,7 @@ public final class LayoutChooser {
     }
   }
 
-  private static LayoutChoice smallest(DecisionTree tree, EmitOptions options, HeaderInfo header,
+  private static LayoutChoice smallest(Classifier tree, EmitOptions options, HeaderInfo header,
       InMemoryCompiler compiler) throws CompilationException {
     EmitOptions tableOptions = options.toBuilder().layout(Layout.TABLE).build();
     EmittedSource table = JavaEmitter.emit(tree, tableOptions, header);
