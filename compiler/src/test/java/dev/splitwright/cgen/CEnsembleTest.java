@@ -12,9 +12,7 @@ import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.TreeEnsemble;
-import dev.splitwright.verify.ProbeAccess;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -36,9 +34,6 @@ class CEnsembleTest {
   @TempDir
   Path dir;
 
-  private record Case(String base, TreeEnsemble ensemble, CEmitOptions options, byte[] input,
-      List<float[]> modelInputs) {}
-
   @Test
   void randomEnsemblesGiveTheModelsClassesAndShares() throws IOException {
     assumeTrue(Gcc.available(), "gcc is needed to build emitted C");
@@ -46,20 +41,20 @@ class CEnsembleTest {
     int checked = 0;
     int[] kinds = new int[2];
     for (int start = 0; start < ENSEMBLES; start += PER_BUILD) {
-      List<Case> cases = new ArrayList<>();
+      List<CBatch.Case> cases = new ArrayList<>();
       for (int i = start; i < Math.min(ENSEMBLES, start + PER_BUILD); i++) {
-        Case c = newCase("e" + i, random.split());
-        kinds[c.ensemble().kind().ordinal()]++;
+        CBatch.Case c = newCase("e" + i, random.split());
+        kinds[((TreeEnsemble) c.model()).kind().ordinal()]++;
         cases.add(c);
       }
-      checked += runBatch(cases, start == 0);
+      checked += CBatch.run(dir, cases, start == 0);
     }
     assertThat(checked).isEqualTo(ENSEMBLES);
     assertThat(kinds[0]).isPositive();
     assertThat(kinds[1]).isPositive();
   }
 
-  private static Case newCase(String base, SplittableRandom random) {
+  private static CBatch.Case newCase(String base, SplittableRandom random) {
     TreeEnsemble ensemble = RandomEnsembles.ensemble(random);
     CEmitOptions options = new CEmitOptions(base,
         random.nextBoolean() ? Layout.BRANCHES : Layout.TABLE,
@@ -68,74 +63,7 @@ class CEnsembleTest {
     if (options.inputKind() == InputKind.FLOAT && random.nextInt(4) == 0) {
       options = options.withCompareBits(true);
     }
-    return withProbes(base, ensemble, options, random.nextLong());
-  }
-
-  private static Case withProbes(String base, TreeEnsemble ensemble, CEmitOptions options,
-      long seed) {
-    int features = ensemble.schema().featureCount();
-    List<float[]> floats = ProbeAccess.floatProbes(ensemble, seed, RANDOM_PROBES);
-    if (options.inputKind() == InputKind.FLOAT) {
-      return new Case(base, ensemble, options, HarnessData.packFloats(floats, features), floats);
-    }
-    List<int[]> ints = new ArrayList<>(ProbeAccess.intProbes(ensemble));
-    for (float[] x : floats) {
-      int[] v = new int[x.length];
-      for (int f = 0; f < v.length; f++) {
-        v[f] = (int) x[f]; // JLS 5.1.3: NaN to 0, saturating at the int range.
-      }
-      ints.add(v);
-    }
-    List<float[]> model = new ArrayList<>();
-    for (int[] x : ints) {
-      float[] v = new float[x.length];
-      for (int f = 0; f < v.length; f++) {
-        v[f] = x[f];
-      }
-      model.add(v);
-    }
-    return new Case(base, ensemble, options, HarnessData.packInts(ints, features), model);
-  }
-
-  private int runBatch(List<Case> cases, boolean sanitized) throws IOException {
-    List<String> files = new ArrayList<>();
-    StringBuilder dispatch = new StringBuilder("#include <string.h>\n");
-    for (Case c : cases) {
-      CSource source = CEmitter.emit(c.ensemble(), c.options(), HeaderInfo.none());
-      String harness = CHarness.source(c.options()).replace("int main(int argc, char **argv)",
-          "int " + c.base() + "_main(int argc, char **argv)");
-      Gcc.write(dir, source.headerName(), source.headerText(), source.sourceName(),
-          source.sourceText(), CHarness.fileName(c.options()), harness);
-      files.add(source.sourceName());
-      files.add(CHarness.fileName(c.options()));
-      dispatch.append("int ").append(c.base()).append("_main(int argc, char **argv);\n");
-    }
-    dispatch.append("int main(int argc, char **argv)\n{\n    if (argc < 2) {\n        return 2;\n"
-        + "    }\n");
-    for (Case c : cases) {
-      dispatch.append("    if (strcmp(argv[1], \"").append(c.base()).append("\") == 0) {\n")
-          .append("        return ").append(c.base()).append("_main(argc - 1, argv + 1);\n    }\n");
-    }
-    dispatch.append("    return 2;\n}\n");
-    Gcc.write(dir, "dispatch.c", dispatch.toString());
-    files.add("dispatch.c");
-    List<String> flags = new ArrayList<>(Gcc.STRICT);
-    if (sanitized) {
-      flags.addAll(Gcc.SANITIZE);
-    }
-    Gcc.gcc(dir, flags, files, "batch").orFail("gcc of " + files);
-    for (Case c : cases) {
-      Path in = dir.resolve(c.base() + ".in");
-      Path out = dir.resolve(c.base() + ".out");
-      Files.write(in, c.input());
-      Gcc.run(dir, List.of(dir.resolve("batch").toString(), c.base(), in.toString(),
-          out.toString())).orFail("harness " + c.base());
-      COracle.Report report = COracle.report(c.ensemble(), c.options(), Files.readAllBytes(out),
-          c.modelInputs());
-      assertThat(report.mismatches()).as(c.base() + " " + c.options() + ": " + report.describe())
-          .isZero();
-    }
-    return cases.size();
+    return CBatch.withProbes(base, ensemble, options, random.nextLong(), RANDOM_PROBES);
   }
 
   /** Two trees on one feature whose weights tie for some inputs; worked by hand below. */
