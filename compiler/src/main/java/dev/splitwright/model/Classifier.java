@@ -13,4 +13,11 @@ public sealed interface Classifier permits DecisionTree, TreeEnsemble {
 
   /** Returns the class index for input {@code x}, given in feature order. */
   int predict(float[] x);
+
+  /**
+   * The class probabilities for {@code x} as float32, which is what emitted code returns and is
+   * compared with bit for bit: a tree's leaf frequencies narrowed from double, an ensemble's
+   * shares as it computes them.
+   */
+  float[] floatProbabilities(float[] x);
 }

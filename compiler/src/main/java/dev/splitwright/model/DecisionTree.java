@@ -105,6 +105,17 @@ public final class DecisionTree implements Classifier {
     return feature.isMissing(value) ? split.missingLeft() : split.goesLeftPresent(value);
   }
 
+  /** {@link #probabilities} narrowed to float, each value rounded once. */
+  @Override
+  public float[] floatProbabilities(float[] x) {
+    double[] p = probabilities(x);
+    float[] narrowed = new float[p.length];
+    for (int c = 0; c < p.length; c++) {
+      narrowed[c] = (float) p[c];
+    }
+    return narrowed;
+  }
+
   /** Returns the leaf's class frequencies for input {@code x} (counts divided by their total). */
   public double[] probabilities(float[] x) {
     ClassCounts counts = leafFor(x).counts();

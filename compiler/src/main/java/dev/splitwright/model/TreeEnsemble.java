@@ -177,6 +177,12 @@ public final class TreeEnsemble implements Classifier {
     return best;
   }
 
+  /** The same as {@link #probabilities}: the shares are float32 already. */
+  @Override
+  public float[] floatProbabilities(float[] x) {
+    return probabilities(x);
+  }
+
   /** Returns {@code score[c] / totalWeight()} per class, each one float32 division. */
   public float[] probabilities(float[] x) {
     float[] p = scores(x);

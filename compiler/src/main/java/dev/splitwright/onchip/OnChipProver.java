@@ -151,7 +151,7 @@ public final class OnChipProver {
           + ", model " + expected);
     }
     if (options.probabilities()) {
-      float[] p = probabilities(tree, x);
+      float[] p = tree.floatProbabilities(x);
       for (int c = 0; c < p.length; c++) {
         int bits = Float.floatToRawIntBits(p[c]);
         if (words[at + 1 + c] != bits) {
@@ -161,18 +161,5 @@ public final class OnChipProver {
       }
     }
     return Optional.empty();
-  }
-
-  /** What the emitted probabilities must equal: a tree's narrowed to float, an ensemble's. */
-  private static float[] probabilities(Classifier model, float[] x) {
-    if (model instanceof TreeEnsemble ensemble) {
-      return ensemble.probabilities(x);
-    }
-    double[] p = ((DecisionTree) model).probabilities(x);
-    float[] narrowed = new float[p.length];
-    for (int c = 0; c < p.length; c++) {
-      narrowed[c] = (float) p[c];
-    }
-    return narrowed;
   }
 }

@@ -133,7 +133,7 @@ public final class BatchVerifier {
       if (answers.classes()[i] != expected) {
         problem = "class " + answers.classes()[i] + ", model " + expected;
       } else if (probabilities) {
-        float[] p = Trees.probabilities(tree, x);
+        float[] p = tree.floatProbabilities(x);
         for (int c = 0; c < p.length && problem == null; c++) {
           float got = answers.probabilities()[i][c];
           if (Float.floatToRawIntBits(got) != Float.floatToRawIntBits(p[c])) {

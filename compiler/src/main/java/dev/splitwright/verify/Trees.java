@@ -24,20 +24,4 @@ final class Trees {
     }
     return out;
   }
-
-  /**
-   * What the emitted {@code classProbabilities} must write, as float: a tree's leaf frequencies
-   * narrowed from double, an ensemble's {@link TreeEnsemble#probabilities} as they are.
-   */
-  static float[] probabilities(Classifier model, float[] x) {
-    if (model instanceof TreeEnsemble ensemble) {
-      return ensemble.probabilities(x);
-    }
-    double[] p = ((DecisionTree) model).probabilities(x);
-    float[] out = new float[p.length];
-    for (int c = 0; c < out.length; c++) {
-      out[c] = (float) p[c];
-    }
-    return out;
-  }
 }

@@ -117,7 +117,7 @@ public final class Verifier {
     }
     if (options.probabilities()) {
       tally.add("classProbabilities ", OracleComparison.compare(inputs, candidate::probabilities,
-          x -> Trees.probabilities(tree, candidate.modelInput(x)), REPORTED_MISMATCHES));
+          x -> tree.floatProbabilities(candidate.modelInput(x)), REPORTED_MISMATCHES));
     }
     if (options.inputKind() == InputKind.INT) {
       List<int[]> ints = Trees.probes(tree, IntProbes::of);

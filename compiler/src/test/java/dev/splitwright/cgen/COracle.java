@@ -3,7 +3,6 @@ package dev.splitwright.cgen;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
-import dev.splitwright.model.TreeEnsemble;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
@@ -93,7 +92,7 @@ final class COracle {
             + expected);
       }
       if (options.probabilities()) {
-        float[] p = probabilities(tree, x);
+        float[] p = tree.floatProbabilities(x);
         for (int c = 0; c < classes; c++) {
           if (Float.floatToRawIntBits(out.probabilities()[r][c])
               != Float.floatToRawIntBits(p[c])) {
@@ -111,19 +110,6 @@ final class COracle {
           report);
     }
     return new Report(report.inputs(), mismatches, report.first());
-  }
-
-  /** A tree's leaf frequencies narrowed to float; an ensemble's vote shares as they are. */
-  private static float[] probabilities(Classifier model, float[] x) {
-    if (model instanceof TreeEnsemble ensemble) {
-      return ensemble.probabilities(x);
-    }
-    double[] p = ((DecisionTree) model).probabilities(x);
-    float[] out = new float[p.length];
-    for (int c = 0; c < out.length; c++) {
-      out[c] = (float) p[c];
-    }
-    return out;
   }
 
   private static int texts(String what, List<String> expected, List<byte[]> actual,
