@@ -5,13 +5,17 @@ import static org.assertj.core.api.Assertions.assertThatIllegalArgumentException
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.lang.reflect.Method;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import javax.tools.Diagnostic;
+import javax.tools.ToolProvider;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 
 class InMemoryCompilerTest {
 
@@ -196,6 +200,58 @@ class InMemoryCompilerTest {
       CompiledClasses single = compiler.compile(List.of(source));
       String name = source.binaryClassName();
       assertThat(batch.bytes(name)).as(name).isEqualTo(single.bytes(name));
+    }
+  }
+
+  @Test
+  void releaseOfTheRunningJdkIsPassedAsSourceAndTarget() {
+    String running = Integer.toString(Runtime.version().feature());
+    assertThat(InMemoryCompiler.runningRelease(List.of("-g", "--release", running, "-Werror")))
+        .containsExactly("-g", "-source", running, "-target", running, "-Werror");
+    assertThat(InMemoryCompiler.runningRelease(List.of("--release", "11", "-Werror")))
+        .containsExactly("--release", "11", "-Werror");
+    assertThat(InMemoryCompiler.runningRelease(List.of("-Xlint:all")))
+        .containsExactly("-Xlint:all");
+    assertThat(compiler.options()).isEqualTo(STRICT);
+  }
+
+  @Test
+  void givesTheClassFilesJavacWritesWithRelease(@TempDir Path dir) throws Exception {
+    // Reference: the JDK's own javac run as a build would run it, with --release and files on
+    // disk. Sources use string switches, concatenation, lambdas, records and nested classes, whose
+    // code javac generates with help from the platform classes.
+    String source = """
+        package demo;
+
+        import java.util.function.IntUnaryOperator;
+
+        public final class Mixed {
+          record Pair(int a, float b) {}
+
+          public static String f(String s, float x) {
+            IntUnaryOperator twice = v -> v * 2;
+            int k = switch (s) {
+              case "one" -> 1;
+              case "two" -> 2;
+              default -> twice.applyAsInt(s.length());
+            };
+            return "k=" + k + ", x=" + Float.floatToRawIntBits(x) + new Pair(k, x);
+          }
+        }
+        """;
+    Path file = dir.resolve("Mixed.java");
+    Files.writeString(file, source);
+    String release = Integer.toString(Runtime.version().feature());
+    int status = ToolProvider.getSystemJavaCompiler().run(null, null, null, "--release", release,
+        "-d", dir.toString(), file.toString());
+    assertThat(status).isZero();
+
+    CompiledClasses ours = compiler.compile(List.of(new SourceFile("demo.Mixed", source)));
+
+    assertThat(ours.names()).containsExactlyInAnyOrder("demo.Mixed", "demo.Mixed$Pair");
+    for (String name : ours.names()) {
+      byte[] reference = Files.readAllBytes(dir.resolve(name.replace('.', '/') + ".class"));
+      assertThat(ours.bytes(name)).as(name).isEqualTo(reference);
     }
   }
 
