@@ -49,6 +49,11 @@ public final class JavaLanguage implements OutputLanguage<JavaLanguage.JavaEmiss
     this.dexMinApi = Objects.requireNonNull(dexMinApi, "dexMinApi");
   }
 
+  @Override
+  public Runnable warmUp() {
+    return JavacWarmUp.start(options, verifier);
+  }
+
   /**
    * The emitted class, compiled while its layout was chosen.
    *

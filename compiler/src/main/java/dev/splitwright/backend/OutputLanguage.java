@@ -57,6 +57,16 @@ public interface OutputLanguage<E extends Emission> {
    */
   SizeFigures measure(E emission) throws InputException;
 
+  /**
+   * Starts, in the background, what makes this language's first compilation faster; called
+   * before the data of a budget search is read. Nothing by default.
+   *
+   * @return stops the warm-up after its current step; run when the job ends
+   */
+  default Runnable warmUp() {
+    return () -> { };
+  }
+
   /** The units a budget for this language may count, the default first. */
   List<BudgetUnit> budgetUnits();
 

@@ -114,6 +114,14 @@ public final class CompileJob {
     return run(request, Optional.empty(), SearchProgress.none());
   }
 
+  /** The data of {@code request}, loaded and checked for training. */
+  private static LoadedData load(CompileRequest request) throws InputException {
+    LoadedData loaded = CsvLoader.load(request.data(), request.load());
+    TrainingClasses.requireTwo(request.data().toString(), loaded);
+    DataChecks.trainingData(request, loaded);
+    return loaded;
+  }
+
   /**
    * Runs {@code request}; with {@code budget}, the tree is the best validated one that fits it
    * (see {@link dev.splitwright.select.BudgetSelection}) and a frontier chart is written too.
@@ -132,15 +140,21 @@ public final class CompileJob {
           + ", which --emit " + lang.name() + " does not measure", "use " + String.join(" or ",
               lang.budgetUnits().stream().map(u -> u.optionName()).toList()));
     }
-    LoadedData loaded = CsvLoader.load(request.data(), request.load());
-    TrainingClasses.requireTwo(request.data().toString(), loaded);
-    DataChecks.trainingData(request, loaded);
-    Optional<FieldLog> testLog = testData(loaded.dataset(), request);
     if (budget.isPresent()) {
-      Parts parts = split(loaded.dataset(), request, testLog);
-      return BudgetRun.run(lang, request, targets, loaded, testLog, parts, budget.get(),
-          progress);
+      // A search compiles many candidates: worth warming the compiler up while the data loads.
+      Runnable stopWarmUp = lang.warmUp();
+      try {
+        LoadedData loaded = load(request);
+        Optional<FieldLog> testLog = testData(loaded.dataset(), request);
+        Parts parts = split(loaded.dataset(), request, testLog);
+        return BudgetRun.run(lang, request, targets, loaded, testLog, parts, budget.get(),
+            progress);
+      } finally {
+        stopWarmUp.run();
+      }
     }
+    LoadedData loaded = load(request);
+    Optional<FieldLog> testLog = testData(loaded.dataset(), request);
     Optional<SavedClassifier> saved = Optional.empty();
     Classifier tree;
     Map<String, Dataset> scored;

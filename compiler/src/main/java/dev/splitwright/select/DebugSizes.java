@@ -28,10 +28,20 @@ public final class DebugSizes {
 
   private static int compiled(EmittedSource source, String flag) {
     Objects.requireNonNull(source, "source");
-    try (InMemoryCompiler compiler = InMemoryCompiler.create(List.of("--release", "17", flag))) {
-      CompiledClasses classes = new SizeMeter(compiler).compileAlone(source);
-      return SizeMeter.sizesOf(classes, source.qualifiedName(), source.sourceBytes())
-          .classFileBytes();
-    }
+    InMemoryCompiler compiler = flag.equals("-g:none") ? Compilers.NO_DEBUG : Compilers.FULL_DEBUG;
+    CompiledClasses classes = new SizeMeter(compiler).compileAlone(source);
+    return SizeMeter.sizesOf(classes, source.qualifiedName(), source.sourceBytes())
+        .classFileBytes();
+  }
+
+  /**
+   * One compiler per setting for the life of the JVM, made on first use: a compiler's first run
+   * sets up javac's view of the JDK, which costs more than compiling one classifier.
+   */
+  private static final class Compilers {
+    static final InMemoryCompiler NO_DEBUG =
+        InMemoryCompiler.create(List.of("--release", "17", "-g:none"));
+    static final InMemoryCompiler FULL_DEBUG =
+        InMemoryCompiler.create(List.of("--release", "17", "-g"));
   }
 }

@@ -16,6 +16,8 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.OptionalInt;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.Future;
 
 /**
  * The budget search's measurements in Java: candidates emitted by {@link CandidateEmitter} and
@@ -29,6 +31,7 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
   private final Optional<DexMeter> dex;
   private final CandidateEmitter emitter;
   private final SizeMeter meter;
+  private SizeMeter second;
 
   /**
    * Measures in {@code unit}, emitting with {@code options} and compiling and checking with {@code
@@ -62,6 +65,38 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
 
   @Override
   public List<Measured> measure(List<Classifier> models, HeaderInfo header) {
+    if (!SecondJavac.AVAILABLE || dex.isPresent() || models.size() < 2) {
+      return measure(models, header, meter);
+    }
+    // Two halves at once: javac is most of a search's time, and one compilation uses one core.
+    int half = models.size() / 2;
+    Future<List<Measured>> second = SecondJavac.thread().submit(
+        () -> measure(models.subList(half, models.size()), header, secondMeter()));
+    List<Measured> measured = new ArrayList<>(measure(models.subList(0, half), header, meter));
+    try {
+      measured.addAll(second.get());
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw new IllegalStateException("interrupted while measuring", e);
+    } catch (ExecutionException e) {
+      if (e.getCause() instanceof RuntimeException r) {
+        throw r;
+      }
+      throw new IllegalStateException(e.getCause());
+    }
+    return measured;
+  }
+
+  private synchronized SizeMeter secondMeter() {
+    if (second == null) {
+      second = new SizeMeter(SecondJavac.compiler(verifier.compiler().options()));
+    }
+    return second;
+  }
+
+  /** Emits {@code models} and measures them with {@code sizeMeter}. */
+  private List<Measured> measure(List<Classifier> models, HeaderInfo header,
+      SizeMeter sizeMeter) {
     List<EmittedSource> sources = new ArrayList<>();
     List<Integer> variants = new ArrayList<>();
     for (Classifier model : models) {
@@ -69,7 +104,7 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
       sources.addAll(emitted);
       variants.add(emitted.size());
     }
-    List<Sizes> sizes = meter.measure(sources);
+    List<Sizes> sizes = sizeMeter.measure(sources);
     List<Measured> measured = new ArrayList<>(models.size());
     int at = 0;
     for (int count : variants) {
@@ -150,13 +185,13 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
   }
 
   @Override
-  public int compilerRuns() {
-    return meter.javacRuns();
+  public synchronized int compilerRuns() {
+    return meter.javacRuns() + (second == null ? 0 : second.javacRuns());
   }
 
   @Override
-  public int sourcesCompiled() {
-    return meter.sourcesCompiled();
+  public synchronized int sourcesCompiled() {
+    return meter.sourcesCompiled() + (second == null ? 0 : second.sourcesCompiled());
   }
 
   @Override
