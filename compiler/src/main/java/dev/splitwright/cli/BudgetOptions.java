@@ -56,6 +56,12 @@ final class BudgetOptions {
           + "together (default: train rows only).")
   boolean refitAll;
 
+  @Option(names = "--measure-all",
+      description = "Measure every budget candidate compiled, also those that hold a smaller one "
+          + "already over the budget, for a whole frontier chart (slower; the choice is the "
+          + "same).")
+  boolean measureAll;
+
   /**
    * The search settings, or empty without {@code --budget}.
    *
@@ -66,7 +72,7 @@ final class BudgetOptions {
       String language, boolean flat) {
     if (budget == null) {
       for (String option : List.of("--budget-unit", "--metric", "--folds", "--refit-all",
-          "--kinds")) {
+          "--kinds", "--measure-all")) {
         if (cli.getParseResult().hasMatchedOption(option)) {
           throw bad(cli, option, "only applies together with --budget");
         }
@@ -99,6 +105,7 @@ final class BudgetOptions {
         .training(training)
         .seed(seed)
         .kinds(kinds(cli, flat))
+        .measureAll(measureAll)
         .build());
   }
 
@@ -157,6 +164,9 @@ final class BudgetOptions {
       }
       if (refitAll) {
         parts.add("--refit-all");
+      }
+      if (measureAll) {
+        parts.add("--measure-all");
       }
     }
     return parts;

@@ -38,9 +38,12 @@ final class BudgetSummary {
     frontier(selection).forEach(out::println);
     if (stats != null) {
       String d8 = stats.d8Runs() == 0 ? "" : " and " + stats.d8Runs() + " D8 runs";
-      out.printf(Locale.ROOT, "search: %d settings, %d distinct candidates measured in %d %s "
-          + "runs%s, frontier of %d; %.1f s%n", stats.settingsTried(), stats.distinctTrees(),
-          stats.compilerRuns(), stats.compiler(), d8, selection.frontier().size(), stats.seconds());
+      String skipped = stats.settingsSkipped() == 0 ? "" : String.format(Locale.ROOT,
+          " (%d larger than one already over budget, not measured)", stats.settingsSkipped());
+      out.printf(Locale.ROOT, "search: %d settings%s, %d distinct candidates measured in %d %s "
+          + "runs%s, frontier of %d; %.1f s%n", stats.settingsTried(), skipped,
+          stats.distinctTrees(), stats.compilerRuns(), stats.compiler(), d8,
+          selection.frontier().size(), stats.seconds());
     }
   }
 

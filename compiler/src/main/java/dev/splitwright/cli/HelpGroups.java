@@ -30,7 +30,7 @@ final class HelpGroups {
           "--class-weight", "--forest", "--boosted", "--split-features", "--model",
           "--save-model"),
       new Group("Byte budget", "--budget", "--budget-unit", "--kinds", "--metric", "--folds",
-          "--refit-all", "--dex-size", "--min-api"),
+          "--refit-all", "--measure-all", "--dex-size", "--min-api"),
       new Group("Emitted code", "--emit", "--package", "--class", "--layout", "--input",
           "--int-inputs", "--named-args", "--probabilities", "--bare", "--max-method-bytes"),
       new Group("C toolchain (--emit c)", "--host-cc", "--cc", "--cflags", "--core",

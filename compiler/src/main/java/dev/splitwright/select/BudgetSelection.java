@@ -148,7 +148,8 @@ public final class BudgetSelection<E> {
 
   private SearchStats stats(CandidateSearch.Result search, long start) {
     return new SearchStats(search == null ? 0 : search.settingsTried(),
-        search == null ? 0 : search.candidates().size(), meter.sourcesCompiled(),
+        search == null ? 0 : search.candidates().size(), search == null ? 0 : search.skipped(),
+        meter.sourcesCompiled(),
         meter.compilerName(), meter.compilerRuns(), meter.d8Runs(), System.nanoTime() - start);
   }
 }

@@ -2,54 +2,77 @@ package dev.splitwright.select;
 
 import dev.splitwright.data.Dataset;
 import dev.splitwright.model.Classifier;
-import dev.splitwright.model.DecisionTree;
-import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.train.PrunedTree;
 import dev.splitwright.train.PruningPath;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
+import java.util.Collections;
 import java.util.List;
-import java.util.Map;
 
 /**
  * Grows one tree per depth limit (1 to D) and leaf size, takes each tree's whole cost-complexity
  * pruning path, and keeps every distinct subtree once, with the first settings that produced it:
- * depth limits ascending, then leaf sizes ascending, then alphas ascending. Then, for each
- * ensemble kind searched, one ensemble per member depth ({@link SearchSettings#ensembleDepths()})
- * and tree count, at the smallest leaf size ({@link EnsembleGrower}).
+ * depth limits ascending, then leaf sizes ascending, then alphas ascending. Each path is a {@link
+ * TreeChain}. Then, for each ensemble kind searched, one {@link EnsembleChain} per member depth
+ * ({@link SearchSettings#ensembleDepths()}) at the smallest leaf size, over the tree counts: those
+ * are trained only when the search asks for them.
  */
 final class CandidateGenerator {
   private CandidateGenerator() {}
 
-  /** Settings tried and the distinct trees they gave. */
+  /**
+   * The search's candidates as chains.
+   *
+   * @param settingsTried pruning-path entries over every depth and leaf-size limit, plus every
+   *     ensemble kind, member depth and tree count
+   * @param pool the distinct candidates built so far; the chains add to it as they are asked
+   */
+  record Chains(int settingsTried, List<CandidateChain> chains, CandidatePool pool) {
+    Chains {
+      chains = List.copyOf(chains);
+    }
+  }
+
+  /** Settings tried and the distinct candidates they gave, all built. */
   record Result(int settingsTried, List<DistinctTree> trees) {
     Result {
       trees = List.copyOf(trees);
     }
   }
 
+  /** Every candidate of the search, built; see {@link #chains} for the lazy form. */
   static Result generate(Dataset fitData, SearchSettings settings, SearchProgress progress) {
+    Chains chains = chains(fitData, settings, progress);
+    for (CandidateChain chain : chains.chains()) {
+      chain.prepare(chain.length() - 1);
+      for (int i = 0; i < chain.length(); i++) {
+        chain.member(i);
+      }
+    }
+    return new Result(chains.settingsTried(), chains.pool().all());
+  }
+
+  /** The trees grown and in chains; the ensembles in chains, not yet trained. */
+  static Chains chains(Dataset fitData, SearchSettings settings, SearchProgress progress) {
     Grower grower = new Grower(fitData, settings);
     double[] weights = grower.weights();
-    Map<Classifier, DistinctTree> distinct = new LinkedHashMap<>();
+    CandidatePool pool = new CandidatePool();
+    List<CandidateChain> chains = new ArrayList<>();
     int tried = 0;
     boolean trees = settings.kinds().contains(ModelKind.TREE);
-    int ensembleKinds = settings.kinds().size() - (trees ? 1 : 0);
-    int grids = (trees ? settings.maxDepth() * settings.minLeafs().size() : 0)
-        + ensembleKinds * settings.ensembleDepths().size();
+    int grids = trees ? settings.maxDepth() * settings.minLeafs().size() : 0;
     int grown = 0;
     for (int depth = 1; trees && depth <= settings.maxDepth(); depth++) {
       for (int minLeaf : settings.minLeafs()) {
         List<PrunedTree> path = PruningPath.of(grower.grow(depth, minLeaf), weights);
+        List<DistinctTree> members = new ArrayList<>();
         for (int k = 0; k < path.size(); k++) {
           double next = k + 1 < path.size() ? path.get(k + 1).alpha() : Double.POSITIVE_INFINITY;
           CandidateRecipe recipe = new CandidateRecipe(depth, minLeaf, path.get(k).alpha(), next);
-          DecisionTree tree = path.get(k).tree();
-          if (!distinct.containsKey(tree)) {
-            distinct.put(tree, new DistinctTree(distinct.size(), recipe, tree));
-          }
+          members.add(pool.intern(recipe, path.get(k).tree()));
           tried++;
         }
+        Collections.reverse(members);
+        chains.add(new TreeChain(members));
         progress.update("growing", ++grown, grids);
       }
     }
@@ -59,17 +82,11 @@ final class CandidateGenerator {
         continue;
       }
       for (int depth : settings.ensembleDepths()) {
-        for (TreeEnsemble e : EnsembleGrower.grow(fitData, settings, kind, depth, minLeaf)) {
-          if (!distinct.containsKey(e)) {
-            distinct.put(e, new DistinctTree(distinct.size(),
-                CandidateRecipe.ensemble(kind, e.treeCount(), depth, minLeaf), e));
-          }
-          tried++;
-        }
-        progress.update("growing", ++grown, grids);
+        chains.add(new EnsembleChain(fitData, settings, kind, depth, minLeaf, pool));
+        tried += settings.ensembleSizes().size();
       }
     }
-    return new Result(tried, new ArrayList<>(distinct.values()));
+    return new Chains(tried, chains, pool);
   }
 
   /**

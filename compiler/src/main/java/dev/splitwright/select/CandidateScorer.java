@@ -88,7 +88,9 @@ final class CandidateScorer {
   private static List<Classifier> ensemblesOf(Dataset rows, SearchSettings settings,
       ModelKind kind, int depth, int minLeaf, List<DistinctTree> candidates,
       List<Integer> members) {
-    List<TreeEnsemble> grown = EnsembleGrower.grow(rows, settings, kind, depth, minLeaf);
+    int most = members.stream().mapToInt(i -> candidates.get(i).recipe().trees()).max()
+        .orElseThrow();
+    List<TreeEnsemble> grown = EnsembleGrower.grow(rows, settings, kind, depth, minLeaf, most);
     List<Classifier> ensembles = new ArrayList<>();
     for (int i : members) {
       int wanted = candidates.get(i).recipe().trees();

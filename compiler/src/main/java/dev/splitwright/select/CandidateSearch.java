@@ -3,7 +3,6 @@ package dev.splitwright.select;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.data.InputException;
 import dev.splitwright.emit.HeaderInfo;
-import dev.splitwright.model.Classifier;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
@@ -27,9 +26,14 @@ final class CandidateSearch {
     this.progress = Objects.requireNonNull(progress, "progress");
   }
 
-  /** Every candidate scored and measured, the ones within the budget ranked, and the frontier. */
-  record Result(int settingsTried, List<Candidate> candidates, List<Candidate> ranked,
-      List<Candidate> frontier) {
+  /**
+   * Every candidate measured and scored, the ones within the budget ranked, and the frontier.
+   *
+   * @param skipped settings not measured because a smaller candidate nested in theirs was already
+   *     over the budget
+   */
+  record Result(int settingsTried, int skipped, List<Candidate> candidates,
+      List<Candidate> ranked, List<Candidate> frontier) {
 
     Result {
       candidates = List.copyOf(candidates);
@@ -39,7 +43,7 @@ final class CandidateSearch {
   }
 
   /**
-   * Generates, scores and measures the candidates and ranks those within the budget.
+   * Generates, measures and scores the candidates and ranks those within the budget.
    *
    * @throws InputException if there are no rows to score on, the folds do not fit the rows, or
    *     not even the smallest candidate fits the budget
@@ -56,13 +60,21 @@ final class CandidateSearch {
           + "but train and validation hold " + pool.rows(), "use fewer folds");
     }
     Dataset fitRows = settings.folds() > 0 && settings.refitAll() ? pool : data.train();
-    CandidateGenerator.Result generated =
-        CandidateGenerator.generate(fitRows, settings, progress);
-    List<DistinctTree> trees = generated.trees();
+    CandidateGenerator.Chains chains = CandidateGenerator.chains(fitRows, settings, progress);
+    ChainMeasurer.Result measured =
+        new ChainMeasurer(settings, meter, progress).measure(chains.chains(), candidateHeader);
+    List<DistinctTree> trees = measured.measured();
+    // Scored after measuring, so that cross-validation refits only what was measured.
     double[] scores = settings.folds() == 0
         ? CandidateScorer.onValidation(trees, data.validation(), settings)
         : CandidateScorer.crossValidated(trees, pool, settings, progress);
-    List<Candidate> candidates = measure(trees, scores, candidateHeader, meter);
+    List<Candidate> candidates = new ArrayList<>(trees.size());
+    for (int i = 0; i < trees.size(); i++) {
+      DistinctTree t = trees.get(i);
+      SearchMeter.Measured m = measured.sizes().get(t.index());
+      candidates.add(new Candidate(t.index(), t.recipe(), t.model(), scores[i], m.sizes(),
+          m.layout()));
+    }
     List<Candidate> usable = candidates.stream()
         .filter(c -> meter.usable(c.sizes()))
         .toList();
@@ -70,26 +82,8 @@ final class CandidateSearch {
     if (ranked.isEmpty()) {
       throw tooSmall(usable.isEmpty() ? candidates : usable, candidateHeader, meter);
     }
-    return new Result(generated.settingsTried(), candidates, ranked,
+    return new Result(chains.settingsTried(), measured.skipped(), candidates, ranked,
         Ranking.frontier(usable, settings.unit()));
-  }
-
-  private List<Candidate> measure(List<DistinctTree> trees, double[] scores,
-      HeaderInfo candidateHeader, SearchMeter<?> meter) throws InputException {
-    List<Candidate> candidates = new ArrayList<>(trees.size());
-    progress.update("measuring", 0, trees.size());
-    for (int start = 0; start < trees.size(); start += CHUNK) {
-      List<DistinctTree> chunk = trees.subList(start, Math.min(trees.size(), start + CHUNK));
-      List<Classifier> models = chunk.stream().map(DistinctTree::model).toList();
-      List<SearchMeter.Measured> sizes = meter.measure(models, candidateHeader);
-      for (int i = 0; i < chunk.size(); i++) {
-        DistinctTree g = chunk.get(i);
-        candidates.add(new Candidate(g.index(), g.recipe(), g.model(), scores[g.index()],
-            sizes.get(i).sizes(), sizes.get(i).layout()));
-      }
-      progress.update("measuring", start + chunk.size(), trees.size());
-    }
-    return candidates;
   }
 
   private InputException tooSmall(List<Candidate> candidates, HeaderInfo header,

@@ -27,10 +27,18 @@ final class EnsembleGrower {
   static List<TreeEnsemble> grow(Dataset rows, SearchSettings settings, ModelKind kind,
       int maxDepth, int minLeaf) {
     List<Integer> sizes = settings.ensembleSizes();
-    TreeEnsemble largest = train(rows, settings, kind, sizes.get(sizes.size() - 1), maxDepth,
-        minLeaf);
+    return grow(rows, settings, kind, maxDepth, minLeaf, sizes.get(sizes.size() - 1));
+  }
+
+  /**
+   * The ensembles of {@code kind} of every size in {@code settings.ensembleSizes()} up to {@code
+   * mostTrees} that training reached, ascending by size.
+   */
+  static List<TreeEnsemble> grow(Dataset rows, SearchSettings settings, ModelKind kind,
+      int maxDepth, int minLeaf, int mostTrees) {
+    TreeEnsemble largest = train(rows, settings, kind, mostTrees, maxDepth, minLeaf);
     List<TreeEnsemble> ensembles = new ArrayList<>();
-    for (int size : sizes) {
+    for (int size : settings.ensembleSizes()) {
       if (size <= largest.treeCount()) {
         ensembles.add(prefix(largest, size));
       }
@@ -44,7 +52,8 @@ final class EnsembleGrower {
         recipe.minLeaf());
   }
 
-  private static TreeEnsemble train(Dataset rows, SearchSettings settings, ModelKind kind,
+  /** An ensemble of {@code trees} trees, or fewer if boosting stops early. */
+  static TreeEnsemble train(Dataset rows, SearchSettings settings, ModelKind kind,
       int trees, int maxDepth, int minLeaf) {
     TrainingOptions tree = settings.training().toBuilder().maxDepth(maxDepth).minLeaf(minLeaf)
         .build();
@@ -56,8 +65,9 @@ final class EnsembleGrower {
     };
   }
 
-  private static TreeEnsemble prefix(TreeEnsemble e, int size) {
-    if (size == e.treeCount()) {
+  /** The first {@code size} trees of {@code e} (all of them if it has no more). */
+  static TreeEnsemble prefix(TreeEnsemble e, int size) {
+    if (size >= e.treeCount()) {
       return e;
     }
     if (e.kind() == TreeEnsemble.Kind.FOREST) {

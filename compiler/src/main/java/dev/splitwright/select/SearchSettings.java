@@ -23,10 +23,12 @@ import java.util.TreeSet;
  * @param seed seed of the cross-validation folds and of the ensembles' bootstrap samples
  * @param kinds the kinds of classifier searched, in {@link ModelKind} order
  * @param ensembleSizes the tree counts of ensemble candidates, ascending
+ * @param measureAll measure every candidate, also those holding one already over the budget
+ *     (for a whole frontier; see {@link ChainMeasurer})
  */
 public record SearchSettings(int budget, BudgetUnit unit, Metric metric, int maxDepth,
     List<Integer> minLeafs, int folds, boolean refitAll, TrainingOptions training, long seed,
-    List<ModelKind> kinds, List<Integer> ensembleSizes) {
+    List<ModelKind> kinds, List<Integer> ensembleSizes, boolean measureAll) {
 
   /**
    * Tree counts of ensemble candidates by default: doubling from 2 to 64, where published
@@ -121,6 +123,7 @@ public record SearchSettings(int budget, BudgetUnit unit, Metric metric, int max
     private long seed = 1;
     private List<ModelKind> kinds = List.of(ModelKind.TREE);
     private List<Integer> ensembleSizes = DEFAULT_ENSEMBLE_SIZES;
+    private boolean measureAll;
 
     private Builder(int budget) {
       this.budget = budget;
@@ -177,9 +180,14 @@ public record SearchSettings(int budget, BudgetUnit unit, Metric metric, int max
       return this;
     }
 
+    public Builder measureAll(boolean value) {
+      this.measureAll = value;
+      return this;
+    }
+
     public SearchSettings build() {
       return new SearchSettings(budget, unit, metric, maxDepth, minLeafs, folds, refitAll,
-          training, seed, kinds, ensembleSizes);
+          training, seed, kinds, ensembleSizes, measureAll);
     }
   }
 }

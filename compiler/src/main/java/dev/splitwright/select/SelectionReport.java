@@ -16,15 +16,17 @@ import java.util.Objects;
  *     train+validation}
  * @param kinds the kinds of classifier searched: {@code tree}, {@code forest}, {@code boosted}
  * @param settingsTried pruning-path entries over every depth and leaf-size limit, and ensembles
- * @param distinctTrees candidates left after removing equal trees, each one compiled
+ * @param distinctTrees distinct candidates measured, each one compiled
+ * @param settingsSkipped settings neither built nor measured because a smaller candidate nested in
+ *     theirs was already over the budget (see {@code ChainMeasurer}); 0 when all are measured
  * @param smallestSize the smallest candidate's size, the least budget that can be met
  * @param fallbacks one line for each better candidate whose refitted tree broke the budget
  * @param frontier the Pareto-optimal candidates by size, ascending
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 @JsonPropertyOrder({"budget", "budgetUnit", "metric", "scoredOn", "refitOn", "maxDepth",
-    "minLeafs", "kinds", "settingsTried", "distinctTrees", "smallestSize", "chosen", "fallbacks",
-    "frontier"})
+    "minLeafs", "kinds", "settingsTried", "distinctTrees", "settingsSkipped", "smallestSize",
+    "chosen", "fallbacks", "frontier"})
 public record SelectionReport(
     int budget,
     String budgetUnit,
@@ -36,6 +38,7 @@ public record SelectionReport(
     List<String> kinds,
     int settingsTried,
     int distinctTrees,
+    int settingsSkipped,
     int smallestSize,
     Chosen chosen,
     List<String> fallbacks,

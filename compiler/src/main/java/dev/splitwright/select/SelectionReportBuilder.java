@@ -38,7 +38,7 @@ final class SelectionReportBuilder {
         settings.metric().optionName(), scoredOn(settings),
         settings.refitAll() ? "train+validation" : "train", settings.maxDepth(),
         settings.minLeafs(), settings.kinds().stream().map(ModelKind::optionName).toList(),
-        search.settingsTried(), search.candidates().size(), smallest,
+        search.settingsTried(), search.candidates().size(), search.skipped(), smallest,
         picked, choice.fallbacks(), frontier);
   }
 

@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.splitwright.demo.DemoFiles;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -235,6 +236,43 @@ class BudgetCommandTest {
     checkConsoleFrontier(run.out(), frontier);
   }
 
+  @Test
+  void measureAllMeasuresTheSkippedCandidatesAndChoosesTheSame(@TempDir Path dir)
+      throws IOException {
+    List<JsonNode> selections = new ArrayList<>();
+    List<String> searchLines = new ArrayList<>();
+    for (String mode : List.of("lazy", "all")) {
+      Path out = dir.resolve(mode);
+      List<String> args = new ArrayList<>(List.of("compile", "--data",
+          CompileCommandTest.PUMP.toString(), "--target", "state", "--budget", "2KiB",
+          "--max-depth", "5", "--class", "Pump", "--out", out.toString()));
+      if (mode.equals("all")) {
+        args.add("--measure-all");
+      }
+      Run run = run(args.toArray(new String[0]));
+      assertThat(run.exit()).as(run.err()).isZero();
+      selections.add(JSON.readTree(out.resolve("Pump.report.json").toFile()).get("selection"));
+      searchLines.add(run.out().lines().filter(l -> l.startsWith("search: ")).findFirst()
+          .orElseThrow());
+    }
+    JsonNode lazy = selections.get(0);
+    JsonNode all = selections.get(1);
+    int skipped = lazy.get("settingsSkipped").asInt();
+    assertThat(skipped).isPositive();
+    assertThat(all.get("settingsSkipped").asInt()).isZero();
+    assertThat(all.get("distinctTrees").asInt()).isGreaterThan(lazy.get("distinctTrees").asInt());
+    // The source differs only by the option in its header's command line.
+    ObjectNode lazyChosen = lazy.get("chosen").deepCopy();
+    ObjectNode allChosen = all.get("chosen").deepCopy();
+    assertThat(allChosen.remove("sourceBytes").asInt() - lazyChosen.remove("sourceBytes").asInt())
+        .isEqualTo(" --measure-all".length());
+    assertThat(allChosen).isEqualTo(lazyChosen);
+    assertThat(all.get("settingsTried")).isEqualTo(lazy.get("settingsTried"));
+    assertThat(searchLines.get(0))
+        .contains("settings (" + skipped + " larger than one already over budget, not measured)");
+    assertThat(searchLines.get(1)).doesNotContain("not measured");
+  }
+
   /**
    * The console's frontier table is a run of consecutive report frontier points around the chosen
    * one, each line its size, score and leaves; the {@code wrote} lines come after it, last.
@@ -319,7 +357,7 @@ class BudgetCommandTest {
 
   @Test
   void searchOptionsNeedABudget(@TempDir Path dir) {
-    for (String[] option : new String[][] {{"--folds", "5"}, {"--refit-all"},
+    for (String[] option : new String[][] {{"--folds", "5"}, {"--refit-all"}, {"--measure-all"},
         {"--budget-unit", "source"}, {"--metric", "accuracy"}}) {
       List<String> args = new ArrayList<>(List.of("compile", "--data",
           CompileCommandTest.PUMP.toString(), "--class", "Pump", "--out",

@@ -109,9 +109,10 @@ class BudgetSelectionTest {
         .satisfies(p -> assertThat(p.size()).isEqualTo(chosen.size()));
     assertThat(outcome.report().fallbacks()).isEmpty();
     assertThat(outcome.stats().distinctTrees()).isEqualTo(outcome.report().distinctTrees());
-    // One run per batch of a hundred sources, one for the emitted file.
-    assertThat(outcome.stats().compilerRuns())
-        .isEqualTo((outcome.stats().distinctTrees() + 99) / 100 + 1);
+    // A few rounds of one batch each (two halves on two cores), then one for the emitted file:
+    // far fewer runs than candidates.
+    assertThat(outcome.stats().compilerRuns()).isBetween(2, 2 * 4 + 1)
+        .isLessThan(outcome.stats().distinctTrees() / 2);
   }
 
   @Test
@@ -304,8 +305,10 @@ class BudgetSelectionTest {
         SearchSettings.builder(2048).maxDepth(4).build(), EMIT, verifier, recorder)
         .run(data, HeaderInfo.none(), tree -> HeaderInfo.none());
 
+    // Measuring goes in rounds, each ending with all it took on measured.
     int distinct = outcome.stats().distinctTrees();
-    assertThat(events).containsExactly("growing 20", "measuring " + distinct,
+    assertThat(events).startsWith("growing 20").endsWith("measuring " + distinct,
         "finished " + distinct);
+    assertThat(events.subList(1, events.size() - 1)).allMatch(e -> e.startsWith("measuring "));
   }
 }
