@@ -173,16 +173,26 @@ public final class CLanguage implements OutputLanguage<CLanguage.CEmission> {
     }
     List<ElfFile> objects = compile(sources);
     Map<Layout, Long> flash = new LinkedHashMap<>();
-    int best = 0;
     for (int i = 0; i < sources.size(); i++) {
       flash.put(variants.get(i).layout(), objects.get(i).flashBytes());
-      // Branches on a tie: listed first, kept unless the table is strictly smaller.
+    }
+    int best = leastFlash(objects, 0, objects.size());
+    return new CEmission(sources.get(best), variants.get(best), objects.get(best),
+        smallest ? flash : Map.of());
+  }
+
+  /**
+   * The position in {@code [from, to)} of the object with the least flash; the first on a tie, so
+   * that branches, listed first, is kept unless a table is strictly smaller.
+   */
+  static int leastFlash(List<ElfFile> objects, int from, int to) {
+    int best = from;
+    for (int i = from + 1; i < to; i++) {
       if (objects.get(i).flashBytes() < objects.get(best).flashBytes()) {
         best = i;
       }
     }
-    return new CEmission(sources.get(best), variants.get(best), objects.get(best),
-        smallest ? flash : Map.of());
+    return best;
   }
 
   /**

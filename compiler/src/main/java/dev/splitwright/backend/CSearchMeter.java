@@ -60,13 +60,7 @@ final class CSearchMeter implements SearchMeter<CLanguage.CEmission> {
     List<ElfFile> objects = compile(emitted);
     List<Measured> measured = new ArrayList<>(models.size());
     for (int t = 0; t < models.size(); t++) {
-      int pick = t * variants.size();
-      for (int v = pick + 1; v < (t + 1) * variants.size(); v++) {
-        // The first layout (branches) on a tie, as a plain run keeps it.
-        if (objects.get(v).flashBytes() < objects.get(pick).flashBytes()) {
-          pick = v;
-        }
-      }
+      int pick = CLanguage.leastFlash(objects, t * variants.size(), (t + 1) * variants.size());
       measured.add(new Measured(sizes(emitted.get(pick), objects.get(pick)),
           variants.get(pick % variants.size()).layout()));
     }
