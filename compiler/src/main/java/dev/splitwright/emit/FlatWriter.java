@@ -12,6 +12,7 @@ import dev.splitwright.model.NumericSplit;
 import dev.splitwright.model.TreeEnsemble;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import javax.lang.model.element.Modifier;
 
 /**
@@ -106,9 +107,7 @@ final class FlatWriter {
             + FlatTree.NAN_RIGHT + " if a\nmissing value goes right. The children of slot i "
             + "of a tree are 2i + 1 and 2i + 2."));
     type.addField(array("KEY", keyType(), splits,
-        input.kind() == InputKind.INT
-            ? "Per split slot: go right when the value is above this."
-            : "Per split slot: go right when the value's order key is above this."));
+        keyDoc()));
     type.addField(array("LEAF", TypeName.INT, leafSlots,
         "Per leaf slot, tree after tree: the class."));
     type.addField(array("DEPTH", TypeName.INT, trees, "Per tree: the depth of its complete tree."));
@@ -224,8 +223,29 @@ final class FlatWriter {
         .build();
   }
 
+  private String keyDoc() {
+    return switch (input.kind()) {
+      case INT -> "Per split slot: go right when the value is above this.";
+      case FLOAT -> "Per split slot: go right when the value's order key, less the slot's low"
+          + " end,\nis above this as an unsigned number (see right).";
+      case DOUBLE -> "Per split slot: go right when the value's order key is above this.";
+    };
+  }
+
   private TypeName keyType() {
     return input.kind() == InputKind.DOUBLE ? TypeName.LONG : TypeName.INT;
+  }
+
+  /** Where the keys that go left start for float input: {@link #right()} explains. */
+  private static final int FLOAT_LOW = 0x7f800001;
+
+  /**
+   * The low end of the keys that go left at a numeric float slot with node word {@code node}:
+   * just above +infinity's key when NaN goes left, so the left keys run from there round through
+   * the negative NaNs up to the threshold's; -infinity's key when NaN goes right.
+   */
+  private static int floatLow(int node) {
+    return (node & FlatTree.NAN_RIGHT) != 0 ? -FLOAT_LOW : FLOAT_LOW;
   }
 
   /** Appends {@code tree}'s nodes in pre-order to {@code data}, its code sets to {@code sets}. */
@@ -241,6 +261,8 @@ final class FlatWriter {
         long key = tree.key(i);
         if (input.kind() == InputKind.DOUBLE) {
           data.add((int) (key >>> 32)).add((int) key);
+        } else if (input.kind() == InputKind.FLOAT) {
+          data.add((int) key - floatLow(tree.node(i)));
         } else {
           data.add((int) key);
         }
@@ -265,9 +287,7 @@ final class FlatWriter {
             + FlatTree.NAN_RIGHT + " if a\nmissing value goes right. The children of slot i "
             + "are 2i + 1 and 2i + 2."));
     type.addField(array("KEY", keyType(), flat.splitSlots(),
-        input.kind() == InputKind.INT
-            ? "Per split slot: go right when the value is above this."
-            : "Per split slot: go right when the value's order key is above this."));
+        keyDoc()));
     type.addField(array("LEAF", TypeName.INT, 1 << d,
         "Per leaf slot (complete-tree slot " + ((1 << d) - 1) + " + j): the result."));
     if (flat.hasCategorical()) {
@@ -403,13 +423,17 @@ final class FlatWriter {
     switch (input.kind()) {
       case FLOAT -> code
           .addStatement("float v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
-          .add("// Order key: IEEE 754 bits with a negative value's magnitude bits flipped.\n")
+          .add("// Order key: IEEE 754 bits with a negative value's magnitude bits flipped. A\n"
+              + "// positive NaN's key is above +infinity's, a negative NaN's below -infinity's.\n")
           .addStatement("int bits = Float.floatToRawIntBits(v)")
-          .add("// All ones exactly for NaN: its magnitude bits exceed those of infinity.\n")
-          .addStatement("int nan = (0x7f800000 - (bits & 0x7fffffff)) >> 31")
-          .addStatement("int right = (int) (((long) KEY[i] - (bits ^ ((bits >> 31) & 0x7fffffff)))"
-              + " >>> 63)")
-          .addStatement("right = (right & ~nan) | (node & nan & $L)", FlatTree.NAN_RIGHT);
+          .addStatement("int key = bits ^ ((bits >> 31) & 0x7fffffff)")
+          .add("// The keys that go left are one run, counted round the 32-bit circle from low:\n"
+              + "// from -infinity's key if NaN goes right, else from just above +infinity's\n"
+              + "// (so through every NaN). KEY holds the threshold's key less low.\n")
+          .addStatement("int m = -(node & $L)", FlatTree.NAN_RIGHT)
+          .addStatement("int low = ($L ^ m) - m", String.format(Locale.ROOT, "0x%08x", FLOAT_LOW))
+          .addStatement("int right = (int) (((KEY[i] & 0xffffffffL) - ((key - low) & 0xffffffffL))"
+              + " >>> 63)");
       case DOUBLE -> code
           .addStatement("double v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
           .addStatement("long bits = Double.doubleToRawLongBits(v)")
