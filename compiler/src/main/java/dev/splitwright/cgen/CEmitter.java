@@ -1,8 +1,6 @@
 package dev.splitwright.cgen;
 
-import dev.splitwright.emit.EmitLimitException;
 import dev.splitwright.emit.HeaderInfo;
-import dev.splitwright.emit.Layout;
 import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.TreeEnsemble;
@@ -46,10 +44,6 @@ public final class CEmitter {
     Objects.requireNonNull(options, "options");
     Objects.requireNonNull(header, "header");
     TreeEnsemble ensemble = (TreeEnsemble) model;
-    if (options.layout() == Layout.FLAT) {
-      throw new EmitLimitException("layout", "the flat layout holds single trees so far",
-          "use --layout branches or table for an ensemble");
-    }
     if (ensemble.schema().featureCount() == 0) {
       throw new IllegalArgumentException("a C classifier needs at least one feature");
     }

@@ -17,6 +17,11 @@ import java.util.Locale;
  * are {@link FlatTree}'s signed keys with the sign bit flipped.
  */
 final class CFlat {
+  /** The unsigned key just above +infinity's: a NaN-left slot's left run starts there. */
+  private static final int LOW_NAN_LEFT = 0xff800001;
+  /** -infinity's unsigned key: a NaN-right slot's left run starts there. */
+  private static final int LOW_NAN_RIGHT = 0x007fffff;
+
   private CFlat() {}
 
   /** The arrays and a function with {@code signature} that returns the leaf payload of x. */
@@ -54,7 +59,10 @@ final class CFlat {
           setWords.add(String.format(Locale.ROOT, "0x%08xu", word));
         }
       } else {
-        keys.add(String.format(Locale.ROOT, "0x%08xu", (int) flat.key(i) ^ 0x80000000));
+        // Float: the threshold's key less the low end of the slot's left run (see below).
+        int low = kind == InputKind.INT ? 0 : (flat.node(i) & FlatTree.NAN_RIGHT) != 0
+            ? LOW_NAN_RIGHT : LOW_NAN_LEFT;
+        keys.add(String.format(Locale.ROOT, "0x%08xu", ((int) flat.key(i) ^ 0x80000000) - low));
         setStarts.add(0L);
       }
     }
@@ -87,15 +95,18 @@ final class CFlat {
     } else {
       out.append("        union {\n            float value;\n            uint32_t bits;\n"
               + "        } u;\n")
-          .append("        uint32_t nan;\n")
+          .append("        uint32_t low;\n")
           .append("        u.value = x[w >> 2];\n")
           .append("        key = u.bits ^ ((0u - (u.bits >> 31)) | 0x80000000u);\n")
-          .append("        /* All ones exactly for NaN: magnitude bits above infinity's. */\n")
-          .append("        nan = 0u - (((u.bits & 0x7fffffffu) + 0x007fffffu) >> 31);\n")
-          .append("        /* 1 when key > t: the 64-bit difference wraps below zero. */\n")
+          .append("        /*\n         * The keys that go left are one run counted round the"
+              + " circle from low:\n         * from -infinity's key if NaN goes right, else from"
+              + " just above\n         * +infinity's, through every NaN. The slot holds t - low."
+              + "\n         */\n")
+          .append(String.format(Locale.ROOT, "        low = 0x%08xu ^ ((0u - (w & 1u)) & 0x%08xu);"
+              + "\n", LOW_NAN_LEFT, LOW_NAN_LEFT ^ LOW_NAN_RIGHT))
+          .append("        /* 1 when key - low > t - low: the 64-bit difference wraps. */\n")
           .append("        right = (uint32_t)(((uint64_t)").append(key)
-          .append("[i] - key) >> 63);\n")
-          .append("        right = (right & ~nan) | (w & nan & 1u);\n");
+          .append("[i] - (uint32_t)(key - low)) >> 63);\n");
     }
     if (flat.hasCategorical()) {
       out.append("        {\n")

@@ -57,7 +57,8 @@ final class CSourceWriter {
 
   /**
    * Writes an ensemble: each tree a {@code static} function returning its class ({@code
-   * <prefix>_tree<t>}, in the table layout with its own {@code static const} table), {@code
+   * <prefix>_tree<t>}, in the flat layout with its own {@code static const} arrays; in the table
+   * layout all trees are in one table walked by one function), {@code
    * <prefix>_scores} adding the weights in tree order as {@code TreeEnsemble} does, and {@code
    * classify} and {@code probabilities} on the scores. Float additions and divisions are exact
    * IEEE 754 binary32 operations only when {@code FLT_EVAL_METHOD == 0} (C99 5.2.4.2.2), so the
@@ -87,8 +88,11 @@ final class CSourceWriter {
         DecisionTree tree = ensemble.trees().get(t);
         String name = prefix + "_tree" + t;
         String signature = "static int " + name + "(" + api.inputParameter() + ")";
-        trees.append(CBranches.function(tree, options.inputKind(), sets, leaves, keys,
-            signature));
+        // flat: each tree its own complete tree, arrays and walk, its leaves holding classes.
+        trees.append(options.layout() == Layout.FLAT
+            ? CFlat.function(FlatTree.of(tree, options.inputKind(), leaves::payload),
+                options.inputKind(), name, signature)
+            : CBranches.function(tree, options.inputKind(), sets, leaves, keys, signature));
         calls.add(name + "(x)");
       }
     }

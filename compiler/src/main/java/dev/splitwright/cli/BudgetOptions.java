@@ -37,8 +37,7 @@ final class BudgetOptions {
   @Option(names = "--kinds", paramLabel = "KINDS",
       description = "Kinds of classifier the budget search tries, comma-separated: tree (one "
           + "CART tree and its prunings), forest (voting forests, Breiman 2001), boosted (SAMME, "
-          + "Zhu et al. 2009); ensembles of 2 to 64 trees (default: all three; tree with "
-          + "--layout flat, which holds single trees).")
+          + "Zhu et al. 2009); ensembles of 2 to 64 trees (default: all three).")
   String kinds;
 
   @Option(names = "--metric", defaultValue = "balanced-accuracy",
@@ -69,7 +68,7 @@ final class BudgetOptions {
    *     {@code --budget}
    */
   Optional<SearchSettings> settings(CommandLine cli, TrainingOptions training, long seed,
-      String language, boolean flat) {
+      String language) {
     if (budget == null) {
       for (String option : List.of("--budget-unit", "--metric", "--folds", "--refit-all",
           "--kinds", "--measure-all")) {
@@ -104,14 +103,14 @@ final class BudgetOptions {
         .refitAll(refitAll)
         .training(training)
         .seed(seed)
-        .kinds(kinds(cli, flat))
+        .kinds(kinds(cli))
         .measureAll(measureAll)
         .build());
   }
 
-  private List<ModelKind> kinds(CommandLine cli, boolean flat) {
+  private List<ModelKind> kinds(CommandLine cli) {
     if (kinds == null) {
-      return flat ? List.of(ModelKind.TREE) : List.of(ModelKind.values());
+      return List.of(ModelKind.values());
     }
     List<ModelKind> parsed = new ArrayList<>();
     for (String name : kinds.split(",", -1)) {
@@ -120,10 +119,6 @@ final class BudgetOptions {
       if (!parsed.contains(kind)) {
         parsed.add(kind);
       }
-    }
-    if (flat && !parsed.equals(List.of(ModelKind.TREE))) {
-      throw bad(cli, "--kinds", "must be tree with --layout flat, which holds single trees so "
-          + "far, but it is '" + kinds + "'");
     }
     return parsed;
   }
@@ -151,13 +146,13 @@ final class BudgetOptions {
   }
 
   /** The search options for the reproducing command line, or nothing without a budget. */
-  List<String> optionsText(CommandLine cli, String language, boolean flat) {
+  List<String> optionsText(CommandLine cli, String language) {
     List<String> parts = new ArrayList<>();
     if (budget != null) {
       parts.add("--budget " + budget.replaceAll("\\s", ""));
       parts.add("--budget-unit " + unit(cli, language).optionName());
       parts.add("--metric " + metric.strip().toLowerCase(Locale.ROOT));
-      parts.add("--kinds " + String.join(",", kinds(cli, flat).stream().sorted()
+      parts.add("--kinds " + String.join(",", kinds(cli).stream().sorted()
           .map(ModelKind::optionName).toList()));
       if (folds != null) {
         parts.add("--folds " + folds);

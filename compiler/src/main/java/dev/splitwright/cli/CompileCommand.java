@@ -203,7 +203,7 @@ final class CompileCommand implements Callable<Integer> {
     PrintWriter stderr = spec.commandLine().getErr();
     Optional<SearchSettings> budget =
         budgetOptions.settings(spec.commandLine(), request.training(), seed,
-            languageOptions.name(spec.commandLine()), request.emit().layout() == Layout.FLAT);
+            languageOptions.name(spec.commandLine()));
     ProgressBar progress = ProgressBar.forTerminal(stderr, quiet);
     Verifier verifier = Verifier.create();
     CompileResult result = new CompileJob(verifier,
@@ -408,8 +408,7 @@ final class CompileCommand implements Callable<Integer> {
       parts.add("--bare");
     }
     parts.addAll(budgetOptions.optionsText(spec.commandLine(),
-        languageOptions.name(spec.commandLine()),
-        Layout.parse(layout).orElse(null) == Layout.FLAT));
+        languageOptions.name(spec.commandLine())));
     parts.addAll(languageOptions.optionsText(spec.commandLine()));
     parts.addAll(dexOptions.optionsText(dexMinApi));
     return String.join(" ", parts);

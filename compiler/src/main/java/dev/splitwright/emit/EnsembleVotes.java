@@ -2,6 +2,7 @@ package dev.splitwright.emit;
 
 import com.palantir.javapoet.ArrayTypeName;
 import com.palantir.javapoet.CodeBlock;
+import com.palantir.javapoet.FieldSpec;
 import com.palantir.javapoet.MethodSpec;
 import com.palantir.javapoet.TypeName;
 import com.palantir.javapoet.TypeSpec;
@@ -135,6 +136,53 @@ final class EnsembleVotes {
       type.addMethod(votes.build());
     }
     return chunks;
+  }
+
+  /**
+   * For boosting, adds {@code WEIGHT} (per tree, the weight of its vote) and returns the static
+   * initializer code that fills it; a forest's votes all weigh 1, so it needs none.
+   */
+  static CodeBlock addWeights(TypeSpec.Builder type, TreeEnsemble trees) {
+    if (trees.kind() == TreeEnsemble.Kind.FOREST) {
+      return CodeBlock.of("");
+    }
+    type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.FLOAT), "WEIGHT",
+            Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+        .addJavadoc("$L\n", "Per tree: the weight of its vote.")
+        .initializer("new $T[$L]", TypeName.FLOAT, trees.treeCount())
+        .build());
+    PackedInts bits = new PackedInts();
+    for (int t = 0; t < trees.treeCount(); t++) {
+      bits.addFloat(trees.weight(t));
+    }
+    return CodeBlock.builder()
+        .add("// The tree weights as IEEE 754 bits.\n")
+        .addStatement("int[] weights = $L", StringTable.unpack(bits))
+        .beginControlFlow("for (int t = 0; t < $L; t++)", trees.treeCount())
+        .addStatement("WEIGHT[t] = Float.intBitsToFloat(weights[t])")
+        .endControlFlow()
+        .build();
+  }
+
+  /**
+   * Adds {@code scores}: a loop over the trees j in order that adds {@code 1f} (forest) or {@code
+   * WEIGHT[j]} to the score of the class {@code leaf(x, <tree>)} returns.
+   *
+   * @param tree how {@code leaf} is told tree j: {@code j} itself or where it starts
+   */
+  static void addLoopedScores(TypeSpec.Builder type, TreeEnsemble trees, InputAccess input,
+      String tree) {
+    MethodSpec.Builder scores = scoresStart(trees, input);
+    if (input.named()) {
+      scores.addStatement("$T[] x = $L", input.elementType(), input.asArray());
+    }
+    boolean forest = trees.kind() == TreeEnsemble.Kind.FOREST;
+    type.addMethod(scores
+        .beginControlFlow("for (int j = 0; j < $L; j++)", trees.treeCount())
+        .addStatement("out[leaf(x, $L)] += $L", tree, forest ? "1f" : "WEIGHT[j]")
+        .endControlFlow()
+        .addStatement("return out")
+        .build());
   }
 
   /** The literal of tree {@code t}'s weight. */

@@ -9,6 +9,10 @@ import com.palantir.javapoet.TypeSpec;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.Leaf;
 import dev.splitwright.model.NumericSplit;
+import dev.splitwright.model.TreeEnsemble;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
 import javax.lang.model.element.Modifier;
 
 /**
@@ -18,15 +22,22 @@ import javax.lang.model.element.Modifier;
  * ({@link PackedInts}) and spread over the complete-tree arrays once, at class initialisation.
  */
 final class FlatWriter {
+  /** The single tree, or an ensemble's first tree. */
   private final FlatTree flat;
+  /** The trees in combination order: one for a single tree. */
+  private final List<FlatTree> flats;
+  /** Whether any slot is categorical: then {@code right} reads the code sets too. */
+  private final boolean categorical;
   private final InputAccess input;
   private final TypeSpec.Builder type;
   private final SupportMethods support;
   private final LeafTable leaves;
 
-  private FlatWriter(FlatTree flat, InputAccess input, TypeSpec.Builder type,
+  private FlatWriter(List<FlatTree> flats, InputAccess input, TypeSpec.Builder type,
       SupportMethods support, LeafTable leaves) {
-    this.flat = flat;
+    this.flat = flats.get(0);
+    this.flats = flats;
+    this.categorical = flats.stream().anyMatch(FlatTree::hasCategorical);
     this.input = input;
     this.type = type;
     this.support = support;
@@ -39,42 +50,236 @@ final class FlatWriter {
     FlatTree flat = FlatTree.of(tree, input.kind(), leaves::payload);
     SupportMethods support = new SupportMethods(input.kind());
     TypeSpec.Builder type = ClassScaffold.start(tree, options, header, support);
-    FlatWriter writer = new FlatWriter(flat, input, type, support, leaves);
+    FlatWriter writer = new FlatWriter(List.of(flat), input, type, support, leaves);
     writer.addTables();
     writer.addMethods(tree);
     support.addTo(type);
     return ClassScaffold.finish(type.build(), options, header);
   }
 
+  /**
+   * Writes an ensemble: every tree padded to the complete tree of its own depth, all in the same
+   * arrays one after another; {@code leaf(x, t)} walks tree t from its offset and {@code scores}
+   * adds the votes in tree order as the other layouts do ({@link EnsembleVotes}).
+   */
+  static String write(TreeEnsemble ensemble, EmitOptions options, HeaderInfo header) {
+    InputAccess input = InputAccess.of(ensemble.schema(), options);
+    // An ensemble's leaves return their class: the shares come from the votes.
+    LeafTable leaves = new LeafTable(false);
+    List<FlatTree> flats = new ArrayList<>();
+    for (DecisionTree tree : ensemble.trees()) {
+      flats.add(FlatTree.of(tree, input.kind(), leaves::payload));
+    }
+    SupportMethods support = new SupportMethods(input.kind());
+    TypeSpec.Builder type = ClassScaffold.start(ensemble, options, header, support);
+    FlatWriter writer = new FlatWriter(List.copyOf(flats), input, type, support, leaves);
+    writer.addEnsembleTables(ensemble);
+    EnsembleVotes.addEntries(type, ensemble, input, options.probabilities());
+    EnsembleVotes.addLoopedScores(type, ensemble, input, "j");
+    type.addMethod(writer.ensembleWalk());
+    type.addMethod(writer.right());
+    support.addTo(type);
+    return ClassScaffold.finish(type.build(), options, header);
+  }
+
+  /**
+   * The arrays of all trees: each tree's split slots from {@code SPLIT_AT[t]} on, its leaf slot j
+   * at {@code LEAF_FROM[t] + 2^D - 1 + j}, so that the walk's slot index reads the leaf directly.
+   * One padding slot at the end lets a tree of depth 0 read a slot it then ignores.
+   */
+  private void addEnsembleTables(TreeEnsemble ensemble) {
+    PackedInts data = new PackedInts();
+    PackedInts sets = new PackedInts();
+    int splits = 1;
+    int leafSlots = 0;
+    int deepest = 0;
+    for (FlatTree tree : flats) {
+      data.add(tree.depth());
+      addNodes(tree, data, sets);
+      splits += tree.splitSlots();
+      leafSlots += 1 << tree.depth();
+      deepest = Math.max(deepest, tree.depth());
+    }
+    int trees = flats.size();
+    type.addField(array("NODE", TypeName.INT, splits,
+        "Per split slot of the complete trees, tree after tree: the feature shifted left by "
+            + FlatTree.FEATURE_SHIFT + ", | " + FlatTree.CATEGORICAL + " if categorical, | "
+            + FlatTree.NAN_RIGHT + " if a\nmissing value goes right. The children of slot i "
+            + "of a tree are 2i + 1 and 2i + 2."));
+    type.addField(array("KEY", keyType(), splits,
+        keyDoc()));
+    type.addField(array("LEAF", TypeName.INT, leafSlots,
+        "Per leaf slot, tree after tree: the class."));
+    type.addField(array("DEPTH", TypeName.INT, trees, "Per tree: the depth of its complete tree."));
+    type.addField(array("SPLIT_AT", TypeName.INT, trees,
+        "Per tree: where its split slots start in NODE and KEY."));
+    type.addField(array("LEAF_FROM", TypeName.INT, trees,
+        "Per tree of depth D: where its leaf slots start in LEAF, less 2^D - 1."));
+    if (categorical) {
+      type.addField(array("SET_AT", TypeName.INT, splits,
+          "Per categorical slot: where its right-going code bits start in SETS."));
+      type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
+              Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+          .addJavadoc("Per categorical split: k, then words with bit c set when code c goes"
+              + " right;\nbit k for a missing or unknown code.\n")
+          .initializer(StringTable.unpack(sets))
+          .build());
+    }
+    support.need(SupportMethods.Kind.UNPACK);
+    CodeBlock weights = EnsembleVotes.addWeights(type, ensemble);
+    type.addStaticBlock(CodeBlock.builder().add(ensembleDecoder(data, deepest)).add(weights)
+        .build());
+  }
+
+  /** Spreads each tree's pre-order nodes over its complete tree; a tree ends at its last leaf. */
+  private CodeBlock ensembleDecoder(PackedInts data, int deepest) {
+    CodeBlock.Builder code = CodeBlock.builder()
+        .add("// Per tree: its depth, then per node in pre-order: a leaf is (class << 1) | 1; a"
+            + "\n// split is NODE << 1, then its key$L.\n",
+            input.kind() == InputKind.DOUBLE ? " (high word, low word)" : "")
+        .add(categorical ? "// A categorical split has its offset in SETS instead.\n" : "")
+        .addStatement("int[] tree = $L", StringTable.unpack(data))
+        .addStatement("int[] open = new int[$L]", deepest + 1)
+        .addStatement("int at = 0")
+        .addStatement("int base = 0")
+        .addStatement("int leafAt = 0")
+        .beginControlFlow("for (int t = 0; t < $L; t++)", flats.size())
+        .addStatement("int d = tree[at++]")
+        .addStatement("DEPTH[t] = d")
+        .addStatement("SPLIT_AT[t] = base")
+        .addStatement("LEAF_FROM[t] = leafAt - ((1 << d) - 1)")
+        .addStatement("int top = 0")
+        .addStatement("int slot = 0")
+        .beginControlFlow("while (true)")
+        .addStatement("int head = tree[at++]")
+        .beginControlFlow("if ((head & 1) != 0)")
+        .addStatement("int span = d - 31 + Integer.numberOfLeadingZeros(slot + 1)")
+        .addStatement("int first = leafAt + ((slot + 1) << span) - (1 << d)")
+        .beginControlFlow("for (int j = first; j < first + (1 << span); j++)")
+        .addStatement("LEAF[j] = head >>> 1")
+        .endControlFlow()
+        .beginControlFlow("if (top == 0)")
+        .addStatement("break")
+        .endControlFlow()
+        .addStatement("slot = open[--top]")
+        .addStatement("continue")
+        .endControlFlow()
+        .addStatement("NODE[base + slot] = head >>> 1");
+    String key = switch (input.kind()) {
+      case DOUBLE -> "(long) tree[at++] << 32 | (tree[at++] & 0xffffffffL)";
+      case FLOAT, INT -> "tree[at++]";
+    };
+    if (categorical) {
+      code.beginControlFlow("if ((head & $L) != 0)", FlatTree.CATEGORICAL << 1)
+          .addStatement("int set = tree[at++]")
+          .addStatement("KEY[base + slot] = SETS[set]")
+          .addStatement("SET_AT[base + slot] = set + 1")
+          .nextControlFlow("else")
+          .addStatement("KEY[base + slot] = $L", key)
+          .endControlFlow();
+    } else {
+      code.addStatement("KEY[base + slot] = $L", key);
+    }
+    return code.addStatement("open[top++] = 2 * slot + 2")
+        .addStatement("slot = 2 * slot + 1")
+        .endControlFlow()
+        .addStatement("base += (1 << d) - 1")
+        .addStatement("leafAt += 1 << d")
+        .endControlFlow()
+        .build();
+  }
+
+  /**
+   * {@code leaf(x, t)}: tree t's walk, two levels a step as for a single tree. An odd depth takes
+   * its first level alone, by arithmetic: the root's outcome, masked to 0 for an even depth.
+   */
+  private MethodSpec ensembleWalk() {
+    CodeBlock code = CodeBlock.builder()
+        .addStatement("int base = SPLIT_AT[t]")
+        .addStatement("int d = DEPTH[t]")
+        .add("// Slot 1 + right at the root for an odd depth, else the root itself.\n")
+        .addStatement("int i = (1 + right(x, base)) & -(d & 1)")
+        .addStatement("int steps = d >>> 1")
+        .beginControlFlow("for (int step = 0; step < steps; step++)")
+        .addStatement("int r = right(x, base + i)")
+        .addStatement("int b = right(x, base + 2 * i + 1)")
+        .addStatement("int c = right(x, base + 2 * i + 2)")
+        .add("// Grandchild 4i + 3 + 2r + s; s decides child 2i + 1 + r: c if r, else b.\n")
+        .addStatement("i = 4 * i + 3 + 2 * r + (b ^ ((b ^ c) & -r))")
+        .endControlFlow()
+        .addStatement("return LEAF[LEAF_FROM[t] + i]")
+        .build();
+    return MethodSpec.methodBuilder("leaf")
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc("Walks tree {@code t}'s complete tree from its root to a leaf slot, two levels"
+            + " a step.\n\n"
+            + "@param x the feature values in input order\n"
+            + "@param t the tree, in combination order\n"
+            + "@return the class the leaf holds\n")
+        .addParameter(ArrayTypeName.of(input.elementType()), "x")
+        .addParameter(TypeName.INT, "t")
+        .addCode(code)
+        .build();
+  }
+
+  private String keyDoc() {
+    return switch (input.kind()) {
+      case INT -> "Per split slot: go right when the value is above this.";
+      case FLOAT -> "Per split slot: go right when the value's order key, less the slot's low"
+          + " end,\nis above this as an unsigned number (see right).";
+      case DOUBLE -> "Per split slot: go right when the value's order key is above this.";
+    };
+  }
+
   private TypeName keyType() {
     return input.kind() == InputKind.DOUBLE ? TypeName.LONG : TypeName.INT;
   }
 
-  private void addTables() {
-    PackedInts data = new PackedInts();
-    PackedInts sets = new PackedInts();
-    for (FlatTree.Slot slot : flat.preOrder()) {
+  /** Where the keys that go left start for float input: {@link #right()} explains. */
+  private static final int FLOAT_LOW = 0x7f800001;
+
+  /**
+   * The low end of the keys that go left at a numeric float slot with node word {@code node}:
+   * just above +infinity's key when NaN goes left, so the left keys run from there round through
+   * the negative NaNs up to the threshold's; -infinity's key when NaN goes right.
+   */
+  private static int floatLow(int node) {
+    return (node & FlatTree.NAN_RIGHT) != 0 ? -FLOAT_LOW : FLOAT_LOW;
+  }
+
+  /** Appends {@code tree}'s nodes in pre-order to {@code data}, its code sets to {@code sets}. */
+  private void addNodes(FlatTree tree, PackedInts data, PackedInts sets) {
+    for (FlatTree.Slot slot : tree.preOrder()) {
       if (slot.node() instanceof Leaf leaf) {
         data.add(leaves.payload(leaf) << 1 | 1);
         continue;
       }
       int i = slot.index();
-      data.add(flat.node(i) << 1);
+      data.add(tree.node(i) << 1);
       if (slot.node() instanceof NumericSplit) {
-        long key = flat.key(i);
+        long key = tree.key(i);
         if (input.kind() == InputKind.DOUBLE) {
           data.add((int) (key >>> 32)).add((int) key);
+        } else if (input.kind() == InputKind.FLOAT) {
+          data.add((int) key - floatLow(tree.node(i)));
         } else {
           data.add((int) key);
         }
       } else {
         data.add(sets.count());
-        sets.add((int) flat.key(i));
-        for (int word : flat.rightCodes(i)) {
+        sets.add((int) tree.key(i));
+        for (int word : tree.rightCodes(i)) {
           sets.add(word);
         }
       }
     }
+  }
+
+  private void addTables() {
+    PackedInts data = new PackedInts();
+    PackedInts sets = new PackedInts();
+    addNodes(flat, data, sets);
     int d = flat.depth();
     type.addField(array("NODE", TypeName.INT, flat.splitSlots(),
         "Per split slot of the complete tree: the feature shifted left by "
@@ -82,9 +287,7 @@ final class FlatWriter {
             + FlatTree.NAN_RIGHT + " if a\nmissing value goes right. The children of slot i "
             + "are 2i + 1 and 2i + 2."));
     type.addField(array("KEY", keyType(), flat.splitSlots(),
-        input.kind() == InputKind.INT
-            ? "Per split slot: go right when the value is above this."
-            : "Per split slot: go right when the value's order key is above this."));
+        keyDoc()));
     type.addField(array("LEAF", TypeName.INT, 1 << d,
         "Per leaf slot (complete-tree slot " + ((1 << d) - 1) + " + j): the result."));
     if (flat.hasCategorical()) {
@@ -220,13 +423,17 @@ final class FlatWriter {
     switch (input.kind()) {
       case FLOAT -> code
           .addStatement("float v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
-          .add("// Order key: IEEE 754 bits with a negative value's magnitude bits flipped.\n")
+          .add("// Order key: IEEE 754 bits with a negative value's magnitude bits flipped. A\n"
+              + "// positive NaN's key is above +infinity's, a negative NaN's below -infinity's.\n")
           .addStatement("int bits = Float.floatToRawIntBits(v)")
-          .add("// All ones exactly for NaN: its magnitude bits exceed those of infinity.\n")
-          .addStatement("int nan = (0x7f800000 - (bits & 0x7fffffff)) >> 31")
-          .addStatement("int right = (int) (((long) KEY[i] - (bits ^ ((bits >> 31) & 0x7fffffff)))"
-              + " >>> 63)")
-          .addStatement("right = (right & ~nan) | (node & nan & $L)", FlatTree.NAN_RIGHT);
+          .addStatement("int key = bits ^ ((bits >> 31) & 0x7fffffff)")
+          .add("// The keys that go left are one run, counted round the 32-bit circle from low:\n"
+              + "// from -infinity's key if NaN goes right, else from just above +infinity's\n"
+              + "// (so through every NaN). KEY holds the threshold's key less low.\n")
+          .addStatement("int m = -(node & $L)", FlatTree.NAN_RIGHT)
+          .addStatement("int low = ($L ^ m) - m", String.format(Locale.ROOT, "0x%08x", FLOAT_LOW))
+          .addStatement("int right = (int) (((KEY[i] & 0xffffffffL) - ((key - low) & 0xffffffffL))"
+              + " >>> 63)");
       case DOUBLE -> code
           .addStatement("double v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
           .addStatement("long bits = Double.doubleToRawLongBits(v)")
@@ -240,7 +447,7 @@ final class FlatWriter {
           .addStatement("int v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
           .addStatement("int right = (int) (((long) KEY[i] - v) >>> 63)");
     }
-    if (flat.hasCategorical()) {
+    if (categorical) {
       code.add("// A categorical slot reads its code's bit; a code that is not a whole number in\n"
           + "// [0, k) reads bit k, the missing side. A numeric slot masks k to 0.\n")
           .addStatement("int cat = -((node >>> 1) & 1)")

@@ -33,8 +33,9 @@ public final class JavaEmitter {
 
   /**
    * Emits {@code model}: a single tree as {@link #emit(DecisionTree, EmitOptions, HeaderInfo)}
-   * does, an ensemble with each tree in a method of its own ({@code branches}) or all trees in
-   * one table ({@code table}), combined in {@code classify} by the rule of {@link TreeEnsemble}.
+   * does, an ensemble with each tree in a method of its own ({@code branches}), all trees in one
+   * table ({@code table}) or all as complete trees in shared arrays ({@code flat}), combined in
+   * {@code classify} by the rule of {@link TreeEnsemble}.
    *
    * @throws EmitLimitException if the options do not fit the model
    * @throws IllegalArgumentException for {@link Layout#SMALLEST}
@@ -50,8 +51,7 @@ public final class JavaEmitter {
     String source = switch (options.layout()) {
       case BRANCHES -> BranchesWriter.write(ensemble, options, header);
       case TABLE -> TableWriter.write(ensemble, options, header);
-      case FLAT -> throw new EmitLimitException("layout", "the flat layout holds single trees so "
-          + "far", "use --layout branches or table for an ensemble");
+      case FLAT -> FlatWriter.write(ensemble, options, header);
       case SMALLEST -> throw new IllegalArgumentException(
           "layout 'smallest' is chosen by measuring both layouts; emit each and compare");
     };

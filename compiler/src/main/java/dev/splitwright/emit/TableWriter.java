@@ -106,17 +106,7 @@ final class TableWriter {
 
   private void addEnsembleMethods(TreeEnsemble trees, EmitOptions options) {
     EnsembleVotes.addEntries(type, trees, input, options.probabilities());
-    MethodSpec.Builder scores = EnsembleVotes.scoresStart(trees, input);
-    if (input.named()) {
-      scores.addStatement("$T[] x = $L", input.elementType(), input.asArray());
-    }
-    boolean forest = trees.kind() == TreeEnsemble.Kind.FOREST;
-    type.addMethod(scores
-        .beginControlFlow("for (int j = 0; j < $L; j++)", trees.treeCount())
-        .addStatement("out[leaf(x, ROOT[j])] += $L", forest ? "1f" : "WEIGHT[j]")
-        .endControlFlow()
-        .addStatement("return out")
-        .build());
+    EnsembleVotes.addLoopedScores(type, trees, input, "ROOT[j]");
     type.addMethod(walk());
   }
 
@@ -197,22 +187,7 @@ final class TableWriter {
   private CodeBlock addEnsembleFields(TreeEnsemble trees) {
     type.addField(array("ROOT", TypeName.INT, trees.treeCount(),
         "Per tree, in combination order: the index of its root node."));
-    if (trees.kind() == TreeEnsemble.Kind.FOREST) {
-      return CodeBlock.of("");
-    }
-    type.addField(array("WEIGHT", TypeName.FLOAT, trees.treeCount(),
-        "Per tree: the weight of its vote."));
-    PackedInts bits = new PackedInts();
-    for (int t = 0; t < trees.treeCount(); t++) {
-      bits.addFloat(trees.weight(t));
-    }
-    return CodeBlock.builder()
-        .add("// The tree weights as IEEE 754 bits.\n")
-        .addStatement("int[] weights = $L", StringTable.unpack(bits))
-        .beginControlFlow("for (int t = 0; t < $L; t++)", trees.treeCount())
-        .addStatement("WEIGHT[t] = Float.intBitsToFloat(weights[t])")
-        .endControlFlow()
-        .build();
+    return EnsembleVotes.addWeights(type, trees);
   }
 
   private int setOffset(CategoricalSplit split) {

@@ -3,6 +3,8 @@ package dev.splitwright.cgen;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
+import dev.splitwright.data.Feature;
+import dev.splitwright.data.Schema;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.Layout;
@@ -19,12 +21,15 @@ import java.util.List;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.EnumSource;
 
 /**
- * Ensembles emitted as C: each tree a {@code static} function, {@code classify} adding the votes
- * in float. Built with gcc and {@code -ffp-contract=off} ({@link Gcc#STRICT}) on x86-64, where
- * FLT_EVAL_METHOD is 0 (SSE arithmetic, System V AMD64 ABI), they must give {@link TreeEnsemble}'s
- * classes and shares bit for bit: IEEE 754 binary32 addition and division are correctly rounded.
+ * Ensembles emitted as C in every layout: the trees as {@code static} functions or one table,
+ * {@code classify} adding the votes in float. Built with gcc and {@code -ffp-contract=off}
+ * ({@link Gcc#STRICT}) on x86-64, where FLT_EVAL_METHOD is 0 (SSE arithmetic, System V AMD64
+ * ABI), they must give {@link TreeEnsemble}'s classes and shares bit for bit: IEEE 754 binary32
+ * addition and division are correctly rounded.
  */
 class CEnsembleTest {
   private static final int ENSEMBLES = Integer.getInteger("cgen.randomEnsembles", 150);
@@ -57,7 +62,7 @@ class CEnsembleTest {
   private static CBatch.Case newCase(String base, SplittableRandom random) {
     TreeEnsemble ensemble = RandomEnsembles.ensemble(random);
     CEmitOptions options = new CEmitOptions(base,
-        random.nextBoolean() ? Layout.BRANCHES : Layout.TABLE,
+        List.of(Layout.BRANCHES, Layout.TABLE, Layout.FLAT).get(random.nextInt(3)),
         random.nextInt(3) == 0 ? InputKind.INT : InputKind.FLOAT,
         random.nextInt(3) > 0, random.nextInt(4) == 0);
     if (options.inputKind() == InputKind.FLOAT && random.nextInt(4) == 0) {
@@ -126,6 +131,36 @@ class CEnsembleTest {
         HarnessData.packFloats(inputs, 1), inputs);
     // v = 0: the tie breaks the other way (b); v = 1: the shares' bits change.
     assertThat(report.mismatches()).isPositive();
+  }
+
+  @ParameterizedTest
+  @EnumSource(value = Layout.class, names = {"BRANCHES", "TABLE", "FLAT"})
+  void aThresholdOneUlpOffInALaterTreeIsCaught(Layout layout) throws IOException {
+    assumeTrue(Gcc.available(), "gcc is needed to build emitted C");
+    Schema schema = new Schema(List.of(Feature.numeric("v")), "y", List.of("a", "b"));
+    DecisionTree first = new DecisionTree(schema, new Leaf(0, ClassCounts.of(2, 0)));
+    TreeEnsemble ensemble = TreeEnsemble.boosted(List.of(first, splitAt(schema, 0.5f)),
+        new float[] {0.1f, 0.3f});
+    TreeEnsemble moved = TreeEnsemble.boosted(List.of(first,
+        splitAt(schema, Math.nextUp(0.5f))), new float[] {0.1f, 0.3f});
+    CEmitOptions options = new CEmitOptions("later", layout, InputKind.FLOAT, false, false);
+    // Worked by hand: at v = nextUp(0.5f) tree 1 goes right (class b, 0.3 against a's 0.1) with
+    // the threshold 0.5f but left with nextUp(0.5f) (IEEE 754 nextUp), and class a wins.
+    List<float[]> inputs = List.of(new float[] {0.5f}, new float[] {Math.nextUp(0.5f)});
+    COracle.Report exact = COracle.compare(dir, ensemble, options,
+        CEmitter.emit(ensemble, options, HeaderInfo.none()),
+        HarnessData.packFloats(inputs, 1), inputs);
+    COracle.Report off = COracle.compare(dir, ensemble, options,
+        CEmitter.emit(moved, options, HeaderInfo.none()),
+        HarnessData.packFloats(inputs, 1), inputs);
+    assertThat(exact.mismatches()).as(exact.describe()).isZero();
+    assertThat(off.mismatches()).isEqualTo(1);
+  }
+
+  private static DecisionTree splitAt(Schema schema, float threshold) {
+    return new DecisionTree(schema, new NumericSplit(0, threshold, false,
+        new Leaf(0, ClassCounts.of(2, 0)), new Leaf(1, ClassCounts.of(0, 2)),
+        ClassCounts.of(2, 2)));
   }
 
   @Test

@@ -4,13 +4,14 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import dev.splitwright.demo.DemoFiles;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
-/** The flat layout holds single trees: ensembles with it are refused, and a budget keeps trees. */
+/** The flat layout holds ensembles too: they are emitted and proved, and a budget tries them. */
 class FlatKindsTest {
   @TempDir Path temp;
 
@@ -22,27 +23,32 @@ class FlatKindsTest {
   }
 
   @Test
-  void aBudgetWithTheFlatLayoutSearchesTreesAlone() throws Exception {
-    Path out = temp.resolve("tree");
+  void aBudgetWithTheFlatLayoutSearchesEveryKind() throws Exception {
+    Path out = temp.resolve("all");
     CliRun run = CliRun.of(args(out, "--budget", "4KiB", "--max-depth", "3"));
 
     assertThat(run.exitCode()).as(run.err()).isZero();
     assertThat(new ObjectMapper().readTree(out.resolve("P.report.json").toFile())
-        .get("selection").get("kinds").toString()).isEqualTo("[\"tree\"]");
+        .get("selection").get("kinds").toString())
+        .isEqualTo("[\"tree\",\"forest\",\"boosted\"]");
   }
 
   @Test
-  void ensemblesWithTheFlatLayoutAreRefusedInOneLine() {
-    for (String[] extra : List.of(new String[] {"--budget", "4KiB", "--kinds", "tree,forest"},
-        new String[] {"--forest", "4", "--max-depth", "3"},
-        new String[] {"--boosted", "4", "--max-depth", "3", "--emit", "c"})) {
-      Path out = temp.resolve("refused");
-      CliRun run = CliRun.of(args(out, extra));
+  void aFlatForestIsEmittedAndProvedInJava() throws Exception {
+    Path out = temp.resolve("forest");
+    CliRun run = CliRun.of(args(out, "--forest", "4", "--max-depth", "3"));
 
-      assertThat(run.exitCode()).as(String.join(" ", extra)).isEqualTo(2);
-      assertThat(run.err().strip().lines()).hasSize(1);
-      assertThat(run.err()).contains("flat").contains("single trees");
-      assertThat(out).doesNotExist();
-    }
+    assertThat(run.exitCode()).as(run.err()).isZero();
+    assertThat(run.out()).contains("0 mismatches");
+    assertThat(Files.readString(out.resolve("P.java"))).contains("int leaf(float[] x, int t)");
+  }
+
+  @Test
+  void aFlatBoostedEnsembleIsEmittedAndProvedInC() throws Exception {
+    Path out = temp.resolve("boosted");
+    CliRun run = CliRun.of(args(out, "--boosted", "4", "--max-depth", "3", "--emit", "c"));
+
+    assertThat(run.exitCode()).as(run.err()).isZero();
+    assertThat(run.out()).contains("emitted: c", "0 mismatches");
   }
 }

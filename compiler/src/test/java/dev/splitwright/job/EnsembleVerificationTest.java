@@ -69,7 +69,7 @@ class EnsembleVerificationTest {
   }
 
   @ParameterizedTest
-  @EnumSource(value = Layout.class, names = {"BRANCHES", "TABLE"})
+  @EnumSource(value = Layout.class, names = {"BRANCHES", "TABLE", "FLAT"})
   void aThresholdOneUlpOffInTree1IsCaught(Layout layout) throws Exception {
     assertCaught(request(TreeEnsemble.Kind.FOREST, layout), ensemble -> {
       List<DecisionTree> trees = new ArrayList<>(ensemble.trees());
@@ -83,7 +83,7 @@ class EnsembleVerificationTest {
   }
 
   @ParameterizedTest
-  @EnumSource(value = Layout.class, names = {"BRANCHES", "TABLE"})
+  @EnumSource(value = Layout.class, names = {"BRANCHES", "TABLE", "FLAT"})
   void aWeightOneUlpOffInTree2IsCaught(Layout layout) throws Exception {
     assertCaught(request(TreeEnsemble.Kind.BOOSTED, layout), ensemble -> {
       float[] weights = new float[ensemble.treeCount()];

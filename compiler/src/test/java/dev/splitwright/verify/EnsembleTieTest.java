@@ -23,7 +23,7 @@ import org.junit.jupiter.params.provider.EnumSource;
 class EnsembleTieTest {
 
   @ParameterizedTest
-  @EnumSource(value = Layout.class, names = {"BRANCHES", "TABLE"})
+  @EnumSource(value = Layout.class, names = {"BRANCHES", "TABLE", "FLAT"})
   void tiedVotesGoToTheLowestClassIndex(Layout layout) throws Exception {
     Schema schema = new Schema(List.of(Feature.numeric("v")), "y", List.of("a", "b", "c"));
     // Tree 0 votes c for v <= 0.5, else b; tree 1 always votes b; tree 2 votes a for v <= 0.5,

@@ -15,7 +15,9 @@ import dev.splitwright.emit.InputKind;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.emit.RandomTrees;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.train.CartTrainer;
 import dev.splitwright.train.TrainingOptions;
 import java.nio.file.Path;
@@ -84,32 +86,42 @@ class FlatLayoutTest {
       Dataset data = CsvLoader.load(Path.of("src/test/resources/datasets", set[0]),
           LoadOptions.builder().target(set[1]).build()).dataset();
       DecisionTree tree = CartTrainer.train(data, TrainingOptions.builder().maxDepth(8).build());
+      // An ensemble's walk takes its odd first level by arithmetic: trees of odd and even depth.
+      TreeEnsemble forest = TreeEnsemble.forest(List.of(tree,
+          CartTrainer.train(data, TrainingOptions.builder().maxDepth(5).build())));
       for (InputKind kind : InputKind.values()) {
-        EmitOptions options = EmitOptions.builder("check", "Flat")
-            .layout(Layout.FLAT).inputKind(kind).build();
-        EmittedSource source = JavaEmitter.emit(tree, options, HeaderInfo.none());
-        byte[] bytes = VERIFIER.compiler().compileOne(source.qualifiedName(), source.source())
-            .bytes(source.qualifiedName());
-        // The decision at a slot is arithmetic alone: no conditional branch (JVMS §6.5 if<cond>,
-        // if_icmp<cond>, ifnull), no switch (MethodOpcodes refuses those).
-        assertThat(MethodOpcodes.of(bytes, "right"))
-            .as(kind.optionName()).noneMatch(MethodOpcodes.Instruction::conditionalBranch);
-        List<MethodOpcodes.Instruction> code = MethodOpcodes.of(bytes, "leaf");
-        List<MethodOpcodes.Instruction> tests =
-            code.stream().filter(MethodOpcodes.Instruction::conditionalBranch).toList();
-        List<MethodOpcodes.Instruction> gotos =
-            code.stream().filter(MethodOpcodes.Instruction::isGoto).toList();
-        // One conditional branch, the loop's exit, and one goto, the back edge to it (javac's
-        // shape of a for loop), so the walk branches on nothing but its step count.
-        assertThat(tests).as(kind.optionName()).hasSize(1);
-        assertThat(gotos).hasSize(1);
-        // The back edge lands on the loads of the loop test: the step and the step count.
-        assertThat(gotos.get(0).target()).isBetween(tests.get(0).offset() - 4,
-            tests.get(0).offset() - 2);
-        int afterGoto = code.get(code.indexOf(gotos.get(0)) + 1).offset();
-        assertThat(tests.get(0).target()).isEqualTo(afterGoto);
+        for (Classifier model : List.<Classifier>of(tree, forest)) {
+          assertWalkBranchesOnItsStepCount(model, kind);
+        }
       }
     }
+  }
+
+  private static void assertWalkBranchesOnItsStepCount(Classifier model, InputKind kind)
+      throws Exception {
+    EmitOptions options = EmitOptions.builder("check", "Flat")
+        .layout(Layout.FLAT).inputKind(kind).build();
+    EmittedSource source = JavaEmitter.emit(model, options, HeaderInfo.none());
+    byte[] bytes = VERIFIER.compiler().compileOne(source.qualifiedName(), source.source())
+        .bytes(source.qualifiedName());
+    // The decision at a slot is arithmetic alone: no conditional branch (JVMS §6.5 if<cond>,
+    // if_icmp<cond>, ifnull), no switch (MethodOpcodes refuses those).
+    assertThat(MethodOpcodes.of(bytes, "right"))
+        .as(kind.optionName()).noneMatch(MethodOpcodes.Instruction::conditionalBranch);
+    List<MethodOpcodes.Instruction> code = MethodOpcodes.of(bytes, "leaf");
+    List<MethodOpcodes.Instruction> tests =
+        code.stream().filter(MethodOpcodes.Instruction::conditionalBranch).toList();
+    List<MethodOpcodes.Instruction> gotos =
+        code.stream().filter(MethodOpcodes.Instruction::isGoto).toList();
+    // One conditional branch, the loop's exit, and one goto, the back edge to it (javac's
+    // shape of a for loop), so the walk branches on nothing but its step count.
+    assertThat(tests).as(kind.optionName()).hasSize(1);
+    assertThat(gotos).hasSize(1);
+    // The back edge lands on the loads of the loop test: the step and the step count.
+    assertThat(gotos.get(0).target()).isBetween(tests.get(0).offset() - 4,
+        tests.get(0).offset() - 2);
+    int afterGoto = code.get(code.indexOf(gotos.get(0)) + 1).offset();
+    assertThat(tests.get(0).target()).isEqualTo(afterGoto);
   }
 
   @Test
