@@ -116,14 +116,7 @@ final class FlatWriter {
     type.addField(array("LEAF_FROM", TypeName.INT, trees,
         "Per tree of depth D: where its leaf slots start in LEAF, less 2^D - 1."));
     if (categorical) {
-      type.addField(array("SET_AT", TypeName.INT, splits,
-          "Per categorical slot: where its right-going code bits start in SETS."));
-      type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
-              Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
-          .addJavadoc("Per categorical split: k, then words with bit c set when code c goes"
-              + " right;\nbit k for a missing or unknown code.\n")
-          .initializer(StringTable.unpack(sets))
-          .build());
+      addSetFields(splits, sets);
     }
     support.need(SupportMethods.Kind.UNPACK);
     CodeBlock weights = EnsembleVotes.addWeights(type, ensemble);
@@ -291,14 +284,7 @@ final class FlatWriter {
     type.addField(array("LEAF", TypeName.INT, 1 << d,
         "Per leaf slot (complete-tree slot " + ((1 << d) - 1) + " + j): the result."));
     if (flat.hasCategorical()) {
-      type.addField(array("SET_AT", TypeName.INT, flat.splitSlots(),
-          "Per categorical slot: where its right-going code bits start in SETS."));
-      type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
-              Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
-          .addJavadoc("Per categorical split: k, then words with bit c set when code c goes"
-              + " right;\nbit k for a missing or unknown code.\n")
-          .initializer(StringTable.unpack(sets))
-          .build());
+      addSetFields(flat.splitSlots(), sets);
     }
     support.need(SupportMethods.Kind.UNPACK);
     CodeBlock leafInit = leaves.addFields(type, support);
@@ -351,6 +337,18 @@ final class FlatWriter {
         .addStatement("slot = 2 * slot + 1")
         .endControlFlow()
         .build();
+  }
+
+  /** {@code SET_AT} and {@code SETS}: the categorical splits' right-going codes. */
+  private void addSetFields(int splitSlots, PackedInts sets) {
+    type.addField(array("SET_AT", TypeName.INT, splitSlots,
+        "Per categorical slot: where its right-going code bits start in SETS."));
+    type.addField(FieldSpec.builder(ArrayTypeName.of(TypeName.INT), "SETS",
+            Modifier.PRIVATE, Modifier.STATIC, Modifier.FINAL)
+        .addJavadoc("Per categorical split: k, then words with bit c set when code c goes"
+            + " right;\nbit k for a missing or unknown code.\n")
+        .initializer(StringTable.unpack(sets))
+        .build());
   }
 
   private static FieldSpec array(String name, TypeName element, int length, String doc) {
