@@ -34,17 +34,20 @@ final class JavacWarmUp {
   /** Starts the warm-up; the returned action stops it after its current compilation. */
   static Runnable start(EmitOptions options, Verifier verifier) {
     AtomicBoolean stop = new AtomicBoolean();
-    Thread thread = new Thread(() -> run(options, verifier, stop), "splitwright-javac-warm-up");
+    // Counted here, not on the new thread, so that a compilation right after start is the job's.
+    int before = verifier.compiler().calls();
+    Thread thread = new Thread(() -> run(options, verifier, stop, before),
+        "splitwright-javac-warm-up");
     thread.setDaemon(true);
     thread.start();
     return () -> stop.set(true);
   }
 
-  private static void run(EmitOptions options, Verifier verifier, AtomicBoolean stop) {
+  private static void run(EmitOptions options, Verifier verifier, AtomicBoolean stop,
+      int before) {
     try {
       DecisionTree tree = sampleTree();
       InMemoryCompiler compiler = verifier.compiler();
-      int before = compiler.calls();
       // Once the job has compiled anything, its own work is warming javac up.
       for (int i = 0; i < ROUNDS && !stop.get() && compiler.calls() == before + i; i++) {
         EmittedSource source = JavaEmitter.emit(tree, options, HeaderInfo.none());
