@@ -58,19 +58,38 @@ final class SourceLines {
   }
 
   private static void wrapLine(String text, int width, List<String> out) {
-    String rest = text;
-    while (width(rest) > width) {
+    int start = 0;
+    while (wider(text, start, width)) {
+      // Only the next line's worth of text decides where it breaks: looking at that window, not
+      // the whole rest, keeps a megabyte-long word linear instead of quadratic.
+      String rest = text.substring(start, Math.min(text.length(), start + width + 2));
       int cut = lastSpaceWithin(rest, width);
       if (cut > 0) {
         out.add(rest.substring(0, cut).stripTrailing());
-        rest = rest.substring(cut + 1);
+        start += cut + 1;
         continue;
       }
       cut = lastSafeCutWithin(rest, width);
-      out.add(rest.substring(0, cut));
-      rest = rest.substring(cut);
+      if (cut == rest.length() && start + cut < text.length()) {
+        // No harmless cut in the window at all: look further, as far as it takes.
+        cut = lastSafeCutWithin(text.substring(start), width);
+      }
+      out.add(text.substring(start, start + cut));
+      start += cut;
     }
-    out.add(rest);
+    out.add(text.substring(start));
+  }
+
+  /** Whether {@code text} from {@code start} takes more than {@code width} columns. */
+  private static boolean wider(String text, int start, int width) {
+    int columns = 0;
+    for (int i = start; i < text.length(); i++) {
+      columns += text.charAt(i) > 0x7e ? 6 : 1;
+      if (columns > width) {
+        return true;
+      }
+    }
+    return false;
   }
 
   /** The index of the last space whose text before it fits {@code width}, or -1. */

@@ -2,11 +2,27 @@ package dev.splitwright.emit;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.junit.jupiter.api.Assertions.assertTimeoutPreemptively;
 
+import java.time.Duration;
+import java.util.List;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 
 class JavaTextTest {
+
+  @Test
+  void wrapsAMegabyteWordInLinearTime() {
+    // A 2 MB field from a CSV (the fuzzer's case) once took minutes: each line re-measured the
+    // whole rest. Now each line looks at one line's worth of text.
+    String word = "ab".repeat(1 << 20);
+    List<String> lines = assertTimeoutPreemptively(Duration.ofSeconds(5),
+        () -> SourceLines.wrap(word, 80));
+
+    assertThat(lines).hasSize((word.length() + 79) / 80)
+        .allMatch(line -> line.length() <= 80);
+    assertThat(String.join("", lines)).isEqualTo(word);
+  }
 
   @Test
   void floatLiteralsReadBackExactly() {
