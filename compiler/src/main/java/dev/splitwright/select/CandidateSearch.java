@@ -15,9 +15,6 @@ import java.util.OptionalInt;
  * compiled and ranks those within the budget. Test rows are never looked at.
  */
 final class CandidateSearch {
-  /** Trees per call of {@link SearchMeter#measure}, between progress updates. */
-  static final int CHUNK = 100;
-
   private final SearchSettings settings;
   private final SearchProgress progress;
 

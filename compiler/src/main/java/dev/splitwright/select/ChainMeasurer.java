@@ -5,13 +5,13 @@ import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.model.Classifier;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Comparator;
 import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.TreeMap;
 
 /**
  * Measures the search's candidates chain by chain, in rounds of one batch each. A round takes, from
@@ -24,6 +24,8 @@ import java.util.Optional;
 final class ChainMeasurer {
   /** Node counts of candidates measured ahead of any guess: a handful of splits each. */
   static final int SMALL_NODES = 15;
+  /** Candidates per call of {@link SearchMeter#measure}, between progress updates. */
+  static final int CHUNK = 100;
 
   private final SearchSettings settings;
   private final SearchMeter<?> meter;
@@ -50,7 +52,8 @@ final class ChainMeasurer {
   }
 
   Result measure(List<CandidateChain> chains, HeaderInfo header) throws InputException {
-    Map<Integer, DistinctTree> built = new HashMap<>();
+    // By index, so that the candidates come out in generation order.
+    Map<Integer, DistinctTree> built = new TreeMap<>();
     Map<Integer, SearchMeter.Measured> sizes = new HashMap<>();
     SizeGuess guess = new SizeGuess();
     int[] next = new int[chains.size()];
@@ -97,9 +100,7 @@ final class ChainMeasurer {
       measureRound(new ArrayList<>(due.values()), header, sizes, guess);
       due.values().forEach(t -> built.put(t.index(), t));
     }
-    List<DistinctTree> measured = new ArrayList<>(built.values());
-    measured.sort(Comparator.comparingInt(DistinctTree::index));
-    return new Result(measured, sizes, skipped);
+    return new Result(new ArrayList<>(built.values()), sizes, skipped);
   }
 
   /** The last position to measure this round, from {@code first} on. */
@@ -127,9 +128,9 @@ final class ChainMeasurer {
       Map<Integer, SearchMeter.Measured> sizes, SizeGuess guess) throws InputException {
     int done = sizes.size();
     int total = done + due.size();
-    for (int start = 0; start < due.size(); start += CandidateSearch.CHUNK) {
+    for (int start = 0; start < due.size(); start += CHUNK) {
       List<DistinctTree> chunk =
-          due.subList(start, Math.min(due.size(), start + CandidateSearch.CHUNK));
+          due.subList(start, Math.min(due.size(), start + CHUNK));
       List<Classifier> models = chunk.stream().map(DistinctTree::model).toList();
       List<SearchMeter.Measured> measured = meter.measure(models, header);
       for (int i = 0; i < chunk.size(); i++) {

@@ -14,21 +14,11 @@ import java.util.List;
 /**
  * Trains the search's ensembles. Both trainers draw tree t's randomness from the t-th split of one
  * seeded generator and boosting's rounds are sequential, so the first k trees of an ensemble of n
- * are exactly the ensemble of k: one ensemble of the largest size is trained per kind, depth and
- * leaf size, and every smaller size is its prefix.
+ * are exactly the ensemble of k: one ensemble of the largest size wanted is trained per kind,
+ * depth and leaf size, and every smaller size is its prefix.
  */
 final class EnsembleGrower {
   private EnsembleGrower() {}
-
-  /**
-   * The ensembles of {@code kind} of every size in {@code settings.ensembleSizes()} that training
-   * reached (boosting may stop early), ascending by size.
-   */
-  static List<TreeEnsemble> grow(Dataset rows, SearchSettings settings, ModelKind kind,
-      int maxDepth, int minLeaf) {
-    List<Integer> sizes = settings.ensembleSizes();
-    return grow(rows, settings, kind, maxDepth, minLeaf, sizes.get(sizes.size() - 1));
-  }
 
   /**
    * The ensembles of {@code kind} of every size in {@code settings.ensembleSizes()} up to {@code
