@@ -76,8 +76,7 @@ final class FlatWriter {
     writer.addEnsembleTables(ensemble);
     EnsembleVotes.addEntries(type, ensemble, input, options.probabilities());
     EnsembleVotes.addLoopedScores(type, ensemble, input, "j");
-    type.addMethod(writer.ensembleWalk());
-    type.addMethod(writer.right());
+    writer.addEnsembleMethods();
     support.addTo(type);
     return ClassScaffold.finish(type.build(), options, header);
   }
@@ -158,10 +157,7 @@ final class FlatWriter {
         .addStatement("continue")
         .endControlFlow()
         .addStatement("NODE[base + slot] = head >>> 1");
-    String key = switch (input.kind()) {
-      case DOUBLE -> "(long) tree[at++] << 32 | (tree[at++] & 0xffffffffL)";
-      case FLOAT, INT -> "tree[at++]";
-    };
+    String key = keyDecoder();
     if (categorical) {
       code.beginControlFlow("if ((head & $L) != 0)", FlatTree.CATEGORICAL << 1)
           .addStatement("int set = tree[at++]")
@@ -186,28 +182,41 @@ final class FlatWriter {
    * {@code leaf(x, t)}: tree t's walk, two levels a step as for a single tree. An odd depth takes
    * its first level alone, by arithmetic: the root's outcome, masked to 0 for an even depth.
    */
-  private MethodSpec ensembleWalk() {
+  private void addEnsembleMethods() {
+    if (finiteWalk()) {
+      type.addMethod(dispatch("walkFinite", "walk", "t"));
+      type.addMethod(special());
+      type.addMethod(ensembleWalk("walkFinite", "over", "rows whose values are all finite"));
+      type.addMethod(ensembleWalk("walk", "right", "any row"));
+      type.addMethod(over());
+    } else {
+      type.addMethod(ensembleWalk("leaf", "right", "any row"));
+    }
+    type.addMethod(right());
+  }
+
+  private MethodSpec ensembleWalk(String name, String decide, String rows) {
     CodeBlock code = CodeBlock.builder()
         .addStatement("int base = SPLIT_AT[t]")
         .addStatement("int d = DEPTH[t]")
         .add("// Slot 1 + right at the root for an odd depth, else the root itself.\n")
-        .addStatement("int i = (1 + right(x, base)) & -(d & 1)")
+        .addStatement("int i = (1 + $L(x, base)) & -(d & 1)", decide)
         .addStatement("int steps = d >>> 1")
         .beginControlFlow("for (int step = 0; step < steps; step++)")
-        .addStatement("int r = right(x, base + i)")
-        .addStatement("int b = right(x, base + 2 * i + 1)")
-        .addStatement("int c = right(x, base + 2 * i + 2)")
+        .addStatement("int r = $L(x, base + i)", decide)
+        .addStatement("int b = $L(x, base + 2 * i + 1)", decide)
+        .addStatement("int c = $L(x, base + 2 * i + 2)", decide)
         .add("// Grandchild 4i + 3 + 2r + s; s decides child 2i + 1 + r: c if r, else b.\n")
         .addStatement("i = 4 * i + 3 + 2 * r + (b ^ ((b ^ c) & -r))")
         .endControlFlow()
         .addStatement("return LEAF[LEAF_FROM[t] + i]")
         .build();
-    return MethodSpec.methodBuilder("leaf")
+    return MethodSpec.methodBuilder(name)
         .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
         .returns(TypeName.INT)
         .addJavadoc("Walks tree {@code t}'s complete tree from its root to a leaf slot, two levels"
-            + " a step.\n\n"
-            + "@param x the feature values in input order\n"
+            + " a step, for $L.\n\n", rows)
+        .addJavadoc("@param x the feature values in input order\n"
             + "@param t the tree, in combination order\n"
             + "@return the class the leaf holds\n")
         .addParameter(ArrayTypeName.of(input.elementType()), "x")
@@ -219,26 +228,39 @@ final class FlatWriter {
   private String keyDoc() {
     return switch (input.kind()) {
       case INT -> "Per split slot: go right when the value is above this.";
-      case FLOAT -> "Per split slot: go right when the value's order key, less the slot's low"
-          + " end,\nis above this as an unsigned number (see right).";
-      case DOUBLE -> "Per split slot: go right when the value's order key is above this.";
+      case FLOAT, DOUBLE -> "Per split slot: the threshold; go right when the value is above it"
+          + " (-0.0 is\nstored as 0.0, so both zeros go left of either).";
     };
   }
 
   private TypeName keyType() {
-    return input.kind() == InputKind.DOUBLE ? TypeName.LONG : TypeName.INT;
+    return switch (input.kind()) {
+      case INT -> TypeName.INT;
+      case FLOAT -> TypeName.FLOAT;
+      case DOUBLE -> TypeName.DOUBLE;
+    };
+  }
+
+  /** The decoder's expression for a numeric slot's key: the threshold from its packed bits. */
+  private String keyDecoder() {
+    return switch (input.kind()) {
+      case DOUBLE ->
+          "Double.longBitsToDouble((long) tree[at++] << 32 | (tree[at++] & 0xffffffffL))";
+      case FLOAT -> "Float.intBitsToFloat(tree[at++])";
+      case INT -> "tree[at++]";
+    };
   }
 
   /** Where the keys that go left start for float input: {@link #right()} explains. */
   private static final int FLOAT_LOW = 0x7f800001;
 
   /**
-   * The low end of the keys that go left at a numeric float slot with node word {@code node}:
-   * just above +infinity's key when NaN goes left, so the left keys run from there round through
-   * the negative NaNs up to the threshold's; -infinity's key when NaN goes right.
+   * Whether finite rows get a walk of their own ({@link #over()}): for float and double input
+   * without categorical slots. A subtraction decides a finite value in fewer steps than the order
+   * keys, which only missing and infinite values need.
    */
-  private static int floatLow(int node) {
-    return (node & FlatTree.NAN_RIGHT) != 0 ? -FLOAT_LOW : FLOAT_LOW;
+  private boolean finiteWalk() {
+    return input.kind() != InputKind.INT && !categorical;
   }
 
   /** Appends {@code tree}'s nodes in pre-order to {@code data}, its code sets to {@code sets}. */
@@ -253,9 +275,11 @@ final class FlatWriter {
       if (slot.node() instanceof NumericSplit) {
         long key = tree.key(i);
         if (input.kind() == InputKind.DOUBLE) {
-          data.add((int) (key >>> 32)).add((int) key);
+          // The order key is its own inverse: these are the threshold's bits.
+          long bits = key ^ ((key >> 63) & Long.MAX_VALUE);
+          data.add((int) (bits >>> 32)).add((int) bits);
         } else if (input.kind() == InputKind.FLOAT) {
-          data.add((int) key - floatLow(tree.node(i)));
+          data.add((int) key ^ (((int) key >> 31) & 0x7fffffff));
         } else {
           data.add((int) key);
         }
@@ -318,10 +342,7 @@ final class FlatWriter {
         .addStatement("continue")
         .endControlFlow()
         .addStatement("NODE[slot] = head >>> 1");
-    String key = switch (input.kind()) {
-      case DOUBLE -> "(long) tree[at++] << 32 | (tree[at++] & 0xffffffffL)";
-      case FLOAT, INT -> "tree[at++]";
-    };
+    String key = keyDecoder();
     if (flat.hasCategorical()) {
       code.beginControlFlow("if ((head & $L) != 0)", FlatTree.CATEGORICAL << 1)
           .addStatement("int set = tree[at++]")
@@ -373,7 +394,15 @@ final class FlatWriter {
     if (leaves.probabilities()) {
       type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
     }
-    type.addMethod(walk());
+    if (finiteWalk() && flat.depth() > 0) {
+      type.addMethod(dispatch("walkFinite", "walk"));
+      type.addMethod(special());
+      type.addMethod(walk("walkFinite", "over", "rows whose values are all finite"));
+      type.addMethod(walk("walk", "right", "any row"));
+      type.addMethod(over());
+    } else {
+      type.addMethod(walk("leaf", "right", "any row"));
+    }
     if (flat.depth() > 0) {
       type.addMethod(right());
     }
@@ -385,30 +414,106 @@ final class FlatWriter {
    * chain of dependent loads is half as long as one level a step. The only conditional branch is
    * the loop's own test of the step count, which goes the same way for every input.
    */
-  private MethodSpec walk() {
+  private MethodSpec walk(String name, String decide, String rows) {
     int d = flat.depth();
     CodeBlock.Builder code = CodeBlock.builder().addStatement("int i = 0");
     if (d >= 2) {
       code.beginControlFlow("for (int step = 0; step < $L; step++)", d / 2)
-          .addStatement("int r = right(x, i)")
-          .addStatement("int b = right(x, 2 * i + 1)")
-          .addStatement("int c = right(x, 2 * i + 2)")
+          .addStatement("int r = $L(x, i)", decide)
+          .addStatement("int b = $L(x, 2 * i + 1)", decide)
+          .addStatement("int c = $L(x, 2 * i + 2)", decide)
           .add("// Grandchild 4i + 3 + 2r + s; s decides child 2i + 1 + r: c if r, else b.\n")
           .addStatement("i = 4 * i + 3 + 2 * r + (b ^ ((b ^ c) & -r))")
           .endControlFlow();
     }
     if (d % 2 == 1) {
-      code.addStatement("i = 2 * i + 1 + right(x, i)");
+      code.addStatement("i = 2 * i + 1 + $L(x, i)", decide);
     }
     code.addStatement("return LEAF[i - $L]", (1 << d) - 1);
+    MethodSpec.Builder leaf = MethodSpec.methodBuilder(name)
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc("Walks the complete tree from the root to a leaf slot, two levels a step, for"
+            + " $L.\n\n"
+            + "@param x the feature values in input order\n"
+            + "@return what the leaf holds: its class, or its number with class probabilities\n",
+            rows)
+        .addParameter(ArrayTypeName.of(input.elementType()), "x");
+    return leaf.addCode(code.build()).build();
+  }
+
+  /**
+   * {@code leaf(x)} when finite rows have their own walk: a row with a missing or infinite value
+   * takes the general one. This branch is on the row, not on a comparison: it goes the same way
+   * for every row a working sensor sends.
+   */
+  private MethodSpec dispatch(String walkFinite, String walkAny, String... more) {
+    String args = more.length == 0 ? "x" : "x, " + String.join(", ", more);
     MethodSpec.Builder leaf = MethodSpec.methodBuilder("leaf")
         .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
         .returns(TypeName.INT)
-        .addJavadoc("Walks the complete tree from the root to a leaf slot, two levels a step.\n\n"
-            + "@param x the feature values in input order\n"
-            + "@return what the leaf holds: its class, or its number with class probabilities\n")
+        .addJavadoc("Takes the finite rows' walk unless a value is missing or infinite.\n\n"
+            + "@param x the feature values in input order\n")
         .addParameter(ArrayTypeName.of(input.elementType()), "x");
-    return leaf.addCode(code.build()).build();
+    for (String p : more) {
+      leaf.addParameter(TypeName.INT, p);
+    }
+    return leaf.beginControlFlow("if (special(x) < 0)")
+        .addStatement("return $L($L)", walkAny, args)
+        .endControlFlow()
+        .addStatement("return $L($L)", walkFinite, args)
+        .build();
+  }
+
+  /** {@code special(x)}: negative when some value is NaN or infinite, by arithmetic alone. */
+  private MethodSpec special() {
+    boolean dbl = input.kind() == InputKind.DOUBLE;
+    CodeBlock.Builder code = CodeBlock.builder()
+        .add("// Magnitude bits above the largest finite value's mean NaN or infinity (IEEE\n"
+            + "// 754-2019 section 3.4): the difference is then negative.\n")
+        .addStatement("$L odd = 0", dbl ? "long" : "int")
+        .beginControlFlow("for (int f = 0; f < x.length; f++)");
+    if (dbl) {
+      code.addStatement("odd |= 0x7fefffffffffffffL - (Double.doubleToRawLongBits(x[f])"
+          + " & Long.MAX_VALUE)");
+    } else {
+      code.addStatement("odd |= 0x7f7fffff - (Float.floatToRawIntBits(x[f]) & 0x7fffffff)");
+    }
+    code.endControlFlow().addStatement("return $L", dbl ? "(int) (odd >> 32)" : "odd");
+    return MethodSpec.methodBuilder("special")
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc("Tells, by its sign, whether a value is missing or infinite.\n\n"
+            + "@param x the feature values in input order\n"
+            + "@return a negative number when some value is NaN or infinite, else zero or more\n")
+        .addParameter(ArrayTypeName.of(input.elementType()), "x")
+        .addCode(code.build())
+        .build();
+  }
+
+  /**
+   * {@code over(x, i)}: the decision for a finite value, as the sign of threshold less value. For
+   * finite operands the difference is exact in sign and zero only when they are equal (IEEE
+   * 754-2019 §6.3: gradual underflow, so x - y = 0 only for x = y, and +0 in round to nearest);
+   * an infinite threshold gives an infinite difference of the right sign.
+   */
+  private MethodSpec over() {
+    boolean dbl = input.kind() == InputKind.DOUBLE;
+    return MethodSpec.methodBuilder("over")
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc("Decides split slot {@code i} for a finite value, without a conditional"
+            + " branch.\n\n"
+            + "@param x the feature values in input order, all finite\n"
+            + "@param i the split slot\n"
+            + "@return 1 when x goes right, 0 when it goes left\n")
+        .addParameter(ArrayTypeName.of(input.elementType()), "x")
+        .addParameter(TypeName.INT, "i")
+        .addStatement(dbl
+            ? "return (int) (Double.doubleToRawLongBits(KEY[i] - x[NODE[i] >>> $L]) >>> 63)"
+            : "return Float.floatToRawIntBits(KEY[i] - x[NODE[i] >>> $L]) >>> 31",
+            FlatTree.FEATURE_SHIFT)
+        .build();
   }
 
   /**
@@ -425,19 +530,22 @@ final class FlatWriter {
               + "// positive NaN's key is above +infinity's, a negative NaN's below -infinity's.\n")
           .addStatement("int bits = Float.floatToRawIntBits(v)")
           .addStatement("int key = bits ^ ((bits >> 31) & 0x7fffffff)")
+          .addStatement("int t = Float.floatToRawIntBits(KEY[i])")
+          .addStatement("t ^= (t >> 31) & 0x7fffffff")
           .add("// The keys that go left are one run, counted round the 32-bit circle from low:\n"
               + "// from -infinity's key if NaN goes right, else from just above +infinity's\n"
-              + "// (so through every NaN). KEY holds the threshold's key less low.\n")
+              + "// (so through every NaN).\n")
           .addStatement("int m = -(node & $L)", FlatTree.NAN_RIGHT)
           .addStatement("int low = ($L ^ m) - m", String.format(Locale.ROOT, "0x%08x", FLOAT_LOW))
-          .addStatement("int right = (int) (((KEY[i] & 0xffffffffL) - ((key - low) & 0xffffffffL))"
-              + " >>> 63)");
+          .addStatement("int right = (int) ((((t - low) & 0xffffffffL)"
+              + " - ((key - low) & 0xffffffffL)) >>> 63)");
       case DOUBLE -> code
           .addStatement("double v = x[node >>> $L]", FlatTree.FEATURE_SHIFT)
           .addStatement("long bits = Double.doubleToRawLongBits(v)")
           .addStatement("int nan = (int) ((0x7ff0000000000000L - (bits & Long.MAX_VALUE)) >> 63)")
           .addStatement("long key = bits ^ ((bits >> 63) & Long.MAX_VALUE)")
-          .addStatement("long t = KEY[i]")
+          .addStatement("long t = Double.doubleToRawLongBits(KEY[i])")
+          .addStatement("t ^= (t >> 63) & Long.MAX_VALUE")
           .add("// t < key without overflow: Hacker's Delight, 2nd ed., section 2-12.\n")
           .addStatement("int right = (int) (((t - key) ^ ((t ^ key) & ((t - key) ^ t))) >>> 63)")
           .addStatement("right = (right & ~nan) | (node & nan & $L)", FlatTree.NAN_RIGHT);
@@ -449,7 +557,7 @@ final class FlatWriter {
       code.add("// A categorical slot reads its code's bit; a code that is not a whole number in\n"
           + "// [0, k) reads bit k, the missing side. A numeric slot masks k to 0.\n")
           .addStatement("int cat = -((node >>> 1) & 1)")
-          .addStatement("int k = $LKEY[i] & cat", input.kind() == InputKind.DOUBLE ? "(int) " : "");
+          .addStatement("int k = $LKEY[i] & cat", input.kind() == InputKind.INT ? "" : "(int) ");
       if (input.kind() == InputKind.INT) {
         code.addStatement("int c = v")
             .addStatement("int bad = (c | (k - 1 - c)) >> 31");
