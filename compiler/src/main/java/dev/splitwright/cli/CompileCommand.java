@@ -199,6 +199,7 @@ final class CompileCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     languageOptions.checkOptions(spec.commandLine());
     CompileRequest request = request();
+    ShortRunJit.forData(request.data());
     PrintWriter stdout = spec.commandLine().getOut();
     PrintWriter stderr = spec.commandLine().getErr();
     Optional<SearchSettings> budget =

@@ -12,6 +12,7 @@ public final class Main {
   private Main() {}
 
   public static void main(String[] args) {
+    ShortRunJit.allow();
     System.exit(run(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true)));
   }
 

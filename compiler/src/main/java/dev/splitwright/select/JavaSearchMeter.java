@@ -68,13 +68,27 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
     if (!SecondJavac.AVAILABLE || dex.isPresent() || models.size() < 2) {
       return measure(models, header, meter);
     }
-    // Two halves at once: javac is most of a search's time, and one compilation uses one core.
-    int half = models.size() / 2;
+    // Two shares at once: javac is most of a search's time, and one compilation uses one core.
+    // Every other model each, since a batch runs from small to large.
+    List<Classifier> even = new ArrayList<>();
+    List<Classifier> odd = new ArrayList<>();
+    for (int i = 0; i < models.size(); i++) {
+      (i % 2 == 0 ? even : odd).add(models.get(i));
+    }
     Future<List<Measured>> second = SecondJavac.thread().submit(
-        () -> measure(models.subList(half, models.size()), header, secondMeter()));
-    List<Measured> measured = new ArrayList<>(measure(models.subList(0, half), header, meter));
+        () -> measure(odd, header, secondMeter()));
+    List<Measured> first = measure(even, header, meter);
+    List<Measured> rest = joined(second);
+    List<Measured> measured = new ArrayList<>(models.size());
+    for (int i = 0; i < models.size(); i++) {
+      measured.add((i % 2 == 0 ? first : rest).get(i / 2));
+    }
+    return measured;
+  }
+
+  private static <T> T joined(Future<T> task) {
     try {
-      measured.addAll(second.get());
+      return task.get();
     } catch (InterruptedException e) {
       Thread.currentThread().interrupt();
       throw new IllegalStateException("interrupted while measuring", e);
@@ -84,7 +98,6 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
       }
       throw new IllegalStateException(e.getCause());
     }
-    return measured;
   }
 
   private synchronized SizeMeter secondMeter() {
@@ -175,8 +188,15 @@ public final class JavaSearchMeter implements SearchMeter<LayoutChoice> {
   public ChosenBytes chosenBytes(Emitted<LayoutChoice> emitted) {
     EmittedSource source = emitted.emitted().source();
     Sizes sizes = emitted.sizes();
-    return new ChosenBytes(sizes.classFileBytes(), DebugSizes.noDebug(source),
-        DebugSizes.fullDebug(source), sizes.bytecodeBytes(), null);
+    if (!SecondJavac.AVAILABLE) {
+      return new ChosenBytes(sizes.classFileBytes(), DebugSizes.noDebug(source),
+          DebugSizes.fullDebug(source), sizes.bytecodeBytes(), null);
+    }
+    // Two more javac runs, each with its own compiler: one on each core.
+    Future<Integer> noDebug = SecondJavac.thread().submit(() -> DebugSizes.noDebug(source));
+    int fullDebug = DebugSizes.fullDebug(source);
+    return new ChosenBytes(sizes.classFileBytes(), joined(noDebug), fullDebug,
+        sizes.bytecodeBytes(), null);
   }
 
   @Override
