@@ -33,15 +33,28 @@ final class ShortRunJit {
     allowed = true;
   }
 
-  /** Applies {@link #NO_C2} when allowed and {@code csv} is a small file; never fails. */
+  /**
+   * Applies {@link #NO_C2} when allowed and {@code csv} is a small file, on a thread of its own:
+   * the platform MBean server takes a tenth of a second to start, which the job need not wait
+   * for. Never fails.
+   */
   static void forData(Path csv) {
     try {
-      if (allowed && Files.size(csv) <= SMALL_CSV_BYTES) {
-        add(NO_C2);
+      if (!allowed || Files.size(csv) > SMALL_CSV_BYTES) {
+        return;
       }
-    } catch (IOException | RuntimeException e) {
-      // Only a speed-up: a missing file is reported by the job, a refusal changes nothing.
+    } catch (IOException e) {
+      return; // the job reports the file
     }
+    Thread thread = new Thread(() -> {
+      try {
+        add(NO_C2);
+      } catch (IOException | RuntimeException e) {
+        // Only a speed-up: a refusal changes nothing.
+      }
+    }, "splitwright-jit-directive");
+    thread.setDaemon(true);
+    thread.start();
   }
 
   /**

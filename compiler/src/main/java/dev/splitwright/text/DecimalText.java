@@ -4,6 +4,7 @@ import java.math.BigDecimal;
 import java.math.BigInteger;
 import java.math.MathContext;
 import java.math.RoundingMode;
+import java.util.concurrent.atomic.AtomicReferenceArray;
 
 /**
  * Prints floats and doubles with our own exact arithmetic, so the text is the same on every JDK.
@@ -19,6 +20,14 @@ public final class DecimalText {
   private static final BigDecimal FLOAT_OVERFLOW = new BigDecimal(BigInteger.ONE.shiftLeft(128));
   private static final BigDecimal DOUBLE_OVERFLOW = new BigDecimal(BigInteger.ONE.shiftLeft(1024));
 
+  /** Slots of the float cache: a search prints the same thresholds in many candidates. */
+  private static final int CACHED_FLOATS = 4096;
+  private static final AtomicReferenceArray<Printed> FLOATS =
+      new AtomicReferenceArray<>(CACHED_FLOATS);
+
+  /** A float's bits and its text, immutable so that a slot is read whole from any thread. */
+  private record Printed(int bits, String text) {}
+
   private DecimalText() {}
 
   /**
@@ -29,6 +38,19 @@ public final class DecimalText {
    * a valid Java float literal once {@code f} is appended, and a valid JSON number.
    */
   public static String shortest(float value) {
+    int bits = Float.floatToRawIntBits(value);
+    // Direct-mapped: a slot keeps the float printed last; the text is the same either way.
+    int slot = (bits ^ (bits >>> 12) ^ (bits >>> 24)) & (CACHED_FLOATS - 1);
+    Printed cached = FLOATS.get(slot);
+    if (cached != null && cached.bits() == bits) {
+      return cached.text();
+    }
+    String text = computeShortest(value);
+    FLOATS.set(slot, new Printed(bits, text));
+    return text;
+  }
+
+  private static String computeShortest(float value) {
     if (Float.isNaN(value) || Float.isInfinite(value) || value == 0) {
       return Float.toString(value); // fixed texts, the same on every JDK
     }

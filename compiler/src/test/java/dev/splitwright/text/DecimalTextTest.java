@@ -197,4 +197,21 @@ class DecimalTextTest {
     assertThat(DecimalText.significant(9999.5, 4)).isEqualTo("1.000e+04");
     assertThat(DecimalText.significant(0.5, 4)).isEqualTo("0.5000");
   }
+
+  @Test
+  void aFloatPrintedAgainGetsItsOwnTextWhateverSharesItsCacheSlot() {
+    // 4096 cache slots: these floats collide in some and alternate; each keeps its own text,
+    // the one a fresh BigDecimal computation gives (checked by reading back, as above).
+    SplittableRandom random = new SplittableRandom(4_096L);
+    float[] values = new float[20_000];
+    String[] first = new String[values.length];
+    for (int i = 0; i < values.length; i++) {
+      values[i] = Float.intBitsToFloat(random.nextInt() & 0x7f7fffff);
+      first[i] = DecimalText.shortest(values[i]);
+    }
+    for (int i = values.length - 1; i >= 0; i--) {
+      assertThat(DecimalText.shortest(values[i])).isEqualTo(first[i]);
+      assertThat(Float.parseFloat(first[i])).isEqualTo(values[i]);
+    }
+  }
 }

@@ -71,9 +71,11 @@ public final class InMemoryCompiler implements AutoCloseable {
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
-    // getTask parses the options, so a bad one fails here instead of at the first compile.
-    javac.getTask(null, new MemoryFileManager(files), null, copy, null, List.of());
-    return new InMemoryCompiler(javac, files, copy, runningRelease(copy));
+    // getTask parses the options, so a bad one fails here instead of at the first compile; in
+    // the form javac will get, so that the running release does not open ct.sym here either.
+    List<String> javacOptions = runningRelease(copy);
+    javac.getTask(null, new MemoryFileManager(files), null, javacOptions, null, List.of());
+    return new InMemoryCompiler(javac, files, copy, javacOptions);
   }
 
   /**
