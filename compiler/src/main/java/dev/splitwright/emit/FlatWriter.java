@@ -183,16 +183,31 @@ final class FlatWriter {
    * its first level alone, by arithmetic: the root's outcome, masked to 0 for an even depth.
    */
   private void addEnsembleMethods() {
+    addWalks(this::ensembleWalk, "t");
+    type.addMethod(right());
+  }
+
+  /** Writes one walk: its method name, the decision method it calls, the rows it is for. */
+  private interface WalkWriter {
+    MethodSpec write(String name, String decide, String rows);
+  }
+
+  /**
+   * {@code leaf} and what it calls: the walk for any row and, for float and double input without
+   * categorical slots, the finite rows' walk with the {@code special} test that picks between them.
+   *
+   * @param extra the walk's parameters after {@code x}
+   */
+  private void addWalks(WalkWriter walker, String... extra) {
     if (finiteWalk()) {
-      type.addMethod(dispatch("walkFinite", "walk", "t"));
+      type.addMethod(dispatch("walkFinite", "walk", extra));
       type.addMethod(special());
-      type.addMethod(ensembleWalk("walkFinite", "over", "rows whose values are all finite"));
-      type.addMethod(ensembleWalk("walk", "right", "any row"));
+      type.addMethod(walker.write("walkFinite", "over", "rows whose values are all finite"));
+      type.addMethod(walker.write("walk", "right", "any row"));
       type.addMethod(over());
     } else {
-      type.addMethod(ensembleWalk("leaf", "right", "any row"));
+      type.addMethod(walker.write("leaf", "right", "any row"));
     }
-    type.addMethod(right());
   }
 
   private MethodSpec ensembleWalk(String name, String decide, String rows) {
@@ -394,16 +409,11 @@ final class FlatWriter {
     if (leaves.probabilities()) {
       type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
     }
-    if (finiteWalk() && flat.depth() > 0) {
-      type.addMethod(dispatch("walkFinite", "walk"));
-      type.addMethod(special());
-      type.addMethod(walk("walkFinite", "over", "rows whose values are all finite"));
-      type.addMethod(walk("walk", "right", "any row"));
-      type.addMethod(over());
-    } else {
+    if (flat.depth() == 0) {
+      // A single leaf: nothing to decide.
       type.addMethod(walk("leaf", "right", "any row"));
-    }
-    if (flat.depth() > 0) {
+    } else {
+      addWalks(this::walk);
       type.addMethod(right());
     }
   }
@@ -447,7 +457,7 @@ final class FlatWriter {
    * takes the general one. This branch is on the row, not on a comparison: it goes the same way
    * for every row a working sensor sends.
    */
-  private MethodSpec dispatch(String walkFinite, String walkAny, String... more) {
+  private MethodSpec dispatch(String walkFinite, String walkAny, String[] more) {
     String args = more.length == 0 ? "x" : "x, " + String.join(", ", more);
     MethodSpec.Builder leaf = MethodSpec.methodBuilder("leaf")
         .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
@@ -456,8 +466,11 @@ final class FlatWriter {
             + "@param x the feature values in input order\n")
         .addParameter(ArrayTypeName.of(input.elementType()), "x");
     for (String p : more) {
-      leaf.addParameter(TypeName.INT, p);
+      // The ensemble's only extra parameter is the tree.
+      leaf.addJavadoc("@param $L the tree, in combination order\n", p)
+          .addParameter(TypeName.INT, p);
     }
+    leaf.addJavadoc("@return what the leaf holds\n");
     return leaf.beginControlFlow("if (special(x) < 0)")
         .addStatement("return $L($L)", walkAny, args)
         .endControlFlow()
