@@ -504,6 +504,19 @@ final class FlatWriter {
         .build();
   }
 
+  /** The head of a decision method {@code name(x, i)}: 1 when x goes right at slot i, else 0. */
+  private MethodSpec.Builder decision(String name, String forWhat, String inputNote) {
+    return MethodSpec.methodBuilder(name)
+        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
+        .returns(TypeName.INT)
+        .addJavadoc("Decides split slot {@code i} $Lwithout a conditional branch.\n\n"
+            + "@param x the feature values in input order$L\n"
+            + "@param i the split slot\n"
+            + "@return 1 when x goes right, 0 when it goes left\n", forWhat, inputNote)
+        .addParameter(ArrayTypeName.of(input.elementType()), "x")
+        .addParameter(TypeName.INT, "i");
+  }
+
   /**
    * {@code over(x, i)}: the decision for a finite value, as the sign of threshold less value. For
    * finite operands the difference is exact in sign and zero only when they are equal (IEEE
@@ -512,16 +525,7 @@ final class FlatWriter {
    */
   private MethodSpec over() {
     boolean dbl = input.kind() == InputKind.DOUBLE;
-    return MethodSpec.methodBuilder("over")
-        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
-        .returns(TypeName.INT)
-        .addJavadoc("Decides split slot {@code i} for a finite value, without a conditional"
-            + " branch.\n\n"
-            + "@param x the feature values in input order, all finite\n"
-            + "@param i the split slot\n"
-            + "@return 1 when x goes right, 0 when it goes left\n")
-        .addParameter(ArrayTypeName.of(input.elementType()), "x")
-        .addParameter(TypeName.INT, "i")
+    return decision("over", "for a finite value, ", ", all finite")
         .addStatement(dbl
             ? "return (int) (Double.doubleToRawLongBits(KEY[i] - x[NODE[i] >>> $L]) >>> 63)"
             : "return Float.floatToRawIntBits(KEY[i] - x[NODE[i] >>> $L]) >>> 31",
@@ -587,15 +591,7 @@ final class FlatWriter {
               + " & 1)");
     }
     code.addStatement("return right");
-    return MethodSpec.methodBuilder("right")
-        .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
-        .returns(TypeName.INT)
-        .addJavadoc("Decides split slot {@code i} without a conditional branch.\n\n"
-            + "@param x the feature values in input order\n"
-            + "@param i the split slot\n"
-            + "@return 1 when x goes right, 0 when it goes left\n")
-        .addParameter(ArrayTypeName.of(input.elementType()), "x")
-        .addParameter(TypeName.INT, "i")
+    return decision("right", "", "")
         .addCode(code.build())
         .build();
   }
