@@ -203,19 +203,17 @@ final class SplitSearch {
       // (a + 1)^2 - a^2 on the left; (t - a)^2 - (t - a - 1)^2 on the right.
       leftSquares += 2 * a + 1;
       rightSquares -= 2 * (totals[c] - a) - 1;
-      if (values[i] == values[i + 1]) {
-        continue; // not a boundary between distinct values
-      }
       int nLeft = i - lo + 1;
       int nRight = nPresent - nLeft;
-      if (!admissible(nLeft, nRight, nMissing)) {
-        continue;
-      }
       // The cost is nPresent - (sL / nL + sR / nR). Multiplied out by nL * nR, the test whether
       // it may beat the bound needs no division, and errs by far less than the margin; only the
-      // few candidates that pass pay for the exact cost.
+      // few candidates that pass pay for the exact cost. It comes first, for every row: it
+      // rarely passes, so its branch is well predicted, whereas whether two neighbouring values
+      // are equal is a coin toss on quantised readings.
       if ((double) leftSquares * nRight + (double) rightSquares * nLeft
-          >= need * ((double) nLeft * nRight)) {
+          >= need * ((double) nLeft * nRight)
+          && values[i] != values[i + 1] // a boundary between distinct values
+          && admissible(nLeft, nRight, nMissing)) {
         double cost =
             Criterion.giniMass(nLeft, leftSquares) + Criterion.giniMass(nRight, rightSquares);
         if (cost < bound) {
