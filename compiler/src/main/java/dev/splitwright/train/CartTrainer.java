@@ -29,6 +29,7 @@ public final class CartTrainer {
     if (train.rows() == 0) {
       throw new IllegalArgumentException("cannot train on a data set with no rows");
     }
+    JitPrimer.primeFor(train, options);
     return new TreeGrower(train, options).grow();
   }
 }

@@ -26,17 +26,22 @@ final class SortedColumns {
    */
   final char[][] labels;
 
-  private final int[] scratchRows;
-  private final float[] scratchValues;
-  private final char[] scratchLabels;
+  /** Where a partition puts the right side for a moment: one per share (see {@link TwoShares}). */
+  private final Scratch[] scratch = new Scratch[2];
+  private final int n;
 
   private SortedColumns(int[][] rows, float[][] values, char[][] labels, int n) {
     this.rows = rows;
     this.values = values;
     this.labels = labels;
-    this.scratchRows = new int[n];
-    this.scratchValues = new float[n];
-    this.scratchLabels = new char[n];
+    this.n = n;
+    this.scratch[0] = new Scratch(n);
+  }
+
+  private record Scratch(int[] rows, float[] values, char[] labels) {
+    Scratch(int n) {
+      this(new int[n], new float[n], new char[n]);
+    }
   }
 
   static SortedColumns of(Dataset data) {
@@ -50,11 +55,21 @@ final class SortedColumns {
     for (int r = 0; r < n; r++) {
       rowLabels[r] = (char) dataLabels[r];
     }
+    // Each feature is sorted on its own: two shares of the features at once on two cores.
+    TwoShares.run(features, (long) n * features,
+        (from, to, share) -> sortFeatures(data, from, to, rowLabels, rows, values, labels));
+    return new SortedColumns(rows, values, labels, n);
+  }
+
+  /** Sorts features {@code [from, to)} into {@code rows}, {@code values} and {@code labels}. */
+  private static void sortFeatures(Dataset data, int from, int to, char[] rowLabels,
+      int[][] rows, float[][] values, char[][] labels) {
+    int n = data.rows();
     int[] keys = new int[n];
     int[] keyBuffer = new int[n];
     int[] rowBuffer = new int[n];
     int[][] starts = new int[PASSES][BUCKETS];
-    for (int f = 0; f < features; f++) {
+    for (int f = from; f < to; f++) {
       Feature feature = data.schema().feature(f);
       // Read in place: a copy of the column per feature would only add garbage to the peak heap.
       if (feature.isCategorical()) {
@@ -84,7 +99,6 @@ final class SortedColumns {
       values[f] = sorted;
       labels[f] = sortedLabels;
     }
-    return new SortedColumns(rows, values, labels, n);
   }
 
   // The loops below are small methods of their own, called once per feature (or per pass): the
@@ -238,24 +252,34 @@ final class SortedColumns {
    */
   void partition(
       int lo, int hi, long[] goesLeft, boolean keepLeft, boolean keepRight, int inPlace) {
-    for (int f = 0; f < rows.length; f++) {
-      if (f == inPlace) {
-        continue;
-      }
-      if (keepLeft && keepRight) {
-        partition(f, lo, hi, goesLeft);
-      } else if (keepLeft) {
-        keepOneSide(f, lo, hi, goesLeft, 1);
-      } else if (keepRight) {
-        keepOneSide(f, lo, hi, goesLeft, 0);
-      }
+    long cells = (long) (hi - lo) * rows.length;
+    if (TwoShares.splits(cells) && scratch[1] == null) {
+      // Made here, before the shares start, and kept for the next large node.
+      scratch[1] = new Scratch(n);
     }
+    TwoShares.run(rows.length, cells, (from, to, share) -> {
+      for (int f = from; f < to; f++) {
+        if (f == inPlace) {
+          continue;
+        }
+        if (keepLeft && keepRight) {
+          partition(f, lo, hi, goesLeft, scratch[share]);
+        } else if (keepLeft) {
+          keepOneSide(f, lo, hi, goesLeft, 1);
+        } else if (keepRight) {
+          keepOneSide(f, lo, hi, goesLeft, 0);
+        }
+      }
+    });
   }
 
-  private void partition(int f, int lo, int hi, long[] goesLeft) {
+  private void partition(int f, int lo, int hi, long[] goesLeft, Scratch aside) {
     int[] r = rows[f];
     float[] v = values[f];
     char[] y = labels[f];
+    int[] scratchRows = aside.rows();
+    float[] scratchValues = aside.values();
+    char[] scratchLabels = aside.labels();
     int left = lo;
     int right = 0;
     for (int i = lo; i < hi; i++) {

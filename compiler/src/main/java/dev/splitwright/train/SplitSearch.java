@@ -50,6 +50,9 @@ final class SplitSearch {
 
   /** Restricts each node to a random subset of features; {@code null} searches them all. */
   private final FeatureSampler sampler;
+  private final Schema schema;
+  /** A search of its own for the second share of the features (see {@link TwoShares}). */
+  private SplitSearch helper;
 
   SplitSearch(SortedColumns columns, Schema schema, Criterion criterion, int minLeaf) {
     this(columns, schema, criterion, minLeaf, null);
@@ -63,6 +66,7 @@ final class SplitSearch {
   SplitSearch(SortedColumns columns, Schema schema, Criterion criterion, int minLeaf,
       FeatureSampler sampler) {
     this.sampler = sampler;
+    this.schema = schema;
     this.columns = columns;
     this.criterion = criterion;
     this.minLeaf = minLeaf;
@@ -88,8 +92,18 @@ final class SplitSearch {
     tolerance = TIE_TOLERANCE * criterion.roundingScale(node.counts);
     SplitChoice best = null;
     if (sampler == null) {
-      for (int f = 0; f < categoryCounts.length; f++) {
-        best = better(best, candidate(f, node));
+      // Every feature's candidate first, in two shares on a large node; then the same choice, in
+      // feature order, as one pass would make.
+      int features = categoryCounts.length;
+      long cells = (long) node.rows() * features;
+      if (TwoShares.splits(cells) && helper == null) {
+        helper = new SplitSearch(columns, schema, criterion, minLeaf, null);
+      }
+      SplitChoice[] found = new SplitChoice[features];
+      TwoShares.run(features, cells,
+          (from, to, share) -> (share == 0 ? this : helper).candidates(node, from, to, found));
+      for (SplitChoice challenger : found) {
+        best = better(best, challenger);
       }
       return best;
     }
@@ -97,6 +111,14 @@ final class SplitSearch {
       best = better(best, candidate(sampler.draw(i), node));
     }
     return best;
+  }
+
+  /** Each feature's best split of {@code node} in {@code [from, to)}, into {@code found}. */
+  private void candidates(GrowingNode node, int from, int to, SplitChoice[] found) {
+    tolerance = TIE_TOLERANCE * criterion.roundingScale(node.counts);
+    for (int f = from; f < to; f++) {
+      found[f] = candidate(f, node);
+    }
   }
 
   private SplitChoice candidate(int f, GrowingNode node) {

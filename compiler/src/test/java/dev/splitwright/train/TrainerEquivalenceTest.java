@@ -99,6 +99,22 @@ class TrainerEquivalenceTest {
     }
   }
 
+  /**
+   * Past {@link JitPrimer#MIN_CELLS}, so that the first training of this size in the JVM is primed
+   * first, and large enough that the sort, the split searches and the partitions of the upper
+   * nodes run in two shares ({@link TwoShares}) on two cores: neither may change the tree.
+   */
+  @Test
+  void sameTreesOnATablePastThePrimingSize() {
+    Dataset data = SyntheticData.generate(240_000, 14, 4, 6, 4, 0.02, 23);
+    assertThat((long) data.rows() * data.featureCount()).isGreaterThanOrEqualTo(
+        JitPrimer.MIN_CELLS);
+    TrainingOptions options = TrainingOptions.builder().maxDepth(9).build();
+    assertSameTree(data, options, "past the priming size");
+    assertSameTree(data, options.toBuilder().impurity(Impurity.ENTROPY).build(),
+        "past the priming size, entropy");
+  }
+
   private static void assertSameTree(Dataset data, TrainingOptions options, String what) {
     DecisionTree expected = ReferenceTrainer.train(data, options);
     DecisionTree actual = CartTrainer.train(data, options);
