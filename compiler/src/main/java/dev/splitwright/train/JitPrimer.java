@@ -4,12 +4,12 @@ import dev.splitwright.data.Dataset;
 import java.util.concurrent.atomic.AtomicBoolean;
 
 /**
- * Before the first large training of a JVM, grows one tree on an evenly spaced sample of the same
- * rows, with the same options, and throws it away. On a cold JVM the JIT otherwise compiles the
- * trainer's loops in the middle of their first million-row passes, from profiles that have never
- * seen a loop end or a rare branch taken, and then throws that code away again and again (HotSpot's
- * "unstable_if" traps): measured on the bench's 1,000,000 x 20 set, the sample costs about 0.15 s
- * and saves about 0.5 s. The sample's tree has no effect on the real one.
+ * Before the first large {@link CartTrainer#train} of a JVM, grows one tree on an evenly spaced
+ * sample of the same rows, with the same options, and throws it away. On a cold JVM the JIT
+ * otherwise compiles the trainer's loops in the middle of their first million-row passes, from
+ * profiles that have never seen a loop end or a rare branch taken, and then throws that code away
+ * again and again (HotSpot's "unstable_if" traps): measured on the bench's 1,000,000 x 20 set, the
+ * sample costs about 0.15 s and saves about 0.5 s. The sample's tree has no effect on the real one.
  */
 final class JitPrimer {
   /** Rows times features from which priming pays for itself. */

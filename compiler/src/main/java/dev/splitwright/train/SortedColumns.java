@@ -28,13 +28,11 @@ final class SortedColumns {
 
   /** Where a partition puts the right side for a moment: one per share (see {@link TwoShares}). */
   private final Scratch[] scratch = new Scratch[2];
-  private final int n;
 
   private SortedColumns(int[][] rows, float[][] values, char[][] labels, int n) {
     this.rows = rows;
     this.values = values;
     this.labels = labels;
-    this.n = n;
     this.scratch[0] = new Scratch(n);
   }
 
@@ -255,7 +253,7 @@ final class SortedColumns {
     long cells = (long) (hi - lo) * rows.length;
     if (TwoShares.splits(cells) && scratch[1] == null) {
       // Made here, before the shares start, and kept for the next large node.
-      scratch[1] = new Scratch(n);
+      scratch[1] = new Scratch(scratch[0].rows().length);
     }
     TwoShares.run(rows.length, cells, (from, to, share) -> {
       for (int f = from; f < to; f++) {
