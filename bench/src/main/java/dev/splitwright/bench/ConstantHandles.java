@@ -21,6 +21,8 @@ final class ConstantHandles {
     BRANCHES,
     TABLE,
     FLAT,
+    /** The flat class's {@code classifyAll}. */
+    FLAT_ALL,
     TRIVIAL
   }
 
@@ -46,6 +48,7 @@ final class ConstantHandles {
       case BRANCHES -> Branches.CLASSIFY;
       case TABLE -> Table.CLASSIFY;
       case FLAT -> Flat.CLASSIFY;
+      case FLAT_ALL -> FlatAll.CLASSIFY_ALL;
       case TRIVIAL -> Trivial.CLASSIFY;
     };
     if (held != expected) {
@@ -70,6 +73,12 @@ final class ConstantHandles {
     static final MethodHandle CLASSIFY = take(Slot.FLAT);
 
     private Flat() {}
+  }
+
+  static final class FlatAll {
+    static final MethodHandle CLASSIFY_ALL = take(Slot.FLAT_ALL);
+
+    private FlatAll() {}
   }
 
   static final class Trivial {

@@ -20,11 +20,14 @@ import java.util.Locale;
 /**
  * Emits a tree, compiles the source with javac in this JVM (or takes the class files compiled from
  * the same source earlier from the {@link BenchStore}) and loads the class in a fresh class loader,
- * as the verifier does, and hands out its {@code int classify(float[])}.
+ * as the verifier does, and hands out its {@code int classify(float[])} and, for {@code flat},
+ * its {@code void classifyAll(float[][], int[])}.
  */
 final class GeneratedClassifier {
   static final String PACKAGE = "bench.generated";
   static final MethodType CLASSIFY = MethodType.methodType(int.class, float[].class);
+  static final MethodType CLASSIFY_ALL =
+      MethodType.methodType(void.class, float[][].class, int[].class);
   static final List<String> JAVAC_OPTIONS = List.of("--release", "17");
 
   /**
@@ -47,6 +50,15 @@ final class GeneratedClassifier {
    * @throws IllegalArgumentException for {@link Layout#SMALLEST}, which is a choice, not a layout
    */
   static MethodHandle emitAndLoad(DecisionTree tree, Layout layout) {
+    return handle(emitAndLoadClass(tree, layout), "classify", CLASSIFY);
+  }
+
+  /** Emits {@code tree} flat, compiles and loads it, and hands out its many-row entry. */
+  static MethodHandle emitAndLoadBatch(DecisionTree tree) {
+    return handle(emitAndLoadClass(tree, Layout.FLAT), JavaEmitter.BATCH_METHOD, CLASSIFY_ALL);
+  }
+
+  private static Class<?> emitAndLoadClass(DecisionTree tree, Layout layout) {
     EmittedSource source = emit(tree, layout);
     return compileAndLoad(source.qualifiedName(), source.source());
   }
@@ -62,10 +74,10 @@ final class GeneratedClassifier {
 
   /** Loads the hand-written {@link #TRIVIAL_SOURCE}. */
   static MethodHandle trivial() {
-    return compileAndLoad(PACKAGE + ".Trivial", TRIVIAL_SOURCE);
+    return handle(compileAndLoad(PACKAGE + ".Trivial", TRIVIAL_SOURCE), "classify", CLASSIFY);
   }
 
-  private static MethodHandle compileAndLoad(String name, String source) {
+  private static Class<?> compileAndLoad(String name, String source) {
     CompiledClasses classes;
     try {
       classes = BenchStore.fromSystemProperty().compiled(name, source, JAVAC_OPTIONS, () -> {
@@ -79,11 +91,15 @@ final class GeneratedClassifier {
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
-    Class<?> type = classes.load(name);
+    return classes.load(name);
+  }
+
+  private static MethodHandle handle(Class<?> type, String name, MethodType signature) {
     try {
-      return MethodHandles.publicLookup().findStatic(type, "classify", CLASSIFY);
+      return MethodHandles.publicLookup().findStatic(type, name, signature);
     } catch (NoSuchMethodException | IllegalAccessException e) {
-      throw new IllegalStateException(name + " has no public static int classify(float[])", e);
+      throw new IllegalStateException(type.getName() + " has no public static " + name
+          + signature, e);
     }
   }
 }

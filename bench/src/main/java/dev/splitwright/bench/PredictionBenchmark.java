@@ -5,12 +5,14 @@ import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.train.CartTrainer;
 import java.lang.invoke.MethodHandle;
+import java.util.Arrays;
 import java.util.concurrent.TimeUnit;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Fork;
 import org.openjdk.jmh.annotations.Measurement;
 import org.openjdk.jmh.annotations.Mode;
+import org.openjdk.jmh.annotations.OperationsPerInvocation;
 import org.openjdk.jmh.annotations.OutputTimeUnit;
 import org.openjdk.jmh.annotations.Param;
 import org.openjdk.jmh.annotations.Scope;
@@ -50,6 +52,8 @@ import weka.core.Instances;
 @State(Scope.Thread)
 public class PredictionBenchmark {
   private static final int MASK = BenchModel.INPUT_ROWS - 1;
+  /** Rows per call of the block methods; the rows are cut into blocks once, in setup. */
+  static final int BLOCK = 256;
 
   @Param({"pump", "synthetic", "synthetic10"})
   public String model;
@@ -60,6 +64,8 @@ public class PredictionBenchmark {
   private float[][] rows;
   private Instance[] instances;
   private int next;
+  private float[][][] blocks;
+  private int[] out;
   private DecisionTree tree;
   private Classifier weka;
 
@@ -88,6 +94,14 @@ public class PredictionBenchmark {
           ConstantHandles.Slot.TABLE);
       case "generatedFlat" -> loadGenerated(training, bench, Layout.FLAT,
           ConstantHandles.Slot.FLAT);
+      case "generatedBranchesBlock" -> {
+        loadGenerated(training, bench, Layout.BRANCHES, ConstantHandles.Slot.BRANCHES);
+        cutBlocks();
+      }
+      case "generatedFlatBlock" -> {
+        loadBatch(training, bench);
+        cutBlocks();
+      }
       case "wekaJ48" -> loadWeka(training, bench, WekaLearner.J48);
       case "wekaRepTree" -> loadWeka(training, bench, WekaLearner.REP_TREE);
       default -> throw new IllegalStateException("no setup for benchmark method " + method);
@@ -108,6 +122,36 @@ public class PredictionBenchmark {
     }
     ConstantHandles.offer(slot, classify);
     ConstantHandles.check(slot, classify);
+  }
+
+  private void loadBatch(Dataset training, BenchModel bench) throws Throwable {
+    DecisionTree trained = CartTrainer.train(training, bench.trainingOptions());
+    MethodHandle classifyAll = GeneratedClassifier.emitAndLoadBatch(trained);
+    int[] got = new int[rows.length];
+    classifyAll.invokeExact(rows, got);
+    for (int i = 0; i < rows.length; i++) {
+      int want = trained.predict(rows[i]);
+      if (got[i] != want) {
+        throw new IllegalStateException("generated flat classifyAll returns " + got[i]
+            + " but the model returns " + want + " on input row " + i);
+      }
+    }
+    ConstantHandles.offer(ConstantHandles.Slot.FLAT_ALL, classifyAll);
+    ConstantHandles.check(ConstantHandles.Slot.FLAT_ALL, classifyAll);
+  }
+
+  private void cutBlocks() {
+    blocks = new float[rows.length / BLOCK][][];
+    for (int b = 0; b < blocks.length; b++) {
+      blocks[b] = Arrays.copyOfRange(rows, b * BLOCK, (b + 1) * BLOCK);
+    }
+    out = new int[BLOCK];
+  }
+
+  private float[][] nextBlock() {
+    float[][] block = blocks[next];
+    next = (next + 1) % blocks.length;
+    return block;
   }
 
   private void loadWeka(Dataset training, BenchModel bench, WekaLearner learner)
@@ -162,6 +206,30 @@ public class PredictionBenchmark {
   @Warmup(iterations = 6, time = 1)
   public int generatedFlat() throws Throwable {
     return (int) ConstantHandles.Flat.CLASSIFY.invokeExact(nextRow());
+  }
+
+  /**
+   * {@link #BLOCK} rows through {@code branches}: the loop a caller writes, one {@code classify}
+   * a row; the time is per row, beside {@link #generatedFlatBlock}.
+   */
+  @Benchmark
+  @Warmup(iterations = 6, time = 1)
+  @OperationsPerInvocation(BLOCK)
+  public int[] generatedBranchesBlock() throws Throwable {
+    float[][] block = nextBlock();
+    for (int r = 0; r < block.length; r++) {
+      out[r] = (int) ConstantHandles.Branches.CLASSIFY.invokeExact(block[r]);
+    }
+    return out;
+  }
+
+  /** {@link #BLOCK} rows through the flat class's {@code classifyAll}, four walked side by side. */
+  @Benchmark
+  @Warmup(iterations = 6, time = 1)
+  @OperationsPerInvocation(BLOCK)
+  public int[] generatedFlatBlock() throws Throwable {
+    ConstantHandles.FlatAll.CLASSIFY_ALL.invokeExact(nextBlock(), out);
+    return out;
   }
 
   /** Our in-memory model walking its node objects: what the generated class is verified against. */

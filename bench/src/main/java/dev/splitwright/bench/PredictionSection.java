@@ -13,6 +13,10 @@ final class PredictionSection {
     {"generatedBranches", "generated class, `branches` layout"},
     {"generatedTable", "generated class, `table` layout"},
     {"generatedFlat", "generated class, `flat` layout"},
+    {"generatedBranchesBlock", "`branches`, blocks of " + PredictionBenchmark.BLOCK
+        + " rows: a loop of `classify`"},
+    {"generatedFlatBlock", "`flat`, blocks of " + PredictionBenchmark.BLOCK
+        + " rows: `classifyAll`"},
     {"inMemoryModel", "Splitwright in-memory model (`DecisionTree.predict`)"},
     {"wekaJ48", "Weka J48 `classifyInstance` (defaults, no depth limit)"},
     {"wekaRepTree", "Weka REPTree `classifyInstance` (`-L` = depth)"},
@@ -67,6 +71,8 @@ final class PredictionSection {
     ratioRow(md, "in-memory model / branches", "inMemoryModel");
     ratioRow(md, "`table` / branches", "generatedTable");
     ratioRow(md, "`flat` / branches", "generatedFlat");
+    ratioRow(md, "`flat` `classifyAll` / `branches` loop, blocks", "generatedFlatBlock",
+        "generatedBranchesBlock");
     md.append("\n### Prediction targets\n\n");
     md.append("| target");
     for (BenchModel model : BenchModel.values()) {
@@ -86,6 +92,12 @@ final class PredictionSection {
         "generatedFlat", 0.8, false);
     target(md, "`flat` ≤ 1.5× the branches time, time-ordered", "timeOrdered", "generatedFlat",
         1.5, false);
+    target(md, "blocks: `classifyAll` ≤ 0.6× the `branches` loop, shuffled", "shuffled",
+        "generatedFlatBlock", "generatedBranchesBlock", 0.6);
+    target(md, "blocks: `classifyAll` ≤ 0.8× the `branches` loop, shuffled", "shuffled",
+        "generatedFlatBlock", "generatedBranchesBlock", 0.8);
+    target(md, "blocks: `classifyAll` ≤ 1.5× the `branches` loop, time-ordered", "timeOrdered",
+        "generatedFlatBlock", "generatedBranchesBlock", 1.5);
     return md.toString();
   }
 
@@ -100,9 +112,25 @@ final class PredictionSection {
   }
 
   private void ratioRow(StringBuilder md, String label, String method) {
+    ratioRow(md, label, method, "generatedBranches");
+  }
+
+  private void ratioRow(StringBuilder md, String label, String method, String against) {
     md.append("| ").append(label);
     for (String[] column : columns) {
-      md.append(" | ").append(Cells.ratio(ratio(method, column[0], column[1])));
+      md.append(" | ").append(Cells.ratio(ratio(method, against, column[0], column[1])));
+    }
+    md.append(" |\n");
+  }
+
+  /** A target on {@code method}'s time over {@code against}'s, at most {@code goal}. */
+  private void target(StringBuilder md, String label, String order, String method,
+      String against, double goal) {
+    md.append("| ").append(label);
+    for (BenchModel model : BenchModel.values()) {
+      double value = ratio(method, against, model.paramName(), order);
+      md.append(" | ").append(Cells.ratio(value)).append(" ")
+          .append(Cells.verdict(value, goal, false));
     }
     md.append(" |\n");
   }
@@ -123,13 +151,18 @@ final class PredictionSection {
 
   /** Time of {@code method} divided by the branches time, or NaN if either is missing. */
   double ratio(String method, String model, String order) {
+    return ratio(method, "generatedBranches", model, order);
+  }
+
+  /** Time of {@code method} divided by {@code against}'s, or NaN if either is missing. */
+  double ratio(String method, String against, String model, String order) {
     String[] column = {model, order};
     Optional<BenchResult> other = find(method, column);
-    Optional<BenchResult> branches = find("generatedBranches", column);
-    if (other.isEmpty() || branches.isEmpty()) {
+    Optional<BenchResult> base = find(against, column);
+    if (other.isEmpty() || base.isEmpty()) {
       return Double.NaN;
     }
-    return other.get().primary().score() / branches.get().primary().score();
+    return other.get().primary().score() / base.get().primary().score();
   }
 
   private Optional<BenchResult> find(String method, String[] column) {

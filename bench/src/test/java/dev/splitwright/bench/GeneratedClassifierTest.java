@@ -49,6 +49,17 @@ class GeneratedClassifierTest {
   }
 
   @Test
+  void flatClassifyAllReturnsWhatTheModelReturnsOnEveryInput() throws Throwable {
+    MethodHandle classifyAll = GeneratedClassifier.emitAndLoadBatch(tree);
+    float[][] rows = inputs.rows();
+    int[] out = new int[rows.length];
+    classifyAll.invokeExact(rows, out);
+    for (int i = 0; i < rows.length; i++) {
+      assertThat(out[i]).as("row %d", i).isEqualTo(tree.predict(rows[i]));
+    }
+  }
+
+  @Test
   void tableClassReturnsWhatTheModelReturnsOnEveryInput() throws Throwable {
     MethodHandle classify = GeneratedClassifier.emitAndLoad(tree, Layout.TABLE);
     for (float[] x : inputs.rows()) {

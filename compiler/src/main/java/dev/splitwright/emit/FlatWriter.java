@@ -32,9 +32,13 @@ final class FlatWriter {
   private final TypeSpec.Builder type;
   private final SupportMethods support;
   private final LeafTable leaves;
+  /** The input's feature count. */
+  private final int features;
+  /** The cap on a per-call method's bytecode ({@link EmitOptions#maxMethodBytes()}). */
+  private final int maxMethodBytes;
 
   private FlatWriter(List<FlatTree> flats, InputAccess input, TypeSpec.Builder type,
-      SupportMethods support, LeafTable leaves) {
+      SupportMethods support, LeafTable leaves, EmitOptions options, int features) {
     this.flat = flats.get(0);
     this.flats = flats;
     this.categorical = flats.stream().anyMatch(FlatTree::hasCategorical);
@@ -42,6 +46,8 @@ final class FlatWriter {
     this.type = type;
     this.support = support;
     this.leaves = leaves;
+    this.features = features;
+    this.maxMethodBytes = options.maxMethodBytes();
   }
 
   static String write(DecisionTree tree, EmitOptions options, HeaderInfo header) {
@@ -50,7 +56,8 @@ final class FlatWriter {
     FlatTree flat = FlatTree.of(tree, input.kind(), leaves::payload);
     SupportMethods support = new SupportMethods(input.kind());
     TypeSpec.Builder type = ClassScaffold.start(tree, options, header, support);
-    FlatWriter writer = new FlatWriter(List.of(flat), input, type, support, leaves);
+    FlatWriter writer = new FlatWriter(List.of(flat), input, type, support, leaves, options,
+        tree.schema().featureCount());
     writer.addTables();
     writer.addMethods(tree);
     support.addTo(type);
@@ -72,7 +79,8 @@ final class FlatWriter {
     }
     SupportMethods support = new SupportMethods(input.kind());
     TypeSpec.Builder type = ClassScaffold.start(ensemble, options, header, support);
-    FlatWriter writer = new FlatWriter(List.copyOf(flats), input, type, support, leaves);
+    FlatWriter writer = new FlatWriter(List.copyOf(flats), input, type, support, leaves, options,
+        ensemble.schema().featureCount());
     writer.addEnsembleTables(ensemble);
     EnsembleVotes.addEntries(type, ensemble, input, options.probabilities());
     EnsembleVotes.addLoopedScores(type, ensemble, input, "j");
@@ -409,6 +417,11 @@ final class FlatWriter {
     if (leaves.probabilities()) {
       type.addMethod(LeafTable.probabilitiesMethod(tree.schema(), input, leafCall));
     }
+    if (input.checksLength() && maxMethodBytes >= FlatBatchWriter.MAX_BYTES) {
+      // Rows as arrays, room beyond a bare class's budget and under the cap: many rows at once.
+      type.addMethod(new FlatBatchWriter(tree.schema(), input, leaves, flat.depth(),
+          flat.depth() > 0 && finiteWalk()).write());
+    }
     if (flat.depth() == 0) {
       // A single leaf: nothing to decide.
       type.addMethod(walk("leaf", "right", "any row"));
@@ -478,21 +491,42 @@ final class FlatWriter {
         .build();
   }
 
+  /** Upper bound of the bytecode bytes of one feature's term in a straight-line {@code special}. */
+  private static final int SPECIAL_TERM_BYTES = 16;
+
+  /**
+   * Whether {@code special} reads the features one by one without a loop: up to {@link
+   * EmitOptions#MAX_NAMED_ARGS} features and within the method cap. A short loop over
+   * {@code x.length} cost about 2 ns a row on the pump demo (six features), a quarter of the
+   * whole walk's time (scratch JMH-style runs, 2026-12-03).
+   */
+  private boolean straightSpecial() {
+    return features <= EmitOptions.MAX_NAMED_ARGS
+        && features * SPECIAL_TERM_BYTES + 8 <= maxMethodBytes;
+  }
+
   /** {@code special(x)}: negative when some value is NaN or infinite, by arithmetic alone. */
   private MethodSpec special() {
     boolean dbl = input.kind() == InputKind.DOUBLE;
+    String term = dbl
+        ? "(0x7fefffffffffffffL - (Double.doubleToRawLongBits(x[$L]) & Long.MAX_VALUE))"
+        : "(0x7f7fffff - (Float.floatToRawIntBits(x[$L]) & 0x7fffffff))";
     CodeBlock.Builder code = CodeBlock.builder()
         .add("// Magnitude bits above the largest finite value's mean NaN or infinity (IEEE\n"
-            + "// 754-2019 section 3.4): the difference is then negative.\n")
-        .addStatement("$L odd = 0", dbl ? "long" : "int")
-        .beginControlFlow("for (int f = 0; f < x.length; f++)");
-    if (dbl) {
-      code.addStatement("odd |= 0x7fefffffffffffffL - (Double.doubleToRawLongBits(x[f])"
-          + " & Long.MAX_VALUE)");
+            + "// 754-2019 section 3.4): the difference is then negative.\n");
+    if (straightSpecial()) {
+      CodeBlock.Builder terms = CodeBlock.builder();
+      for (int f = 0; f < features; f++) {
+        terms.add(f == 0 ? term : "$W| " + term, f);
+      }
+      code.addStatement("$L odd = $L", dbl ? "long" : "int", terms.build());
     } else {
-      code.addStatement("odd |= 0x7f7fffff - (Float.floatToRawIntBits(x[f]) & 0x7fffffff)");
+      code.addStatement("$L odd = 0", dbl ? "long" : "int")
+          .beginControlFlow("for (int f = 0; f < x.length; f++)")
+          .addStatement("odd |= " + term, "f")
+          .endControlFlow();
     }
-    code.endControlFlow().addStatement("return $L", dbl ? "(int) (odd >> 32)" : "odd");
+    code.addStatement("return $L", dbl ? "(int) (odd >> 32)" : "odd");
     return MethodSpec.methodBuilder("special")
         .addModifiers(Modifier.PRIVATE, Modifier.STATIC)
         .returns(TypeName.INT)

@@ -7,6 +7,21 @@ import java.util.Objects;
 
 /** Emits a trained tree or ensemble as one dependency-free Java source file. */
 public final class JavaEmitter {
+  /**
+   * The many-row entry of a single {@code flat} tree with array input, {@code classifyAll(rows,
+   * out)}: the rows are walked {@link #BATCH_LANES} side by side. Other classes do not have it.
+   */
+  public static final String BATCH_METHOD = "classifyAll";
+
+  /** How many rows {@link #BATCH_METHOD} walks side by side; the rest go one at a time. */
+  public static final int BATCH_LANES = FlatBatchWriter.LANES;
+
+  /**
+   * Bound of {@link #BATCH_METHOD}'s bytecode bytes: a class whose method cap ({@link
+   * EmitOptions#maxMethodBytes()}) is below it does not get the method.
+   */
+  public static final int BATCH_MAX_BYTES = FlatBatchWriter.MAX_BYTES;
+
   private JavaEmitter() {}
 
   /**

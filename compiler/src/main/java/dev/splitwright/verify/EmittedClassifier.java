@@ -3,9 +3,12 @@ package dev.splitwright.verify;
 import dev.splitwright.data.Schema;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.InputKind;
+import dev.splitwright.emit.JavaEmitter;
+import java.lang.reflect.Array;
 import java.lang.reflect.InvocationTargetException;
 import java.lang.reflect.Method;
 import java.util.Arrays;
+import java.util.List;
 
 /**
  * Calls a loaded classifier's {@code classify} whatever its signature, from a float probe. For
@@ -17,16 +20,19 @@ import java.util.Arrays;
 final class EmittedClassifier {
   private final Method classify;
   private final Method probabilities;
+  /** {@link JavaEmitter#BATCH_METHOD}, or null when the class has none. */
+  private final Method batch;
   private final InputKind kind;
   private final boolean named;
   private final int classCount;
   /** Features whose NaN becomes -1 rather than 0 as int; null when none. */
   private final boolean[] categorical;
 
-  private EmittedClassifier(Method classify, Method probabilities, InputKind kind, boolean named,
-      int classCount, boolean[] categorical) {
+  private EmittedClassifier(Method classify, Method probabilities, Method batch, InputKind kind,
+      boolean named, int classCount, boolean[] categorical) {
     this.classify = classify;
     this.probabilities = probabilities;
+    this.batch = batch;
     this.kind = kind;
     this.named = named;
     this.classCount = classCount;
@@ -41,8 +47,8 @@ final class EmittedClassifier {
     for (int f = 0; f < categorical.length; f++) {
       categorical[f] = schema.feature(f).isCategorical();
     }
-    return new EmittedClassifier(plain.classify, plain.probabilities, plain.kind, plain.named,
-        plain.classCount, categorical);
+    return new EmittedClassifier(plain.classify, plain.probabilities, plain.batch, plain.kind,
+        plain.named, plain.classCount, categorical);
   }
 
   static EmittedClassifier of(Class<?> type, EmitOptions options, int featureCount,
@@ -65,8 +71,45 @@ final class EmittedClassifier {
       withOut[parameters.length] = float[].class;
       probabilities = type.getMethod("classProbabilities", withOut);
     }
-    return new EmittedClassifier(type.getMethod("classify", parameters), probabilities,
+    Method batch = null;
+    if (!options.namedArgs() && Arrays.stream(type.getMethods())
+        .anyMatch(m -> m.getName().equals(JavaEmitter.BATCH_METHOD))) {
+      batch = type.getMethod(JavaEmitter.BATCH_METHOD, element.arrayType().arrayType(),
+          int[].class);
+    }
+    return new EmittedClassifier(type.getMethod("classify", parameters), probabilities, batch,
         options.inputKind(), options.namedArgs(), classCount, null);
+  }
+
+  /** Tells whether the class has the many-row entry {@link JavaEmitter#BATCH_METHOD}. */
+  boolean hasBatch() {
+    return batch != null;
+  }
+
+  /** {@link JavaEmitter#BATCH_METHOD} over float probes, each converted as for classify. */
+  int[] classifyAll(List<float[]> probes) {
+    return classifyAllArrays(probes.stream().map(this::array).toList());
+  }
+
+  /**
+   * {@link JavaEmitter#BATCH_METHOD} over inputs already of the class's element type ({@code
+   * int[]} or {@code double[]}), each copied.
+   */
+  int[] classifyAllArrays(List<?> rows) {
+    Object array = Array.newInstance(
+        batch.getParameterTypes()[0].getComponentType(), rows.size());
+    for (int r = 0; r < rows.size(); r++) {
+      Object row = rows.get(r);
+      int length = Array.getLength(row);
+      Object copy = Array.newInstance(row.getClass().getComponentType(), length);
+      System.arraycopy(row, 0, copy, 0, length);
+      Array.set(array, r, copy);
+    }
+    int[] out = new int[rows.size()];
+    // Not a class index: an entry the method leaves untouched shows as a mismatch.
+    Arrays.fill(out, -1);
+    call(batch, new Object[] {array, out});
+    return out;
   }
 
   /** The input the float model must see for {@code probe}: the probe after conversion. */
@@ -118,7 +161,7 @@ final class EmittedClassifier {
     if (named) {
       args = new Object[length];
       for (int f = 0; f < length; f++) {
-        args[f] = java.lang.reflect.Array.get(values, f);
+        args[f] = Array.get(values, f);
       }
     } else {
       args = new Object[] {values};

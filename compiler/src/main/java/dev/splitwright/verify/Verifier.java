@@ -12,12 +12,16 @@ import dev.splitwright.data.Dataset;
 import dev.splitwright.emit.EmitOptions;
 import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.InputKind;
+import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
 import dev.splitwright.model.TreeEnsemble;
 import java.util.ArrayList;
+import java.util.IdentityHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
+import java.util.function.Function;
 
 /**
  * Proves an emitted classifier returns what the model returns: compiles the source in memory,
@@ -26,7 +30,8 @@ import java.util.Objects;
  * tree and on seeded random inputs. A classifier
  * taking {@code int} inputs is also checked on int boundary probes ({@link IntProbes}): each
  * threshold's integer neighbours and the int extremes, with the model asked about their float
- * conversions.
+ * conversions. A class with the many-row entry {@link JavaEmitter#BATCH_METHOD} is checked through
+ * it too, on the same inputs.
  */
 public final class Verifier {
   /** The javac options a user's build would use; the class file measured is the one they get. */
@@ -113,6 +118,10 @@ public final class Verifier {
       }
       tally.add("double input ", OracleComparison.compare(doubles, candidate::classifyDouble,
           x -> tree.predict(DoubleProbes.narrow(x)), REPORTED_MISMATCHES));
+      if (candidate.hasBatch()) {
+        compareBatch(tally, doubles, candidate::classifyAllArrays,
+            x -> tree.predict(DoubleProbes.narrow(x)));
+      }
       inputsChecked += doubles.size();
     }
     if (options.probabilities()) {
@@ -126,7 +135,15 @@ public final class Verifier {
       }
       tally.add("int probe ", OracleComparison.compare(ints, candidate::classifyInts,
           x -> tree.predict(EmittedClassifier.modelInput(x)), REPORTED_MISMATCHES));
+      if (candidate.hasBatch()) {
+        compareBatch(tally, ints, candidate::classifyAllArrays,
+            x -> tree.predict(EmittedClassifier.modelInput(x)));
+      }
       inputsChecked += ints.size();
+    }
+    if (candidate.hasBatch()) {
+      compareBatch(tally, inputs, candidate::classifyAll,
+          x -> tree.predict(candidate.modelInput(x)));
     }
     String self = source.qualifiedName().replace('.', '/');
     List<String> foreign = info.referencedClasses().stream()
@@ -149,6 +166,41 @@ public final class Verifier {
         .mapToInt(MethodSize::codeLength)
         .max()
         .orElse(0);
+  }
+
+  /**
+   * Compares {@link JavaEmitter#BATCH_METHOD} with the model: once from each of the first {@link
+   * JavaEmitter#BATCH_LANES} inputs on, so that every input is walked in every position of a
+   * group of rows, and among the rows after the last group.
+   */
+  private static <I> void compareBatch(Tally tally, List<I> inputs,
+      Function<List<I>, int[]> batch, Function<I, Integer> model) {
+    for (int from = 0; from < Math.min(JavaEmitter.BATCH_LANES, inputs.size()); from++) {
+      List<I> part = inputs.subList(from, inputs.size());
+      int[] answers;
+      RuntimeException failure;
+      try {
+        answers = batch.apply(part);
+        failure = null;
+      } catch (RuntimeException e) {
+        // Reported against every input, as a throwing classify is.
+        answers = null;
+        failure = e;
+      }
+      Map<I, Integer> position = new IdentityHashMap<>();
+      for (int k = 0; k < part.size(); k++) {
+        position.put(part.get(k), k);
+      }
+      int[] got = answers;
+      RuntimeException thrown = failure;
+      tally.add(JavaEmitter.BATCH_METHOD + " from input " + from + " on, ",
+          OracleComparison.compare(part, x -> {
+            if (thrown != null) {
+              throw thrown;
+            }
+            return got[position.get(x)];
+          }, model, REPORTED_MISMATCHES));
+    }
   }
 
   /** Mismatches of several comparisons, the first few described. */
