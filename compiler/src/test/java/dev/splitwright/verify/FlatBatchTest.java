@@ -22,6 +22,7 @@ import java.lang.reflect.Method;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.List;
+import java.util.function.Function;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -55,37 +56,39 @@ class FlatBatchTest {
     return JavaEmitter.emit(tree, options, HeaderInfo.none());
   }
 
-  private static EmittedSource tampered(EmittedSource source, String from, String to) {
-    assertThat(source.source()).contains(from);
-    return new EmittedSource(source.qualifiedName(), source.layout(),
-        source.source().replace(from, to));
-  }
-
-  @Test
-  void verifierCatchesOneWrongLane() throws Exception {
+  /**
+   * Verifies a Pima tree's flat class whose text from the first {@code from} on is changed by
+   * {@code to}, after checking that the unchanged class passes.
+   */
+  private static VerificationResult verifyTampered(String from, Function<String, String> to)
+      throws Exception {
     Dataset data = pima();
     DecisionTree tree = tree(data, 7);
     EmitOptions options = flat(InputKind.FLOAT).build();
     EmittedSource source = emit(tree, options);
     assertThat(VERIFIER.verify(tree, source, options, List.of(data), 1).passed()).isTrue();
+    String text = source.source();
+    int at = text.indexOf(from);
+    assertThat(at).as(from).isNotNegative();
+    String changed = text.substring(0, at) + to.apply(text.substring(at));
+    return VERIFIER.verify(tree, new EmittedSource(source.qualifiedName(), source.layout(),
+        changed), options, List.of(data), 1);
+  }
+
+  @Test
+  void verifierCatchesOneWrongLane() throws Exception {
     // The fourth row of each group reads the third row's leaf.
-    EmittedSource wrong = tampered(source, "out[row + 3] = LEAF[i3", "out[row + 3] = LEAF[i2");
-    VerificationResult v = VERIFIER.verify(tree, wrong, options, List.of(data), 1);
+    VerificationResult v = verifyTampered("out[row + 3] = LEAF[i3",
+        rest -> rest.replaceFirst("LEAF\\[i3", "LEAF[i2"));
     assertThat(v.mismatches()).isPositive();
     assertThat(v.verdict()).contains(JavaEmitter.BATCH_METHOD);
   }
 
   @Test
   void verifierCatchesAGroupThatSkipsTheWalkForMissingValues() throws Exception {
-    Dataset data = pima();
-    DecisionTree tree = tree(data, 7);
-    EmitOptions options = flat(InputKind.FLOAT).build();
-    EmittedSource source = emit(tree, options);
     // Without the test of the four rows, a NaN is decided by the sign of threshold minus NaN.
-    String test = source.source().substring(source.source().indexOf("|| (special(x0)"));
-    test = test.substring(0, test.indexOf(')', test.indexOf("< 0")));
-    EmittedSource wrong = tampered(source, test, "");
-    VerificationResult v = VERIFIER.verify(tree, wrong, options, List.of(data), 1);
+    VerificationResult v = verifyTampered("|| (special(x0)",
+        rest -> rest.substring(rest.indexOf(')', rest.indexOf("< 0"))));
     assertThat(v.mismatches()).as(v.verdict()).isPositive();
     assertThat(v.verdict()).contains(JavaEmitter.BATCH_METHOD);
   }
