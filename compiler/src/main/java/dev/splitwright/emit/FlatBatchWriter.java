@@ -11,25 +11,35 @@ import javax.lang.model.element.Modifier;
 
 /**
  * Emits {@code classifyAll} for a single {@code flat} tree: many rows at once, {@link #LANES} of
- * them walked side by side. One row's walk is a chain of loads, each waiting for the last; on a
- * deep tree whose arrays do not fit the first-level cache each link waits for the second level.
- * Four independent chains in one loop body let the core overlap those waits, which it cannot do
- * across the calls of a one-row loop once their instructions fill its window.
+ * them walked side by side, one level a step. One row's walk is a chain of loads, each waiting for
+ * the last, and a loop of one-row calls overlaps little of the next row's chain with this one's.
+ * Independent chains in one loop body keep the core busy; one level a step (rather than the
+ * one-row walk's two) does a third fewer comparisons, which is what counts once the chains
+ * overlap.
+ *
+ * <p>A finite row's walk also notes, from the values it reads, whether any of them was missing
+ * or infinite; only then does the group go through {@code classify} again. A value off the path
+ * cannot change the leaf, so reading the path is enough, and it costs less than testing every
+ * feature of every row first.
  */
 final class FlatBatchWriter {
   /**
-   * Rows walked side by side. Scratch timings on 2026-12-03, ns a row on the bench's depth-14
-   * tree: one row at a time 51, two lanes 37, four 30, eight 31 (and on the pump tree eight lanes
-   * took 26 against 14 for four: too many live values for the registers).
+   * Rows walked side by side. Scratch timings on 2026-12-04 (AMD EPYC family 26), ns a row with
+   * one level a step, pump demo tree / bench depth-14 tree: four lanes 12.4 / 32.2, six 12.5 /
+   * 29.0, eight 10.8 / 23.2, twelve 10.8 / 24.5, sixteen 11.2 / 25.1. The two-level step of the
+   * one-row walk took 12.3 / 28.9 with four lanes and 30.3 on the deep tree with eight (more live
+   * values than registers).
    */
-  static final int LANES = 4;
+  static final int LANES = 8;
 
   /**
-   * Upper bound of the method's bytecode bytes: 601 measured for an odd depth with probabilities
-   * and 30 features, which is the largest shape ({@code FlatBatchTest} holds the bound). A class
-   * whose cap is lower does not get the method.
+   * Upper bound of the method's bytecode bytes. Measured: 999 for double input with
+   * probabilities, the largest shape, and 973 for float ({@code FlatBatchTest} holds the bound).
+   * In a class of more than 256 constants a float method's 24 {@code int} constants may each take
+   * {@code ldc_w}, a byte longer than {@code ldc} (JVMS §6.5): 997. A class whose cap is lower
+   * does not get the method.
    */
-  static final int MAX_BYTES = 768;
+  static final int MAX_BYTES = 1024;
 
   private final Schema schema;
   private final InputAccess input;
@@ -38,8 +48,9 @@ final class FlatBatchWriter {
   private final boolean finiteWalk;
 
   /**
-   * @param finiteWalk whether the class has the finite rows' walk ({@code over}, {@code special});
-   *     then a group with a missing or infinite value goes through {@code classify} row by row
+   * @param finiteWalk whether finite rows are decided by subtraction (float and double input
+   *     without categorical slots); then a group with a missing or infinite value on a path goes
+   *     through {@code classify} row by row, else every step uses {@code right}
    */
   FlatBatchWriter(Schema schema, InputAccess input, LeafTable leaves, int depth,
       boolean finiteWalk) {
@@ -56,8 +67,8 @@ final class FlatBatchWriter {
         .addModifiers(Modifier.PUBLIC, Modifier.STATIC)
         .addJavadoc("Classifies every row as {@link #classify} does and writes the class indexes"
             + " to\n{@code out}: for a log or a buffer of readings. Rows are walked $L at a time,"
-            + " so that\ntheir table loads overlap, which a loop of {@code classify} calls cannot"
-            + " do as well\non a tree whose tables outgrow the first-level cache.\n\n", LANES)
+            + " so that\ntheir walks overlap, which a loop of {@code classify} calls cannot do as"
+            + " well.\n\n", LANES)
         .addJavadoc("@param rows the inputs, each as for {@link #classify}\n"
             + "@param out receives the class index of {@code rows[r]} at {@code out[r]}; at least"
             + " as\n    long as {@code rows}\n"
@@ -86,52 +97,58 @@ final class FlatBatchWriter {
     CodeBlock.Builder code = CodeBlock.builder()
         .beginControlFlow("for (; row + $L <= rows.length; row += $L)", LANES, LANES);
     List<String> lengths = new ArrayList<>();
-    List<String> specials = new ArrayList<>();
     for (int j = 0; j < LANES; j++) {
       code.addStatement("$T x$L = rows[$L]", row, j, at(j));
       lengths.add("(x" + j + ".length - " + schema.featureCount() + ")");
-      specials.add("special(x" + j + ")");
     }
-    // $W lets the condition wrap between its terms.
-    String odd = "(" + String.join(" |$W", lengths) + ") != 0";
-    if (finiteWalk) {
-      odd += "$W|| (" + String.join(" |$W", specials) + ") < 0";
-    }
-    code.add("// A row of the wrong length is refused by classify; with a missing or infinite\n"
-            + "// value it takes classify's other walk.\n")
-        .beginControlFlow("if (" + odd + ")");
-    for (int j = 0; j < LANES; j++) {
-      code.addStatement("out[$L] = classify(x$L)", at(j), j);
-    }
-    code.addStatement("continue").endControlFlow();
+    code.add("// A row of the wrong length is refused by classify.\n")
+        .beginControlFlow("if ((" + String.join(" |$W", lengths) + ") != 0)")
+        .add(oneByOne())
+        .addStatement("continue")
+        .endControlFlow();
     for (int j = 0; j < LANES; j++) {
       code.addStatement("int i$L = 0", j);
     }
-    String decide = finiteWalk ? "over" : "right";
-    if (depth >= 2) {
-      code.beginControlFlow("for (int step = 0; step < $L; step++)", depth / 2);
-      for (int j = 0; j < LANES; j++) {
-        code.addStatement("int r$L = $L(x$L, i$L)", j, decide, j, j)
-            .addStatement("int b$L = $L(x$L, 2 * i$L + 1)", j, decide, j, j)
-            .addStatement("int c$L = $L(x$L, 2 * i$L + 2)", j, decide, j, j);
-      }
-      code.add("// As in the one-row walk: grandchild 4i + 3 + 2r + (c if r, else b).\n");
-      for (int j = 0; j < LANES; j++) {
-        code.addStatement("i$L = 4 * i$L + 3 + 2 * r$L + (b$L ^ ((b$L ^ c$L) & -r$L))",
-            j, j, j, j, j, j, j);
-      }
-      code.endControlFlow();
+    boolean dbl = input.kind() == InputKind.DOUBLE;
+    if (finiteWalk) {
+      code.addStatement("$L odd = 0", dbl ? "long" : "int");
     }
-    if (depth % 2 == 1) {
-      for (int j = 0; j < LANES; j++) {
-        code.addStatement("i$L = 2 * i$L + 1 + $L(x$L, i$L)", j, j, decide, j, j);
+    code.beginControlFlow("for (int step = 0; step < $L; step++)", depth);
+    for (int j = 0; j < LANES; j++) {
+      String lane = "i" + j;
+      if (finiteWalk) {
+        String value = "v" + j;
+        code.addStatement("$T $L = x$L[NODE[$L] >>> $L]", input.elementType(), value, j, lane,
+                FlatTree.FEATURE_SHIFT)
+            .addStatement("odd |= $L", FlatWriter.oddTerm(input.kind(), value))
+            .addStatement("$L = 2 * $L + 1 + ($L)", lane, lane,
+                FlatWriter.overTerm(input.kind(), lane, value));
+      } else {
+        code.addStatement("$L = 2 * $L + 1 + right(x$L, $L)", lane, lane, j, lane);
       }
+    }
+    code.endControlFlow();
+    if (finiteWalk) {
+      code.add("// A missing or infinite value on a path: classify takes the walk for those.\n")
+          .beginControlFlow("if (odd < 0)")
+          .add(oneByOne())
+          .addStatement("continue")
+          .endControlFlow();
     }
     for (int j = 0; j < LANES; j++) {
       CodeBlock slot = CodeBlock.of("LEAF[i$L - $L]", j, (1 << depth) - 1);
       code.addStatement("out[$L] = $L", at(j), leaves.classOf(slot));
     }
     return code.endControlFlow().build();
+  }
+
+  /** The group's rows through {@code classify}, one by one. */
+  private static CodeBlock oneByOne() {
+    CodeBlock.Builder code = CodeBlock.builder();
+    for (int j = 0; j < LANES; j++) {
+      code.addStatement("out[$L] = classify(x$L)", at(j), j);
+    }
+    return code.build();
   }
 
   /** The index of lane {@code j} in the group that starts at {@code row}. */

@@ -508,9 +508,7 @@ final class FlatWriter {
   /** {@code special(x)}: negative when some value is NaN or infinite, by arithmetic alone. */
   private MethodSpec special() {
     boolean dbl = input.kind() == InputKind.DOUBLE;
-    String term = dbl
-        ? "(0x7fefffffffffffffL - (Double.doubleToRawLongBits(x[$L]) & Long.MAX_VALUE))"
-        : "(0x7f7fffff - (Float.floatToRawIntBits(x[$L]) & 0x7fffffff))";
+    String term = oddTerm(input.kind(), "x[$L]");
     CodeBlock.Builder code = CodeBlock.builder()
         .add("// Magnitude bits above the largest finite value's mean NaN or infinity (IEEE\n"
             + "// 754-2019 section 3.4): the difference is then negative.\n");
@@ -558,13 +556,31 @@ final class FlatWriter {
    * an infinite threshold gives an infinite difference of the right sign.
    */
   private MethodSpec over() {
-    boolean dbl = input.kind() == InputKind.DOUBLE;
     return decision("over", "for a finite value, ", ", all finite")
-        .addStatement(dbl
-            ? "return (int) (Double.doubleToRawLongBits(KEY[i] - x[NODE[i] >>> $L]) >>> 63)"
-            : "return Float.floatToRawIntBits(KEY[i] - x[NODE[i] >>> $L]) >>> 31",
-            FlatTree.FEATURE_SHIFT)
+        .addStatement("return $L", overTerm(input.kind(), "i",
+            "x[NODE[i] >>> " + FlatTree.FEATURE_SHIFT + "]"))
         .build();
+  }
+
+  /**
+   * The decision of {@link #over()} for the finite {@code value} at split slot {@code slot}, as an
+   * expression (to be parenthesized inside another): 1 when it goes right, else 0. {@link
+   * FlatBatchWriter} inlines it.
+   */
+  static String overTerm(InputKind kind, String slot, String value) {
+    return kind == InputKind.DOUBLE
+        ? "(int) (Double.doubleToRawLongBits(KEY[" + slot + "] - " + value + ") >>> 63)"
+        : "Float.floatToRawIntBits(KEY[" + slot + "] - " + value + ") >>> 31";
+  }
+
+  /**
+   * A term of {@link #special()} for {@code value}: negative when it is NaN or infinite (an
+   * {@code int}, or a {@code long} for double input), else zero or more.
+   */
+  static String oddTerm(InputKind kind, String value) {
+    return kind == InputKind.DOUBLE
+        ? "(0x7fefffffffffffffL - (Double.doubleToRawLongBits(" + value + ") & Long.MAX_VALUE))"
+        : "(0x7f7fffff - (Float.floatToRawIntBits(" + value + ") & 0x7fffffff))";
   }
 
   /**

@@ -86,9 +86,10 @@ class FlatBatchTest {
 
   @Test
   void verifierCatchesAGroupThatSkipsTheWalkForMissingValues() throws Exception {
-    // Without the test of the four rows, a NaN is decided by the sign of threshold minus NaN.
-    VerificationResult v = verifyTampered("|| (special(x0)",
-        rest -> rest.substring(rest.indexOf(')', rest.indexOf("< 0"))));
+    // Without the test of the values on the paths, a NaN is decided by the sign of threshold
+    // minus NaN.
+    VerificationResult v = verifyTampered("if (odd < 0)",
+        rest -> rest.replaceFirst("odd < 0", "odd < 0 && row < 0"));
     assertThat(v.mismatches()).as(v.verdict()).isPositive();
     assertThat(v.verdict()).contains(JavaEmitter.BATCH_METHOD);
   }
