@@ -179,6 +179,48 @@ class FlatBatchTest {
   }
 
   @Test
+  void aMissingValueOnOrOffThePathGivesWhatTheModelGives() throws Throwable {
+    // The walk tests only the values it reads: a NaN off a row's path must leave its leaf as it
+    // is, one on the path must send the group through classify. Every complete Pima row with
+    // each feature in turn made NaN (one copy a lane position), and with none.
+    Dataset data = pima();
+    DecisionTree tree = tree(data, 6);
+    EmittedSource source = emit(tree, flat(InputKind.FLOAT).build());
+    Method all = VERIFIER.compiler().compileOne(source.qualifiedName(), source.source())
+        .load(source.qualifiedName())
+        .getMethod(JavaEmitter.BATCH_METHOD, float[][].class, int[].class);
+    int features = data.schema().featureCount();
+    List<float[]> rows = new java.util.ArrayList<>();
+    for (int r = 0; r < data.rows(); r++) {
+      float[] row = data.row(r);
+      boolean complete = true;
+      for (float v : row) {
+        complete &= !Float.isNaN(v);
+      }
+      if (!complete) {
+        continue;
+      }
+      rows.add(row);
+      for (int f = 0; f < features; f++) {
+        float[] copy = row.clone();
+        copy[f] = Float.NaN;
+        rows.add(copy);
+      }
+    }
+    float[][] inputs = rows.toArray(new float[0][]);
+    int[] out = new int[inputs.length];
+    invoke(all, inputs, out);
+    int changed = 0;
+    for (int i = 0; i < inputs.length; i++) {
+      assertThat(out[i]).as("row %d", i).isEqualTo(tree.predict(inputs[i]));
+      int complete = i - i % (features + 1);
+      changed += out[i] == tree.predict(inputs[complete]) ? 0 : 1;
+    }
+    // Some NaN must land on a path and change the class, else classify's walk went untested.
+    assertThat(changed).isPositive();
+  }
+
+  @Test
   void refusesAShortOutArrayAndARowOfTheWrongLength() throws Throwable {
     Dataset data = pima();
     EmittedSource source = emit(tree(data, 5), flat(InputKind.FLOAT).build());
