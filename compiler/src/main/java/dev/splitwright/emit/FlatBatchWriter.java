@@ -118,8 +118,8 @@ final class FlatBatchWriter {
       String lane = "i" + j;
       if (finiteWalk) {
         String value = "v" + j;
-        code.addStatement("$T $L = x$L[NODE[$L] >>> $L]", input.elementType(), value, j, lane,
-                FlatTree.FEATURE_SHIFT)
+        code.addStatement("$T $L = $L", input.elementType(), value,
+                FlatWriter.valueAt("x" + j, lane))
             .addStatement("odd |= $L", FlatWriter.oddTerm(input.kind(), value))
             .addStatement("$L = 2 * $L + 1 + ($L)", lane, lane,
                 FlatWriter.overTerm(input.kind(), lane, value));

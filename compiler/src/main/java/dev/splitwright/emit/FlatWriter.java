@@ -557,8 +557,7 @@ final class FlatWriter {
    */
   private MethodSpec over() {
     return decision("over", "for a finite value, ", ", all finite")
-        .addStatement("return $L", overTerm(input.kind(), "i",
-            "x[NODE[i] >>> " + FlatTree.FEATURE_SHIFT + "]"))
+        .addStatement("return $L", overTerm(input.kind(), "i", valueAt("x", "i")))
         .build();
   }
 
@@ -571,6 +570,11 @@ final class FlatWriter {
     return kind == InputKind.DOUBLE
         ? "(int) (Double.doubleToRawLongBits(KEY[" + slot + "] - " + value + ") >>> 63)"
         : "Float.floatToRawIntBits(KEY[" + slot + "] - " + value + ") >>> 31";
+  }
+
+  /** The value of row {@code x} that split slot {@code slot} tests, as an expression. */
+  static String valueAt(String x, String slot) {
+    return x + "[NODE[" + slot + "] >>> " + FlatTree.FEATURE_SHIFT + "]";
   }
 
   /**

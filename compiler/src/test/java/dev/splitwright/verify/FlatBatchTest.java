@@ -20,6 +20,7 @@ import dev.splitwright.train.TrainingOptions;
 import java.lang.reflect.InvocationTargetException;
 import java.lang.reflect.Method;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.function.Function;
@@ -181,8 +182,9 @@ class FlatBatchTest {
   @Test
   void aMissingValueOnOrOffThePathGivesWhatTheModelGives() throws Throwable {
     // The walk tests only the values it reads: a NaN off a row's path must leave its leaf as it
-    // is, one on the path must send the group through classify. Every complete Pima row with
-    // each feature in turn made NaN (one copy a lane position), and with none.
+    // is, one on the path must send the group through classify. Every complete Pima row, as it
+    // is and with each feature in turn made NaN: nine inputs a row against groups of eight, so
+    // each copy comes in every lane position over the rows.
     Dataset data = pima();
     DecisionTree tree = tree(data, 6);
     EmittedSource source = emit(tree, flat(InputKind.FLOAT).build());
@@ -190,7 +192,7 @@ class FlatBatchTest {
         .load(source.qualifiedName())
         .getMethod(JavaEmitter.BATCH_METHOD, float[][].class, int[].class);
     int features = data.schema().featureCount();
-    List<float[]> rows = new java.util.ArrayList<>();
+    List<float[]> rows = new ArrayList<>();
     for (int r = 0; r < data.rows(); r++) {
       float[] row = data.row(r);
       boolean complete = true;
