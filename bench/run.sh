@@ -42,7 +42,7 @@ java -jar "$jar" 'TrainingBenchmark\.wekaJ48$' \
   -f "$j48_forks" -p depth=14 -jvmArgsPrepend "$store" \
   -prof dev.splitwright.bench.PeakHeapProfiler -prof gc \
   -rf json -rff "$out/$profile-j48.json"
-java -jar "$jar" 'PredictionBenchmark' "${predict[@]}" -jvmArgsPrepend "$store" \
+java -jar "$jar" 'PredictionBenchmark|EnsembleBenchmark' "${predict[@]}" -jvmArgsPrepend "$store" \
   -rf json -rff "$out/$profile-prediction.json"
 java "$store" -cp "$jar" dev.splitwright.bench.ModelSummary "bench/target/$profile-models.md"
 

@@ -8,7 +8,9 @@ import dev.splitwright.emit.EmittedSource;
 import dev.splitwright.emit.HeaderInfo;
 import dev.splitwright.emit.JavaEmitter;
 import dev.splitwright.emit.Layout;
+import dev.splitwright.model.Classifier;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.lang.invoke.MethodHandle;
@@ -45,12 +47,12 @@ final class GeneratedClassifier {
   private GeneratedClassifier() {}
 
   /**
-   * Emits {@code tree} in {@code layout}, compiles and loads it.
+   * Emits {@code model} (a tree or an ensemble) in {@code layout}, compiles and loads it.
    *
    * @throws IllegalArgumentException for {@link Layout#SMALLEST}, which is a choice, not a layout
    */
-  static MethodHandle emitAndLoad(DecisionTree tree, Layout layout) {
-    return handle(emitAndLoadClass(tree, layout), "classify", CLASSIFY);
+  static MethodHandle emitAndLoad(Classifier model, Layout layout) {
+    return handle(emitAndLoadClass(model, layout), "classify", CLASSIFY);
   }
 
   /** Emits {@code tree} flat, compiles and loads it, and hands out its many-row entry. */
@@ -58,18 +60,19 @@ final class GeneratedClassifier {
     return handle(emitAndLoadClass(tree, Layout.FLAT), JavaEmitter.BATCH_METHOD, CLASSIFY_ALL);
   }
 
-  private static Class<?> emitAndLoadClass(DecisionTree tree, Layout layout) {
-    EmittedSource source = emit(tree, layout);
+  private static Class<?> emitAndLoadClass(Classifier model, Layout layout) {
+    EmittedSource source = emit(model, layout);
     return compileAndLoad(source.qualifiedName(), source.source());
   }
 
-  private static EmittedSource emit(DecisionTree tree, Layout layout) {
+  private static EmittedSource emit(Classifier model, Layout layout) {
     EmitOptions options = EmitOptions.builder(PACKAGE,
-            "Model" + layout.optionName().substring(0, 1).toUpperCase(Locale.ROOT)
+            (model instanceof TreeEnsemble ? "Forest" : "Model")
+                + layout.optionName().substring(0, 1).toUpperCase(Locale.ROOT)
                 + layout.optionName().substring(1))
         .layout(layout)
         .build();
-    return JavaEmitter.emit(tree, options, HeaderInfo.none());
+    return JavaEmitter.emit(model, options, HeaderInfo.none());
   }
 
   /** Loads the hand-written {@link #TRIVIAL_SOURCE}. */

@@ -17,8 +17,8 @@ import java.util.TreeSet;
 
 /**
  * Turns JMH's JSON results into the Markdown table the README shows: machine and date, prediction
- * cost per form with the ratios to the generated class, training cost with medians and peak heap,
- * and each of the issue's targets marked met or missed by how much.
+ * cost per form with the ratios to the generated class, a forest's cost per layout, training cost
+ * with medians and peak heap, and each of the issue's targets marked met or missed by how much.
  *
  * <pre>
  * ResultTable --profile quick --out bench/results/quick.md [--load-start "1.0 0.9 0.8"]
@@ -80,6 +80,10 @@ public final class ResultTable {
     PredictionSection prediction = new PredictionSection(results);
     if (!prediction.isEmpty()) {
       md.append(prediction.render()).append("\n");
+    }
+    EnsembleSection ensemble = new EnsembleSection(results);
+    if (!ensemble.isEmpty()) {
+      md.append(ensemble.render()).append("\n");
     }
     TrainingSection training = new TrainingSection(results);
     if (!training.isEmpty()) {

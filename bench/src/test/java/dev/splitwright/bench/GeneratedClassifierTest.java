@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import dev.splitwright.data.Dataset;
 import dev.splitwright.emit.Layout;
 import dev.splitwright.model.DecisionTree;
+import dev.splitwright.model.TreeEnsemble;
 import dev.splitwright.train.CartTrainer;
 import java.lang.invoke.MethodHandle;
 import org.junit.jupiter.api.BeforeAll;
@@ -56,6 +57,19 @@ class GeneratedClassifierTest {
     classifyAll.invokeExact(rows, out);
     for (int i = 0; i < rows.length; i++) {
       assertThat(out[i]).as("row %d", i).isEqualTo(tree.predict(rows[i]));
+    }
+  }
+
+  @Test
+  void forestClassesReturnWhatTheForestReturnsOnEveryInputInEveryLayout() throws Throwable {
+    TreeEnsemble forest = EnsembleBenchmark.forest(BenchModel.PUMP.trainingSet());
+    assertThat(forest.treeCount()).isEqualTo(EnsembleBenchmark.TREES);
+    for (Layout layout : new Layout[] {Layout.BRANCHES, Layout.TABLE, Layout.FLAT}) {
+      MethodHandle classify = GeneratedClassifier.emitAndLoad(forest, layout);
+      for (float[] x : inputs.rows()) {
+        assertThat((int) classify.invokeExact(x)).as(layout.optionName())
+            .isEqualTo(forest.predict(x));
+      }
     }
   }
 

@@ -29,6 +29,17 @@ class ResultTableTest {
         """, PREFIX, method, model, order, mean, low, mean, high);
   }
 
+  private static String forest(String method, String order, double ns) {
+    return String.format(Locale.ROOT, """
+        {"benchmark": "%sEnsembleBenchmark.%s", "forks": 1, "jdkVersion": "17.0.15",
+         "vmName": "OpenJDK 64-Bit Server VM", "vmVersion": "17.0.15+6",
+         "params": {"order": "%s"},
+         "primaryMetric": {"score": %s, "scoreError": "NaN", "scoreUnit": "ns/op",
+                           "rawData": [[%s, %s, %s]]},
+         "secondaryMetrics": {}}
+        """, PREFIX, method, order, ns, ns, ns, ns);
+  }
+
   private static String training(String method, String params, String rawMs, String heapMib) {
     return String.format(Locale.ROOT, """
         {"benchmark": "%sTrainingBenchmark.%s", "forks": 3, "jdkVersion": "17.0.15",
@@ -56,7 +67,10 @@ class ResultTableTest {
         training("splitwrightLarge", "", "[[12000], [9000], [11000], [10000]]",
             "[[500], [524], [510], [600]]"),
         prediction("generatedBranchesBlock", "pump", "shuffled", 30),
-        prediction("generatedFlatBlock", "pump", "shuffled", 21)) + "]";
+        prediction("generatedFlatBlock", "pump", "shuffled", 21),
+        forest("forestBranches", "shuffled", 80),
+        forest("forestFlat", "shuffled", 120),
+        forest("forestBranches", "timeOrdered", 50)) + "]";
     return BenchResult.allOf(new ObjectMapper().readTree(json));
   }
 
@@ -104,6 +118,18 @@ class ResultTableTest {
             + " | 0.70× **missed by 17%** | — not measured |")
         .contains("| blocks: `classifyAll` ≤ 0.8× the `branches` loop, shuffled"
             + " | 0.70× met | — not measured |");
+  }
+
+  @Test
+  void forestRowsDivideByTheBranchesForestInTheSameOrder() throws Exception {
+    // 120 / 80 = 1.5; nothing measured for table, nor for flat in time order.
+    assertThat(render())
+        .contains("## Forest prediction cost")
+        .contains("| `branches` | 80.0 | 50.0 | 1.00× | 1.00× |")
+        .contains("| `table` | — | — | — | — |")
+        .contains("| `flat` | 120 | — | 1.50× | — |");
+    // The one-tree table does not take the forest's rows.
+    assertThat(render()).contains("| generated class, `flat` layout | — | — | — | — |");
   }
 
   @Test

@@ -172,17 +172,41 @@ final class EnsembleVotes {
    */
   static void addLoopedScores(TypeSpec.Builder type, TreeEnsemble trees, InputAccess input,
       String tree) {
+    MethodSpec.Builder scores = loopedStart(trees, input);
+    addVoteLoop(scores, trees, "leaf", tree);
+    type.addMethod(scores.addStatement("return out").build());
+  }
+
+  /**
+   * Adds {@code scores} as {@link #addLoopedScores} does, with one test of the row before the
+   * trees instead of one in each: a row for which {@code test} holds takes {@code walkIf(x, j)},
+   * any other {@code walkElse(x, j)}.
+   */
+  static void addTestedScores(TypeSpec.Builder type, TreeEnsemble trees, InputAccess input,
+      String test, String walkIf, String walkElse) {
+    MethodSpec.Builder scores = loopedStart(trees, input)
+        .addCode("// One test of the row serves every tree.\n")
+        .beginControlFlow("if ($L)", test);
+    addVoteLoop(scores, trees, walkIf, "j");
+    scores.nextControlFlow("else");
+    addVoteLoop(scores, trees, walkElse, "j");
+    type.addMethod(scores.endControlFlow().addStatement("return out").build());
+  }
+
+  private static MethodSpec.Builder loopedStart(TreeEnsemble trees, InputAccess input) {
     MethodSpec.Builder scores = scoresStart(trees, input);
     if (input.named()) {
       scores.addStatement("$T[] x = $L", input.elementType(), input.asArray());
     }
+    return scores;
+  }
+
+  private static void addVoteLoop(MethodSpec.Builder scores, TreeEnsemble trees, String walk,
+      String tree) {
     boolean forest = trees.kind() == TreeEnsemble.Kind.FOREST;
-    type.addMethod(scores
-        .beginControlFlow("for (int j = 0; j < $L; j++)", trees.treeCount())
-        .addStatement("out[leaf(x, $L)] += $L", tree, forest ? "1f" : "WEIGHT[j]")
-        .endControlFlow()
-        .addStatement("return out")
-        .build());
+    scores.beginControlFlow("for (int j = 0; j < $L; j++)", trees.treeCount())
+        .addStatement("out[$L(x, $L)] += $L", walk, tree, forest ? "1f" : "WEIGHT[j]")
+        .endControlFlow();
   }
 
   /** The literal of tree {@code t}'s weight. */

@@ -71,17 +71,32 @@ public final class FlatTree {
    * @throws EmitLimitException if the tree is deeper than {@link #MAX_DEPTH} for this input
    */
   public static FlatTree of(DecisionTree tree, InputKind kind, ToIntFunction<Leaf> payload) {
+    return of(tree, kind, payload, 0);
+  }
+
+  /**
+   * Lays {@code tree} out as {@link #of(DecisionTree, InputKind, ToIntFunction)} does, padded to
+   * at least {@code depth}: the trees of an ensemble then share one walk of a fixed length.
+   *
+   * @throws EmitLimitException if the tree is deeper than {@link #MAX_DEPTH} for this input
+   */
+  public static FlatTree of(DecisionTree tree, InputKind kind, ToIntFunction<Leaf> payload,
+      int depth) {
     Objects.requireNonNull(tree, "tree");
     Objects.requireNonNull(kind, "kind");
     Objects.requireNonNull(payload, "payload");
+    if (depth < 0 || depth > MAX_DEPTH) {
+      throw new IllegalArgumentException("depth must be between 0 and " + MAX_DEPTH + ", but it is "
+          + depth);
+    }
     Node root = kind == InputKind.INT ? withoutEmptyLeftSides(tree.root()) : tree.root();
-    int depth = depthOf(root);
-    if (depth > MAX_DEPTH) {
+    int padded = Math.max(depth, depthOf(root));
+    if (padded > MAX_DEPTH) {
       throw new EmitLimitException("layout", "the flat layout pads the tree to a complete tree of "
-          + "its depth, at most " + MAX_DEPTH + ", but the tree has depth " + depth,
+          + "its depth, at most " + MAX_DEPTH + ", but the tree has depth " + padded,
           "use --layout table");
     }
-    FlatTree flat = new FlatTree(depth);
+    FlatTree flat = new FlatTree(padded);
     flat.place(root, 0, 0, kind, tree, payload);
     return flat;
   }

@@ -101,6 +101,13 @@ class FlatTreeTest {
       DecisionTree tree = RandomTrees.tree(random, new RandomTrees.Shape(
           Math.min(12, drawn.maxDepth()), drawn.maxNodes(), drawn.features(), drawn.classes()));
       FlatTree flat = FlatTree.of(tree, InputKind.FLOAT, Leaf::prediction);
+      // Padded deeper, as an ensemble's trees are to share one step count: the same leaves.
+      int deeper = flat.depth() + 1 + random.nextInt(3);
+      FlatTree padded = FlatTree.of(tree, InputKind.FLOAT, Leaf::prediction, deeper);
+      assertThat(padded.depth()).isEqualTo(deeper);
+      assertThat(FlatTree.of(tree, InputKind.FLOAT, Leaf::prediction,
+          Math.max(0, flat.depth() - 1)).depth())
+          .isEqualTo(flat.depth());
       List<Float> edges = edges();
       for (int probe = 0; probe < 200; probe++) {
         float[] x = new float[tree.schema().featureCount()];
@@ -109,8 +116,19 @@ class FlatTreeTest {
               : (float) (random.nextGaussian() * 10);
         }
         assertThat(flat.walk(x)).isEqualTo(tree.predict(x));
+        assertThat(padded.walk(x)).isEqualTo(tree.predict(x));
       }
     }
+  }
+
+  @Test
+  void refusesAPaddingDepthOutsideTheLayoutsRange() {
+    DecisionTree tree = new DecisionTree(ONE, new Leaf(0, ANY));
+    assertThatThrownBy(() -> FlatTree.of(tree, InputKind.FLOAT, Leaf::prediction, 17))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessage("depth must be between 0 and 16, but it is 17");
+    assertThatThrownBy(() -> FlatTree.of(tree, InputKind.FLOAT, Leaf::prediction, -1))
+        .hasMessage("depth must be between 0 and 16, but it is -1");
   }
 
   @Test

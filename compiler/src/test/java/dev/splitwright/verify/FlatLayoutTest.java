@@ -85,20 +85,33 @@ class FlatLayoutTest {
         {"house-votes-84.csv", "Class"}}) {
       Dataset data = CsvLoader.load(Path.of("src/test/resources/datasets", set[0]),
           LoadOptions.builder().target(set[1]).build()).dataset();
-      DecisionTree tree = CartTrainer.train(data, TrainingOptions.builder().maxDepth(8).build());
-      // An ensemble's walk takes its odd first level by arithmetic: trees of odd and even depth.
-      TreeEnsemble forest = TreeEnsemble.forest(List.of(tree,
-          CartTrainer.train(data, TrainingOptions.builder().maxDepth(5).build())));
+      DecisionTree deep = tree(data, 8);
+      DecisionTree five = tree(data, 5);
+      DecisionTree two = tree(data, 2);
+      // Padded to one depth, even and odd (the slots at most double); and left ragged, which
+      // reads each tree's depth and takes an odd first level by arithmetic.
+      List<TreeEnsemble> forests = List.of(TreeEnsemble.forest(List.of(deep, five)),
+          TreeEnsemble.forest(List.of(five, tree(data, 3))),
+          TreeEnsemble.forest(List.of(deep, two, two)));
       for (InputKind kind : InputKind.values()) {
-        for (Classifier model : List.<Classifier>of(tree, forest)) {
-          // House votes are all categorical; Pima all numeric.
-          assertWalkBranchesOnItsStepCount(model, kind, set[0].startsWith("house"));
+        // House votes are all categorical; Pima all numeric.
+        boolean categorical = set[0].startsWith("house");
+        assertWalkBranchesOnItsStepCount(deep, kind, categorical);
+        for (int f = 0; f < forests.size(); f++) {
+          String source = assertWalkBranchesOnItsStepCount(forests.get(f), kind, categorical);
+          assertThat(source.contains("int d = DEPTH[t];")).as("forest %d ragged", f)
+              .isEqualTo(f == 2);
         }
       }
     }
   }
 
-  private static void assertWalkBranchesOnItsStepCount(Classifier model, InputKind kind,
+  private static DecisionTree tree(Dataset data, int depth) {
+    return CartTrainer.train(data, TrainingOptions.builder().maxDepth(depth).build());
+  }
+
+  /** Asserts the branch shape of the walk and the test that picks it; returns the source. */
+  private static String assertWalkBranchesOnItsStepCount(Classifier model, InputKind kind,
       boolean categorical) throws Exception {
     EmitOptions options = EmitOptions.builder("check", "Flat")
         .layout(Layout.FLAT).inputKind(kind).build();
@@ -112,7 +125,7 @@ class FlatLayoutTest {
     if (kind == InputKind.INT || categorical) {
       // Int keys and categorical codes take one walk for every row.
       assertLoopOnly(MethodOpcodes.of(bytes, "leaf"), kind);
-      return;
+      return source.source();
     }
     // Float and double: a finite row takes the walk that decides by subtraction, a row with a
     // NaN or an infinity the one by order keys. That choice is the one branch on the row.
@@ -123,10 +136,17 @@ class FlatLayoutTest {
     // Pima's 8 features are read one by one, without a loop: no branch at all.
     assertThat(MethodOpcodes.of(bytes, "special"))
         .as(kind.optionName()).noneMatch(MethodOpcodes.Instruction::conditionalBranch);
+    if (model instanceof TreeEnsemble) {
+      // The row is tested once for all trees, in scores: that test and each loop's exit.
+      assertThat(MethodOpcodes.of(bytes, "scores").stream()
+          .filter(MethodOpcodes.Instruction::conditionalBranch)).as(kind.optionName()).hasSize(3);
+      return source.source();
+    }
     List<MethodOpcodes.Instruction> dispatch = MethodOpcodes.of(bytes, "leaf");
     assertThat(dispatch.stream().filter(MethodOpcodes.Instruction::conditionalBranch))
         .as(kind.optionName()).hasSize(1);
     assertThat(dispatch).noneMatch(MethodOpcodes.Instruction::isGoto);
+    return source.source();
   }
 
   private static void assertLoopOnly(List<MethodOpcodes.Instruction> code, InputKind kind) {
