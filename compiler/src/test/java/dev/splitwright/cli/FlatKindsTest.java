@@ -40,7 +40,8 @@ class FlatKindsTest {
 
     assertThat(run.exitCode()).as(run.err()).isZero();
     assertThat(run.out()).contains("0 mismatches");
-    assertThat(Files.readString(out.resolve("P.java"))).contains("int walkFinite(float[] x, int t)");
+    assertThat(Files.readString(out.resolve("P.java")))
+        .contains("int walkFinite(float[] x, int t)");
   }
 
   @Test
