@@ -65,15 +65,7 @@ public class EnsembleBenchmark {
       case TABLE -> ConstantHandles.Slot.TABLE;
       default -> ConstantHandles.Slot.FLAT;
     };
-    MethodHandle classify = GeneratedClassifier.emitAndLoad(forest, layout);
-    for (int i = 0; i < rows.length; i++) {
-      int got = (int) classify.invokeExact(rows[i]);
-      int want = forest.predict(rows[i]);
-      if (got != want) {
-        throw new IllegalStateException("generated " + layout.optionName() + " forest returns "
-            + got + " but the model returns " + want + " on input row " + i);
-      }
-    }
+    MethodHandle classify = GeneratedClassifier.emitLoadAndCheck(forest, layout, rows);
     ConstantHandles.offer(slot, classify);
     ConstantHandles.check(slot, classify);
   }

@@ -55,6 +55,27 @@ final class GeneratedClassifier {
     return handle(emitAndLoadClass(model, layout), "classify", CLASSIFY);
   }
 
+  /**
+   * Emits, compiles and loads {@code model} as {@link #emitAndLoad} does, and checks that the
+   * class returns what the model returns on every one of {@code rows}: a benchmark of the wrong
+   * classifier would measure nothing.
+   *
+   * @throws IllegalStateException naming the first row where they differ
+   */
+  static MethodHandle emitLoadAndCheck(Classifier model, Layout layout, float[][] rows)
+      throws Throwable {
+    MethodHandle classify = emitAndLoad(model, layout);
+    for (int i = 0; i < rows.length; i++) {
+      int got = (int) classify.invokeExact(rows[i]);
+      int want = model.predict(rows[i]);
+      if (got != want) {
+        throw new IllegalStateException("generated " + layout.optionName() + " class returns "
+            + got + " but the model returns " + want + " on input row " + i);
+      }
+    }
+    return classify;
+  }
+
   /** Emits {@code tree} flat, compiles and loads it, and hands out its many-row entry. */
   static MethodHandle emitAndLoadBatch(DecisionTree tree) {
     return handle(emitAndLoadClass(tree, Layout.FLAT), JavaEmitter.BATCH_METHOD, CLASSIFY_ALL);

@@ -111,15 +111,7 @@ public class PredictionBenchmark {
   private void loadGenerated(Dataset training, BenchModel bench, Layout layout,
       ConstantHandles.Slot slot) throws Throwable {
     DecisionTree trained = CartTrainer.train(training, bench.trainingOptions());
-    MethodHandle classify = GeneratedClassifier.emitAndLoad(trained, layout);
-    for (int i = 0; i < rows.length; i++) {
-      int got = (int) classify.invokeExact(rows[i]);
-      int want = trained.predict(rows[i]);
-      if (got != want) {
-        throw new IllegalStateException("generated " + layout.optionName() + " class returns "
-            + got + " but the model returns " + want + " on input row " + i);
-      }
-    }
+    MethodHandle classify = GeneratedClassifier.emitLoadAndCheck(trained, layout, rows);
     ConstantHandles.offer(slot, classify);
     ConstantHandles.check(slot, classify);
   }
