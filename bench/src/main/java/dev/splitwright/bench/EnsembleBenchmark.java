@@ -54,17 +54,16 @@ public class EnsembleBenchmark {
     Dataset training = BenchModel.PUMP.trainingSet();
     rows = BenchModel.PUMP.inputs(training, InputOrder.ofParam(order)).rows();
     TreeEnsemble forest = forest(training);
-    Layout layout = switch (method) {
-      case "forestBranches" -> Layout.BRANCHES;
-      case "forestTable" -> Layout.TABLE;
-      case "forestFlat" -> Layout.FLAT;
+    switch (method) {
+      case "forestBranches" -> load(forest, Layout.BRANCHES, ConstantHandles.Slot.BRANCHES);
+      case "forestTable" -> load(forest, Layout.TABLE, ConstantHandles.Slot.TABLE);
+      case "forestFlat" -> load(forest, Layout.FLAT, ConstantHandles.Slot.FLAT);
       default -> throw new IllegalStateException("no setup for benchmark method " + method);
-    };
-    ConstantHandles.Slot slot = switch (layout) {
-      case BRANCHES -> ConstantHandles.Slot.BRANCHES;
-      case TABLE -> ConstantHandles.Slot.TABLE;
-      default -> ConstantHandles.Slot.FLAT;
-    };
+    }
+  }
+
+  private void load(TreeEnsemble forest, Layout layout, ConstantHandles.Slot slot)
+      throws Throwable {
     MethodHandle classify = GeneratedClassifier.emitLoadAndCheck(forest, layout, rows);
     ConstantHandles.offer(slot, classify);
     ConstantHandles.check(slot, classify);
